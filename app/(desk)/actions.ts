@@ -1,0 +1,79 @@
+"use server";
+
+import { AppError } from "@/modules/platform/errors";
+import {
+  createFoundationSchema,
+  createProjectSchema,
+  inviteMemberSchema,
+  removeMemberSchema,
+} from "@/modules/platform/account-schemas";
+import { createFoundation, createProject, countManagers, deleteMember, getMemberById, getProjectByCode } from "@/db/queries/projects";
+import { recordAuditEvent } from "@/db/queries/audit";
+import { isUniqueViolation } from "@/db/queries/errors";
+import { defineAction } from "../_lib/action";
+import { inviteMember } from "../_lib/accounts-service";
+
+export const createProjectAction = defineAction({
+  name: "project.create",
+  access: { kind: "signedIn" },
+  schema: createProjectSchema,
+  handler: async (ctx, input) => {
+    const auth = ctx.auth;
+    if (!auth || !(auth.user.isAdmin || auth.user.mayCreateProjects)) throw new AppError("forbidden", "Your account may not create projects.");
+    if (await getProjectByCode(input.code)) throw new AppError("invalid_input", undefined, [{ path: "code", message: "A project with this code exists" }]);
+    const project = await createProject(auth.actor, input);
+    await recordAuditEvent({ projectId: project.id, actorId: auth.user.id, action: "project.created", detail: { code: project.code } });
+    return { projectId: project.id };
+  },
+  redirectTo: (d) => `/projects/${d.projectId}`,
+});
+
+export const inviteMemberAction = defineAction({
+  name: "members.invite",
+  access: { kind: "project", permission: "members.manage" },
+  schema: inviteMemberSchema,
+  projectId: (i) => i.projectId,
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const r = await inviteMember(ctx.auth.actor, input);
+    return { ...r, message: `Invitation sent to ${input.email}.` };
+  },
+});
+
+export const removeMemberAction = defineAction({
+  name: "members.remove",
+  access: { kind: "project", permission: "members.manage" },
+  schema: removeMemberSchema,
+  projectId: (i) => i.projectId,
+  handler: async (ctx, input) => {
+    const member = await getMemberById(input.projectId, input.memberId);
+    if (!member) throw new AppError("not_found", "That member is not on this project.");
+    if (member.role === "manager" && (await countManagers(input.projectId)) <= 1) {
+      throw new AppError("conflict", "A project keeps at least one manager.");
+    }
+    await deleteMember(input.projectId, input.memberId);
+    await recordAuditEvent({ projectId: input.projectId, actorId: ctx.auth?.user.id, action: "member.removed", detail: { userId: member.userId } });
+    return { removed: input.memberId };
+  },
+});
+
+export const createFoundationAction = defineAction({
+  name: "foundation.create",
+  access: { kind: "project", permission: "foundation.create" },
+  schema: createFoundationSchema,
+  projectId: (i) => i.projectId,
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const { projectId, ...rest } = input;
+    try {
+      const f = await createFoundation(ctx.auth.actor, projectId, rest);
+      await recordAuditEvent({ projectId, actorId: ctx.auth.user.id, action: "foundation.created", detail: { tag: f.tag } });
+      return { foundationId: f.id };
+    } catch (e) {
+      if (isUniqueViolation(e, "foundations_project_tag_uq")) {
+        throw new AppError("invalid_input", undefined, [{ path: "tag", message: "This tag is already used in the project" }]);
+      }
+      throw e;
+    }
+  },
+});

@@ -1,0 +1,109 @@
+import { z } from "zod";
+import { AppError, errorCodes, formatIssuePath, isAppError } from "@/modules/platform/errors";
+import type { Membership } from "@/db/queries/projects";
+import { requireAdmin, requireProjectPermission, requireUser, type Access, type AuthContext } from "./guard";
+import { portFromRequest, type RequestPort } from "./request-context";
+
+export interface RouteContext<P> {
+  request: Request;
+  params: P;
+  port: RequestPort;
+  auth: AuthContext | null;
+  membership: Membership | null;
+}
+
+interface RouteDefinition<P, B extends z.ZodType | undefined, R> {
+  access: Access;
+  /** For project access: the project id from the path parameters. */
+  projectId?: (params: P) => string;
+  body?: B;
+  /** Largest accepted body in bytes. */
+  maxBodyBytes?: number;
+  handler: (ctx: RouteContext<P>, body: B extends z.ZodType ? z.infer<B> : undefined) => Promise<R | Response>;
+  status?: number;
+}
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+export function jsonError(e: AppError): Response {
+  const body: Record<string, unknown> = { error: { code: e.code, message: e.message } };
+  if (e.issues.length) (body.error as Record<string, unknown>).issues = e.issues;
+  return Response.json(body, { status: e.status });
+}
+
+/** Refuses state-changing requests sent from another site (the browser says so). */
+function assertSameSite(request: Request): void {
+  if (request.method === "GET" || request.method === "HEAD") return;
+  if (request.headers.get("sec-fetch-site") === "cross-site") throw new AppError("cross_site");
+  const origin = request.headers.get("origin");
+  if (origin && origin !== "null") {
+    const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
+    let originHost: string;
+    try {
+      originHost = new URL(origin).host;
+    } catch {
+      throw new AppError("cross_site");
+    }
+    if (!host || originHost !== host) throw new AppError("cross_site");
+  } else if (origin === "null") {
+    throw new AppError("cross_site");
+  }
+}
+
+async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw new AppError("payload_too_large");
+  const text = await request.text();
+  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload_too_large");
+  if (!text.trim()) throw new AppError("invalid_input", "The request body is empty.", [{ path: "(root)", message: "Expected a JSON body" }]);
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new AppError("invalid_input", "The request body is not valid JSON.", [{ path: "(root)", message: "Not valid JSON" }]);
+  }
+}
+
+/**
+ * The one route-handler wrapper, in the order: same-site check, authenticate,
+ * authorise by project role, read and validate the body, then the handler
+ * (a caller without the role learns nothing, not even which fields are wrong).
+ */
+export function defineRoute<P extends Record<string, string>, B extends z.ZodType | undefined, R>(def: RouteDefinition<P, B, R>) {
+  const handler = async (request: Request, context: { params: Promise<P> }): Promise<Response> => {
+    const port = portFromRequest(request);
+    try {
+      assertSameSite(request);
+      const params = (await context.params) ?? ({} as P);
+      const auth = def.access.kind === "public" ? null : await requireUser(port);
+      if (def.access.kind === "admin" && auth) requireAdmin(auth);
+      let membership: Membership | null = null;
+      if (def.access.kind === "project") {
+        const pid = def.projectId?.(params);
+        if (!auth || !pid || !uuidPattern.test(pid)) throw new AppError(uuidPattern.test(pid ?? "") ? "forbidden" : "not_found");
+        membership = await requireProjectPermission(auth, pid, def.access.permission);
+      }
+      let body: unknown = undefined;
+      if (def.body) {
+        const raw = await readJsonBody(request, def.maxBodyBytes ?? 1_000_000);
+        const parsed = def.body.safeParse(raw);
+        if (!parsed.success) {
+          throw new AppError(
+            "invalid_input",
+            undefined,
+            parsed.error.issues.map((i) => ({ path: formatIssuePath(i.path), message: i.message })),
+          );
+        }
+        body = parsed.data;
+      }
+      const result = await def.handler({ request, params, port, auth, membership }, body as B extends z.ZodType ? z.infer<B> : undefined);
+      const response = result instanceof Response ? result : Response.json(result, { status: def.status ?? 200 });
+      for (const c of port.setCookieHeaders) response.headers.append("set-cookie", c);
+      return response;
+    } catch (e) {
+      if (isAppError(e)) return jsonError(e);
+      console.error(`[route ${request.method} ${new URL(request.url).pathname}]`, e);
+      return Response.json({ error: { code: "internal", message: errorCodes.internal.message } }, { status: 500 });
+    }
+  };
+  return Object.assign(handler, { access: def.access });
+}

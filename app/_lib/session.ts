@@ -1,0 +1,59 @@
+import { sealData, unsealData } from "iron-session";
+import { getServerEnv, getSessionSecret } from "@/modules/platform/env";
+import { createSession, getSessionUser, revokeSession, SESSION_TTL_MS, type PublicUser } from "@/db/queries/accounts";
+import type { RequestPort } from "./request-context";
+
+// The session cookie is sealed with iron-session 8 (AES + HMAC): it carries only
+// the session id, whose row in PostgreSQL makes sign-out final.
+export const SESSION_COOKIE = "plinth_session";
+
+interface SessionPayload {
+  sid: string;
+}
+
+function secureCookies(): boolean {
+  const env = getServerEnv();
+  if (env.SECURE_COOKIES === "1") return true;
+  if (env.SECURE_COOKIES === "0") return false;
+  return env.NODE_ENV === "production" && env.APP_URL.startsWith("https:");
+}
+
+export async function sealSessionCookie(sid: string): Promise<string> {
+  return sealData({ sid } satisfies SessionPayload, { password: getSessionSecret(), ttl: SESSION_TTL_MS / 1000 });
+}
+
+export async function startSession(port: RequestPort, userId: string): Promise<string> {
+  const { id } = await createSession(userId);
+  port.setCookie(SESSION_COOKIE, await sealSessionCookie(id), {
+    httpOnly: true,
+    sameSite: "lax",
+    secure: secureCookies(),
+    path: "/",
+    maxAge: SESSION_TTL_MS / 1000,
+  });
+  return id;
+}
+
+export async function readSessionId(port: RequestPort): Promise<string | undefined> {
+  const raw = port.getCookie(SESSION_COOKIE);
+  if (!raw) return undefined;
+  try {
+    const data = await unsealData<Partial<SessionPayload>>(raw, { password: getSessionSecret(), ttl: SESSION_TTL_MS / 1000 });
+    return typeof data.sid === "string" && data.sid.length > 0 ? data.sid : undefined;
+  } catch {
+    // A tampered or foreign cookie unseals to an error: treated as signed out.
+    return undefined;
+  }
+}
+
+export async function getUserFromPort(port: RequestPort): Promise<PublicUser | undefined> {
+  const sid = await readSessionId(port);
+  if (!sid) return undefined;
+  return getSessionUser(sid);
+}
+
+export async function endSession(port: RequestPort): Promise<void> {
+  const sid = await readSessionId(port);
+  if (sid) await revokeSession(sid);
+  port.deleteCookie(SESSION_COOKIE);
+}

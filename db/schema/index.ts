@@ -1,0 +1,4 @@
+export * from "./accounts";
+export * from "./projects";
+export * from "./mail";
+export * from "./audit";

@@ -1,0 +1,56 @@
+import { index, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { users } from "./accounts";
+
+const stamps = {
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+};
+
+// Machine vendors; a vendor member of a project belongs to one company.
+export const companies = pgTable("companies", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  name: text("name").notNull().unique(),
+  ...stamps,
+});
+
+export const projects = pgTable("projects", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  code: text("code").notNull().unique(),
+  name: text("name").notNull(),
+  client: text("client").notNull().default(""),
+  site: text("site").notNull().default(""),
+  units: text("units", { enum: ["si", "us"] }).notNull().default("si"),
+  criteriaDefaults: jsonb("criteria_defaults").notNull().default({}),
+  createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
+  ...stamps,
+});
+
+export const projectMembers = pgTable(
+  "project_members",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    role: text("role", { enum: ["manager", "designer", "checker", "vendor", "viewer"] }).notNull(),
+    companyId: uuid("company_id").references(() => companies.id, { onDelete: "set null" }),
+    ...stamps,
+  },
+  (t) => [unique("project_members_project_user_uq").on(t.projectId, t.userId), index("project_members_user_idx").on(t.userId)],
+);
+
+export const foundations = pgTable(
+  "foundations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
+    tag: text("tag").notNull(),
+    machineTrain: text("machine_train").notNull().default(""),
+    location: text("location").notNull().default(""),
+    ...stamps,
+  },
+  (t) => [unique("foundations_project_tag_uq").on(t.projectId, t.tag)],
+);
+
+export type ProjectRow = typeof projects.$inferSelect;
+export type ProjectMemberRow = typeof projectMembers.$inferSelect;
+export type FoundationRow = typeof foundations.$inferSelect;

@@ -1,0 +1,43 @@
+import bcrypt from "bcryptjs";
+import { DEMO_PASSWORD, DEMO_PROJECT_CODE, DEMO_VENDOR_COMPANY, demoAccounts } from "@/modules/platform/demo";
+import { createUser, getUserByEmail } from "./queries/accounts";
+import { createFoundation, createProject, getOrCreateCompany, getProjectByCode, upsertMember } from "./queries/projects";
+
+/** Creates the demo scenario unless its project already exists. */
+export async function seedDemo(): Promise<{ created: boolean; projectId: string }> {
+  const existing = await getProjectByCode(DEMO_PROJECT_CODE);
+  if (existing) return { created: false, projectId: existing.id };
+  const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
+  const ids = new Map<string, string>();
+  for (const a of demoAccounts) {
+    const found = await getUserByEmail(a.email);
+    const user =
+      found ??
+      (await createUser({
+        email: a.email,
+        name: a.name,
+        passwordHash: hash,
+        isAdmin: a.role === "admin",
+        mayCreateProjects: a.role === "admin" || a.role === "manager",
+      }));
+    ids.set(a.role, user.id);
+  }
+  const managerId = ids.get("manager");
+  if (!managerId) throw new Error("demo manager missing");
+  const actor = { userId: managerId, isAdmin: false };
+  const project = await createProject(actor, {
+    code: DEMO_PROJECT_CODE,
+    name: "Kestrel Bay Reclamation Works: Pump House 1",
+    client: "Kestrel Bay Water Board (invented)",
+    site: "Kestrel Bay, east terrace",
+    units: "si",
+  });
+  const companyId = await getOrCreateCompany(DEMO_VENDOR_COMPANY);
+  for (const role of ["designer", "checker", "vendor", "viewer"] as const) {
+    const userId = ids.get(role);
+    if (userId) await upsertMember({ projectId: project.id, userId, role, companyId: role === "vendor" ? companyId : null });
+  }
+  await createFoundation(actor, project.id, { tag: "PH1-P101", machineTrain: "Raw-water pump train (motor + pump)", location: "Pump house bay 1" });
+  await createFoundation(actor, project.id, { tag: "PH1-B201", machineTrain: "Aeration blower", location: "Blower hall, grid C4" });
+  return { created: true, projectId: project.id };
+}

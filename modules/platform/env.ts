@@ -1,0 +1,43 @@
+import { z } from "zod";
+
+// The environment is read and validated once, here; nothing else reads process.env.
+const envSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  DATABASE_URL: z.string().min(1).default("postgres://plinthwise@127.0.0.1:54329/plinthwise"),
+  SESSION_SECRET: z.string().min(32, "SESSION_SECRET must be at least 32 characters").optional(),
+  SMTP_URL: z.string().min(1).default("smtp://127.0.0.1:2525"),
+  MAIL_FROM: z.string().min(3).default("Plinthwise <desk@plinthwise.invalid>"),
+  APP_URL: z.string().url().default("http://localhost:3000"),
+  PLINTH_DEMO: z.enum(["0", "1"]).default("0"),
+  // Behind a load balancer, the client address comes from X-Forwarded-For.
+  TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+  SECURE_COOKIES: z.enum(["auto", "0", "1"]).default("auto"),
+});
+
+export type ServerEnv = z.infer<typeof envSchema>;
+
+let cached: ServerEnv | undefined;
+
+export function getServerEnv(): ServerEnv {
+  if (!cached) {
+    const parsed = envSchema.safeParse(process.env);
+    if (!parsed.success) {
+      const lines = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
+      throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+    }
+    cached = parsed.data;
+  }
+  return cached;
+}
+
+export function getSessionSecret(): string {
+  const secret = getServerEnv().SESSION_SECRET;
+  if (!secret) {
+    throw new Error("SESSION_SECRET is not set: run `npm start` once to generate .env.local, or set it in the environment.");
+  }
+  return secret;
+}
+
+export function isDemoMode(): boolean {
+  return getServerEnv().PLINTH_DEMO === "1";
+}

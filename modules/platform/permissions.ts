@@ -1,0 +1,46 @@
+// The one permission map: which project role may do what. Every route handler
+// and server action names one of these permissions and the guard enforces it.
+export const projectRoles = ["manager", "designer", "checker", "vendor", "viewer"] as const;
+export type ProjectRole = (typeof projectRoles)[number];
+
+export const permissionMap = {
+  "project.read": ["manager", "designer", "checker", "viewer"],
+  "project.update": ["manager"],
+  "members.read": ["manager", "designer", "checker"],
+  "members.manage": ["manager"],
+  "foundation.read": ["manager", "designer", "checker", "viewer"],
+  "foundation.create": ["manager", "designer"],
+  "draft.edit": ["manager", "designer"],
+  "calc.run": ["manager", "designer", "checker", "viewer"],
+  "revision.issue": ["manager", "designer"],
+  "revision.review": ["manager", "checker"],
+  "revision.approve": ["manager", "checker"],
+  "vendorRequest.create": ["manager", "designer"],
+  "vendorRequest.readOwn": ["vendor", "manager", "designer"],
+  "vendorRequest.answer": ["vendor"],
+  "package.export": ["manager", "designer", "checker", "viewer"],
+} as const satisfies Record<string, readonly ProjectRole[]>;
+
+export type ProjectPermission = keyof typeof permissionMap;
+
+export function roleAllows(role: ProjectRole | null | undefined, permission: ProjectPermission): boolean {
+  if (!role) return false;
+  return (permissionMap[permission] as readonly ProjectRole[]).includes(role);
+}
+
+export function isProjectRole(value: unknown): value is ProjectRole {
+  return typeof value === "string" && (projectRoles as readonly string[]).includes(value);
+}
+
+/** Where each role lands inside a project. */
+export function roleHomePath(projectId: string, role: ProjectRole): string {
+  return role === "vendor" ? `/projects/${projectId}/requests` : `/projects/${projectId}`;
+}
+
+export const roleLabels: Record<ProjectRole, string> = {
+  manager: "Manager",
+  designer: "Designer",
+  checker: "Checker",
+  vendor: "Vendor",
+  viewer: "Viewer",
+};

@@ -1,0 +1,60 @@
+#!/usr/bin/env bash
+# npm test: the same set-up as npm start on separate ports and a fresh test
+# database, then the unit, integration and browser suites. Ends with one line
+# "N passed, N failed" summed over the suites' own counts.
+set -uo pipefail
+source "$(dirname "$0")/lib/common.sh"
+set -e
+
+APP_PORT="${PLINTH_TEST_APP_PORT:-3100}"
+SMTP_PORT="${PLINTH_TEST_SMTP_PORT:-2535}"
+ART="$ROOT/test-artifacts"
+rm -rf "$ART" && mkdir -p "$ART"
+
+ensure_node_modules
+ensure_env_file
+bash scripts/lib/ensure-chromium.sh
+
+# Tests never run against DATABASE_URL (it may be production): TEST_DATABASE_URL or the local cluster.
+if [ -n "${TEST_DATABASE_URL:-}" ]; then DATABASE_URL="$TEST_DATABASE_URL"; else DATABASE_URL="$(bash scripts/lib/pg.sh ensure plinthwise_test --fresh)"; fi
+export DATABASE_URL
+export PLINTH_DEMO=1
+export APP_URL="http://127.0.0.1:$APP_PORT"
+export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
+export PLINTH_TEST_SMTP_PORT="$SMTP_PORT"
+export PLINTH_TEST_APP_URL="$APP_URL"
+
+FAKE_SMTP_PID=""
+SERVER_PID=""
+cleanup() {
+  [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null || true
+  [ -n "$FAKE_SMTP_PID" ] && kill "$FAKE_SMTP_PID" 2>/dev/null || true
+}
+trap cleanup EXIT INT TERM
+
+node_modules/.bin/tsx scripts/db-migrate.mts
+node_modules/.bin/tsx scripts/db-seed.mts
+start_fake_smtp "$SMTP_PORT" "$ART/fake-smtp.log"
+
+set +e
+log "unit suite"
+node_modules/.bin/vitest run --project unit --reporter=default --reporter=json --outputFile.json="$ART/unit.json"
+log "integration suite"
+node_modules/.bin/vitest run --project integration --reporter=default --reporter=json --outputFile.json="$ART/integration.json"
+
+log "building the production bundle for the browser suite"
+if node_modules/.bin/next build >"$ART/build.log" 2>&1; then
+  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$ART/server.log" 2>&1 &
+  SERVER_PID=$!
+  if wait_for_port 127.0.0.1 "$APP_PORT" 60; then
+    log "browser suite"
+    node_modules/.bin/vitest run --project e2e --reporter=default --reporter=json --outputFile.json="$ART/e2e.json"
+  else
+    log "the server did not start; see $ART/server.log"
+  fi
+else
+  log "next build failed:"; tail -40 "$ART/build.log" >&2
+fi
+set -e
+
+node_modules/.bin/tsx scripts/test-summary.mts "$ART/unit.json" "$ART/integration.json" "$ART/e2e.json"
