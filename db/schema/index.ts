@@ -2,3 +2,4 @@ export * from "./accounts";
 export * from "./projects";
 export * from "./mail";
 export * from "./audit";
+export * from "./drafts";
