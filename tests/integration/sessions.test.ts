@@ -1,0 +1,97 @@
+// Sessions: the sealed iron-session cookie, its database row, tampering and sign-out.
+import { eq } from "drizzle-orm";
+import { sealData } from "iron-session";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { signInAction, signOutAction } from "@/app/(auth)/actions";
+import { readSessionId, SESSION_COOKIE } from "@/app/_lib/session";
+import { portFromRequest } from "@/app/_lib/request-context";
+import { hashPassword } from "@/app/_lib/passwords";
+import { closeDb, getDb } from "@/db/client";
+import { createUser } from "@/db/queries/accounts";
+import { sessions } from "@/db/schema";
+import { callAction, callRoute, makeRequest, sessionCookieFrom } from "./support/fixture";
+
+const email = `session-${Date.now()}@example.test`;
+const password = "correct horse battery";
+
+async function signInCookie(): Promise<string> {
+  const { state, port } = await callAction(signInAction, { email, password }, null);
+  expect(state.ok).toBe(true);
+  const cookie = sessionCookieFrom(port.setCookieHeaders);
+  expect(cookie).not.toBeNull();
+  return cookie!;
+}
+
+beforeAll(async () => {
+  await createUser({ email, name: "Sam Session", passwordHash: await hashPassword(password) });
+});
+afterAll(async () => {
+  await closeDb();
+});
+
+describe("sessions", () => {
+  it("signing in sets an httpOnly, SameSite=Lax cookie that opens the API", async () => {
+    const { port } = await callAction(signInAction, { email, password }, null);
+    const header = port.setCookieHeaders.find((h) => h.startsWith(`${SESSION_COOKIE}=`));
+    expect(header).toMatch(/HttpOnly/);
+    expect(header).toMatch(/SameSite=Lax/);
+    const cookie = sessionCookieFrom(port.setCookieHeaders);
+    const res = await callRoute("v1/session", "GET", {}, { cookie });
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { user: { email: string } };
+    expect(body.user.email).toBe(email);
+  });
+
+  it("refuses a tampered cookie", async () => {
+    const cookie = await signInCookie();
+    const [name, value] = cookie.split("=") as [string, string];
+    const raw = decodeURIComponent(value);
+    // Flip one character in the sealed payload.
+    const i = Math.floor(raw.length / 2);
+    const flipped = raw.slice(0, i) + (raw[i] === "A" ? "B" : "A") + raw.slice(i + 1);
+    const res = await callRoute("v1/session", "GET", {}, { cookie: `${name}=${encodeURIComponent(flipped)}` });
+    expect(res.status).toBe(401);
+  });
+
+  it("refuses a cookie sealed with another secret, even for a live session id", async () => {
+    const rows = await getDb().select().from(sessions).limit(1);
+    const sid = rows[0]?.id;
+    expect(sid).toBeDefined();
+    const forged = await sealData({ sid }, { password: "x".repeat(40) });
+    const res = await callRoute("v1/session", "GET", {}, { cookie: `${SESSION_COOKIE}=${encodeURIComponent(forged)}` });
+    expect(res.status).toBe(401);
+  });
+
+  it("sign-out ends the session: the same cookie no longer works", async () => {
+    const cookie = await signInCookie();
+    expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(200);
+    const { state, port } = await callAction(signOutAction, {}, cookie);
+    expect(state.ok).toBe(true);
+    expect(port.setCookieHeaders.some((h) => h.startsWith(`${SESSION_COOKIE}=;`) && /Max-Age=0/.test(h))).toBe(true);
+    expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(401);
+  });
+
+  it("an expired session row is refused", async () => {
+    const cookie = await signInCookie();
+    const sid = await readSessionId(portFromRequest(makeRequest("GET", "/", { cookie })));
+    expect(sid).toBeDefined();
+    await getDb().update(sessions).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, sid!));
+    expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(401);
+  });
+
+  it("a wrong password is refused with a clear message and no cookie", async () => {
+    const { state, port } = await callAction(signInAction, { email, password: "wrong" }, null, { "x-forwarded-for": "10.9.9.9" });
+    expect(state.ok).toBe(false);
+    if (!state.ok) expect(state.message).toMatch(/do not match/);
+    expect(sessionCookieFrom(port.setCookieHeaders)).toBeNull();
+  });
+
+  it("bad form input names the field", async () => {
+    const { state } = await callAction(signInAction, { email: "not-an-email", password: "" }, null);
+    expect(state.ok).toBe(false);
+    if (!state.ok) {
+      expect(state.fieldErrors?.email?.[0]).toMatch(/valid e-mail/);
+      expect(state.fieldErrors?.password?.[0]).toMatch(/password/);
+    }
+  });
+});
