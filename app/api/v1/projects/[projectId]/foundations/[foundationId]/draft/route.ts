@@ -1,0 +1,46 @@
+import { z } from "zod";
+import { parseAnalysisInput } from "@/modules/calc";
+import { AppError, errorCodes } from "@/modules/platform/errors";
+import { getDraft, saveDraft } from "@/db/queries/drafts";
+import { defineRoute } from "@/app/_lib/route";
+import { foundationIdOf, foundationNotFound, projectIdOf } from "../foundation-params";
+
+export const dynamic = "force-dynamic";
+
+// The envelope only; the input itself is checked by the contract's own parser below so
+// its issues carry the contract's paths and messages (e.g. "soil.poissonRatio").
+const putBodySchema = z.strictObject({
+  version: z.number({ error: "must be the draft version you started from" }).int().min(0),
+  input: z.unknown().refine((v) => v !== undefined, { error: "is required" }),
+});
+
+export const GET = defineRoute({
+  access: { kind: "project", permission: "foundation.read" },
+  projectId: projectIdOf,
+  handler: async ({ auth, params }) => {
+    const draft = await getDraft(auth!.actor, params.projectId, foundationIdOf(params));
+    if (!draft) throw foundationNotFound();
+    return { draft };
+  },
+});
+
+export const PUT = defineRoute({
+  access: { kind: "project", permission: "draft.edit" },
+  projectId: projectIdOf,
+  body: putBodySchema,
+  handler: async ({ auth, params }, body) => {
+    const foundationId = foundationIdOf(params);
+    const parsed = parseAnalysisInput(body.input);
+    if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
+    const saved = await saveDraft(auth!.actor, params.projectId, foundationId, { input: parsed.input, expectedVersion: body.version });
+    if (!saved) throw foundationNotFound();
+    if (!saved.ok) {
+      // The client needs the version it lost to, and the stored draft to offer a reload or a comparison.
+      return Response.json(
+        { error: { code: "conflict", message: errorCodes.conflict.message, currentVersion: saved.current.version }, current: saved.current },
+        { status: errorCodes.conflict.status },
+      );
+    }
+    return { draft: saved.draft };
+  },
+});

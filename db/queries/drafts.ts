@@ -1,0 +1,102 @@
+import { and, eq, sql } from "drizzle-orm";
+import { getDb } from "../client";
+import { foundationDrafts, type FoundationDraftRow } from "../schema";
+import type { AnalysisInput } from "@/modules/calc";
+import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
+import { getFoundation } from "./foundations";
+import { getMembership, type Actor } from "./projects";
+
+/**
+ * A foundation's draft as the API shows it. `version` 0 with `input` null means nothing
+ * has been saved yet; the first save must then expect version 0.
+ */
+export interface Draft {
+  foundationId: string;
+  version: number;
+  input: AnalysisInput | null;
+  vendorSubmissionId: string | null;
+  updatedById: string | null;
+  updatedAt: Date | null;
+}
+
+export type SaveDraftResult = { ok: true; draft: Draft } | { ok: false; current: Draft };
+
+function toDraft(row: FoundationDraftRow): Draft {
+  return {
+    foundationId: row.foundationId,
+    version: row.version,
+    // Only inputs that passed the contract's schema are ever written (saveDraft's callers
+    // parse first), so the stored JSON is an AnalysisInput.
+    input: row.input as AnalysisInput,
+    vendorSubmissionId: row.vendorSubmissionId,
+    updatedById: row.updatedById,
+    updatedAt: row.updatedAt,
+  };
+}
+
+function emptyDraft(foundationId: string): Draft {
+  return { foundationId, version: 0, input: null, vendorSubmissionId: null, updatedById: null, updatedAt: null };
+}
+
+/** The foundation, when the actor's project role allows the permission and it belongs to the project. */
+async function findFoundationFor(actor: Actor, projectId: string, foundationId: string, permission: ProjectPermission) {
+  const membership = await getMembership(actor, projectId);
+  if (!membership || !roleAllows(membership.role, permission)) return undefined;
+  return getFoundation(actor, projectId, foundationId);
+}
+
+async function readDraft(foundationId: string): Promise<Draft> {
+  const rows = await getDb().select().from(foundationDrafts).where(eq(foundationDrafts.foundationId, foundationId)).limit(1);
+  return rows[0] ? toDraft(rows[0]) : emptyDraft(foundationId);
+}
+
+/**
+ * The draft of a foundation of the project; undefined when the actor may not read the
+ * project's foundations or the foundation is not in that project.
+ */
+export async function getDraft(actor: Actor, projectId: string, foundationId: string): Promise<Draft | undefined> {
+  const foundation = await findFoundationFor(actor, projectId, foundationId, "foundation.read");
+  return foundation ? readDraft(foundation.id) : undefined;
+}
+
+/**
+ * Saves the input only when the stored version is still `expectedVersion`, in one
+ * statement, so of two concurrent saves from the same version exactly one wins; the
+ * loser gets the current draft back and nothing is overwritten. Expecting version 0
+ * creates the draft. Undefined when the actor may not edit or the foundation is not
+ * in the project.
+ */
+export async function saveDraft(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  change: { input: AnalysisInput; expectedVersion: number },
+): Promise<SaveDraftResult | undefined> {
+  const foundation = await findFoundationFor(actor, projectId, foundationId, "draft.edit");
+  if (!foundation) return undefined;
+  const db = getDb();
+  const rows =
+    change.expectedVersion === 0
+      ? await db
+          .insert(foundationDrafts)
+          .values({ foundationId: foundation.id, input: change.input, version: 1, updatedById: actor.userId })
+          // An existing row means someone saved first: a conflict, not an overwrite.
+          .onConflictDoNothing({ target: foundationDrafts.foundationId })
+          .returning()
+      : await db
+          .update(foundationDrafts)
+          .set({ input: change.input, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, updatedAt: new Date() })
+          .where(and(eq(foundationDrafts.foundationId, foundation.id), eq(foundationDrafts.version, change.expectedVersion)))
+          .returning();
+  const saved = rows[0];
+  return saved ? { ok: true, draft: toDraft(saved) } : { ok: false, current: await readDraft(foundation.id) };
+}
+
+/**
+ * For the demo seed (trusted, no actor): gives a foundation a draft from an example
+ * input that has already passed parseAnalysisInput, unless it has one.
+ */
+export async function createDraftFromExample(foundationId: string, input: AnalysisInput, updatedById: string | null = null): Promise<Draft> {
+  await getDb().insert(foundationDrafts).values({ foundationId, input, version: 1, updatedById }).onConflictDoNothing({ target: foundationDrafts.foundationId });
+  return readDraft(foundationId);
+}
