@@ -1,0 +1,52 @@
+// The whole analysis of one input: model, nominal soil case, sweep, soil band, checks,
+// cross-check and warnings, assembled into the contract's result.
+import { analysisWarnings } from "./analysis-warnings";
+import { buildChecks, resolveCriteria } from "./checks";
+import { buildCrossCheck } from "./closed-form";
+import { assertFinite } from "./finite";
+import { buildModel } from "./model";
+import type { AnalysisResult } from "./result-types";
+import type { AnalysisInput } from "./schema";
+import { soilBand } from "./soil-band";
+import { runSoilCase } from "./soil-case";
+import { frequencySweep } from "./sweep";
+import { resolveSweep } from "./sweep-grid";
+
+export const ENGINE_VERSION = "1.0.0";
+
+const SWEEP_SERIES_KEYS: ReadonlySet<string> = new Set(["sweep.series", "sweep.transmissibility"]);
+
+export interface AnalyseOptions {
+  /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
+  soilBand?: boolean;
+}
+
+/** Analyses a valid input (see parseAnalysisInput). Throws only on an internal error. */
+export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): AnalysisResult {
+  const model = buildModel(input);
+  const nominal = runSoilCase(model, 1);
+  const criteria = resolveCriteria(input);
+  const sweepSettings = resolveSweep(input);
+  const modesHz = nominal.modes.map((m) => m.frequencyHz);
+  const sweep = frequencySweep(model, nominal.solver, sweepSettings, modesHz, criteria.frequencySeparation.value);
+  const crossCheck = buildCrossCheck(model, nominal);
+  const checks = buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure);
+  const warnings = [...model.warnings, ...nominal.impedance.warnings, ...analysisWarnings(model, nominal, sweepSettings)];
+  const result: AnalysisResult = {
+    schemaVersion: 1,
+    engineVersion: ENGINE_VERSION,
+    massProperties: model.massProperties,
+    impedance: nominal.impedanceResult,
+    modes: nominal.modes.map(({ frequencyHz, dominant, participation, shape }) => ({ frequencyHz, dominant, participation, shape })),
+    rotors: nominal.rotors,
+    checks,
+    sweep,
+    warnings,
+    ...(options.soilBand === false ? {} : { bounds: soilBand(model) }),
+    crossCheck,
+    criteria,
+  };
+  // sweep series and transmissibility values are checked in the sweep loop itself
+  assertFinite(result, "", SWEEP_SERIES_KEYS);
+  return result;
+}

@@ -1,0 +1,142 @@
+// Acceptance checks: frequency separation of every mode from every operating range, displacement
+// and velocity at every point for every case (enveloped over the speed range), mass ratio,
+// eccentricity of the combined cg and static bearing pressure.
+import { CRITERIA_DEFAULTS, USER_CRITERION_SOURCE, type CriterionKey } from "./criteria-defaults";
+import type { Mode } from "./eigen";
+import type { AnalysisInput } from "./schema";
+import type { CheckResult, MassPropertiesResult, ResolvedCriterion, RotorResult } from "./result-types";
+
+export type Criteria = Record<CriterionKey, ResolvedCriterion>;
+
+/** Criteria with the product defaults filled in, each with its source. */
+export function resolveCriteria(input: AnalysisInput): Criteria {
+  const given = input.criteria ?? {};
+  const out = {} as Criteria;
+  for (const key of Object.keys(CRITERIA_DEFAULTS) as CriterionKey[]) {
+    const d = CRITERIA_DEFAULTS[key];
+    const v = given[key];
+    out[key] = v === undefined ? { value: d.value, unit: d.unit, source: d.source } : { value: v, unit: d.unit, source: USER_CRITERION_SOURCE };
+  }
+  return out;
+}
+
+/** Smallest |r - 1| of r = speed / fn over a speed range; 0 when the range crosses the mode. */
+export function separationOverRange(rangeHz: [number, number], naturalHz: number): number {
+  const lo = rangeHz[0] / naturalHz;
+  const hi = rangeHz[1] / naturalHz;
+  if (lo <= 1 && hi >= 1) return 0;
+  return Math.min(Math.abs(lo - 1), Math.abs(hi - 1));
+}
+
+function check(
+  base: Omit<CheckResult, "pass">,
+): CheckResult {
+  const pass = base.comparison === "min" ? base.value >= base.limit : base.value <= base.limit;
+  return { ...base, pass };
+}
+
+export function buildChecks(
+  criteria: Criteria,
+  mass: MassPropertiesResult,
+  modes: Mode[],
+  rotors: RotorResult[],
+  allowableBearingPressure: number,
+): CheckResult[] {
+  const checks: CheckResult[] = [];
+  for (const r of rotors) {
+    const range = r.speedRangeRpm ?? [r.speedRpm, r.speedRpm];
+    modes.forEach((m, i) => {
+      const value = separationOverRange([range[0] / 60, range[1] / 60], m.frequencyHz);
+      checks.push(
+        check({
+          id: "frequency-separation",
+          key: `frequency-separation/${r.machine}/${r.rotor}/mode-${i + 1}`,
+          label: `Mode ${i + 1} (${m.dominant}, ${m.frequencyHz.toFixed(2)} Hz) against ${r.machine} ${r.rotor} ${range[0]}-${range[1]} rpm: smallest |r - 1|`,
+          value,
+          limit: criteria.frequencySeparation.value,
+          comparison: "min",
+          unit: "-",
+          source: criteria.frequencySeparation.source,
+          machine: r.machine,
+          rotor: r.rotor,
+          mode: i + 1,
+        }),
+      );
+    });
+  }
+  for (const r of rotors) {
+    for (const c of r.cases) {
+      for (const p of c.points) {
+        const where = `${p.name}, ${r.machine} ${r.rotor} ${c.case} ${c.unbalanceMode} unbalance, over the speed range`;
+        const common = { machine: r.machine, rotor: r.rotor, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name } as const;
+        checks.push(
+          check({
+            id: "displacement",
+            key: `displacement/${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            label: `Peak displacement at ${where}`,
+            value: p.overSpeedRange?.displacementPeak ?? Math.max(...p.displacementPeak),
+            limit: criteria.maxDisplacementPeak.value,
+            comparison: "max",
+            unit: "m",
+            source: criteria.maxDisplacementPeak.source,
+            ...common,
+          }),
+          check({
+            id: "velocity",
+            key: `velocity/${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            label: `Peak velocity at ${where}`,
+            value: p.overSpeedRange?.velocityPeak ?? Math.max(...p.velocityPeak),
+            limit: criteria.maxVelocityPeak.value,
+            comparison: "max",
+            unit: "m/s",
+            source: criteria.maxVelocityPeak.source,
+            ...common,
+          }),
+        );
+      }
+    }
+  }
+  checks.push(
+    check({
+      id: "mass-ratio",
+      key: "mass-ratio",
+      label: "Block mass over machine mass",
+      value: mass.massRatio,
+      limit: criteria.minMassRatio.value,
+      comparison: "min",
+      unit: "-",
+      source: criteria.minMassRatio.source,
+    }),
+    check({
+      id: "eccentricity",
+      key: "eccentricity/x",
+      label: "Offset of the combined centre of gravity from O along x over the base length",
+      value: Math.abs(mass.eccentricity[0]),
+      limit: criteria.maxEccentricity.value,
+      comparison: "max",
+      unit: "-",
+      source: criteria.maxEccentricity.source,
+    }),
+    check({
+      id: "eccentricity",
+      key: "eccentricity/y",
+      label: "Offset of the combined centre of gravity from O along y over the base width",
+      value: Math.abs(mass.eccentricity[1]),
+      limit: criteria.maxEccentricity.value,
+      comparison: "max",
+      unit: "-",
+      source: criteria.maxEccentricity.source,
+    }),
+    check({
+      id: "bearing-pressure",
+      key: "bearing-pressure",
+      label: "Static bearing pressure over the allowable bearing pressure",
+      value: mass.staticBearingPressure / allowableBearingPressure,
+      limit: criteria.maxBearingRatio.value,
+      comparison: "max",
+      unit: "-",
+      source: criteria.maxBearingRatio.source,
+    }),
+  );
+  return checks;
+}

@@ -1,0 +1,130 @@
+// Lean complex 6 x 6 solver for the harmonic steady state: the dynamic stiffness
+//   S(w) = K(w) (1 + 2 i beta) + i w C(w) - w^2 M
+// is assembled into Float64Arrays, factorised once per frequency by Gaussian elimination with
+// partial pivoting (LU), and the factors are reused for every load vector. No allocation per
+// frequency: this is the hot loop of the sweep.
+
+export class ComplexSystem6 {
+  readonly re = new Float64Array(36);
+  readonly im = new Float64Array(36);
+  readonly pivot = new Int32Array(6);
+  /** Reciprocals of the U diagonal, so a solve multiplies instead of dividing. */
+  private readonly invRe = new Float64Array(6);
+  private readonly invIm = new Float64Array(6);
+
+  /** S(w) from the row-major mass matrix M and the diagonal K(w), C(w); beta = material damping. */
+  assemble(omega: number, M: Float64Array, k: Float64Array, c: Float64Array, beta: number): void {
+    const w2 = omega * omega;
+    const re = this.re;
+    const im = this.im;
+    for (let i = 0; i < 36; i++) {
+      re[i] = -w2 * (M[i] as number);
+      im[i] = 0;
+    }
+    for (let i = 0; i < 6; i++) {
+      const ki = k[i] as number;
+      re[i * 7] = (re[i * 7] as number) + ki;
+      im[i * 7] = 2 * beta * ki + omega * (c[i] as number);
+    }
+  }
+
+  /** In-place LU factorisation with partial pivoting (largest modulus in the column). */
+  factorise(): void {
+    const re = this.re;
+    const im = this.im;
+    for (let col = 0; col < 6; col++) {
+      let p = col;
+      let best = -1;
+      for (let r = col; r < 6; r++) {
+        const a = re[r * 6 + col] as number;
+        const b = im[r * 6 + col] as number;
+        const mag = a * a + b * b;
+        if (mag > best) {
+          best = mag;
+          p = r;
+        }
+      }
+      this.pivot[col] = p;
+      if (p !== col) {
+        for (let j = 0; j < 6; j++) {
+          const t1 = re[col * 6 + j] as number;
+          re[col * 6 + j] = re[p * 6 + j] as number;
+          re[p * 6 + j] = t1;
+          const t2 = im[col * 6 + j] as number;
+          im[col * 6 + j] = im[p * 6 + j] as number;
+          im[p * 6 + j] = t2;
+        }
+      }
+      const dr = re[col * 7] as number;
+      const di = im[col * 7] as number;
+      const den = dr * dr + di * di;
+      if (!(den > 0)) throw new Error("dynamic stiffness matrix is singular");
+      // 1 / pivot
+      const invR = dr / den;
+      const invI = -di / den;
+      this.invRe[col] = invR;
+      this.invIm[col] = invI;
+      for (let r = col + 1; r < 6; r++) {
+        const ar = re[r * 6 + col] as number;
+        const ai = im[r * 6 + col] as number;
+        const lr = ar * invR - ai * invI;
+        const li = ar * invI + ai * invR;
+        re[r * 6 + col] = lr;
+        im[r * 6 + col] = li;
+        for (let j = col + 1; j < 6; j++) {
+          const ur = re[col * 6 + j] as number;
+          const ui = im[col * 6 + j] as number;
+          re[r * 6 + j] = (re[r * 6 + j] as number) - (lr * ur - li * ui);
+          im[r * 6 + j] = (im[r * 6 + j] as number) - (lr * ui + li * ur);
+        }
+      }
+    }
+  }
+
+  /** Solves S x = b with the factors; b (xr, xi) is overwritten by x. */
+  solveInPlace(xr: Float64Array, xi: Float64Array): void {
+    const re = this.re;
+    const im = this.im;
+    for (let col = 0; col < 6; col++) {
+      const p = this.pivot[col] as number;
+      if (p !== col) {
+        const t1 = xr[col] as number;
+        xr[col] = xr[p] as number;
+        xr[p] = t1;
+        const t2 = xi[col] as number;
+        xi[col] = xi[p] as number;
+        xi[p] = t2;
+      }
+    }
+    for (let i = 1; i < 6; i++) {
+      let sr = xr[i] as number;
+      let si = xi[i] as number;
+      for (let j = 0; j < i; j++) {
+        const lr = re[i * 6 + j] as number;
+        const li = im[i * 6 + j] as number;
+        const br = xr[j] as number;
+        const bi = xi[j] as number;
+        sr -= lr * br - li * bi;
+        si -= lr * bi + li * br;
+      }
+      xr[i] = sr;
+      xi[i] = si;
+    }
+    for (let i = 5; i >= 0; i--) {
+      let sr = xr[i] as number;
+      let si = xi[i] as number;
+      for (let j = i + 1; j < 6; j++) {
+        const ur = re[i * 6 + j] as number;
+        const ui = im[i * 6 + j] as number;
+        const br = xr[j] as number;
+        const bi = xi[j] as number;
+        sr -= ur * br - ui * bi;
+        si -= ur * bi + ui * br;
+      }
+      const ir = this.invRe[i] as number;
+      const ii = this.invIm[i] as number;
+      xr[i] = sr * ir - si * ii;
+      xi[i] = sr * ii + si * ir;
+    }
+  }
+}

@@ -1,0 +1,140 @@
+// Damped harmonic steady state of the six-DOF block:
+//   S(w) U = F,  S(w) = K(w) (1 + 2 i beta) + i w C(w) - w^2 M,  u(t) = Re(U e^{i w t}),
+// displacement of a point p relative to O: u_p = U_t + Theta x p; soil reaction at O:
+// (K (1 + 2 i beta) + i w C) U (translational part).
+import { ComplexSystem6 } from "./complex-lu";
+import type { ImpedanceModel } from "./impedance-model";
+import type { UnitLoad } from "./unbalance";
+
+/** Responses U of a list of loads: load l occupies [6 l, 6 l + 6) of re and im. */
+export interface ResponseSet {
+  re: Float64Array;
+  im: Float64Array;
+}
+
+export function responseSet(loadCount: number): ResponseSet {
+  return { re: new Float64Array(6 * loadCount), im: new Float64Array(6 * loadCount) };
+}
+
+export class HarmonicSolver {
+  readonly system = new ComplexSystem6();
+  readonly k = new Float64Array(6);
+  readonly c = new Float64Array(6);
+  private readonly xr = new Float64Array(6);
+  private readonly xi = new Float64Array(6);
+  omega = 0;
+
+  constructor(
+    private readonly massMatrix: Float64Array,
+    private readonly impedance: ImpedanceModel,
+    private readonly beta: number,
+  ) {}
+
+  /** Evaluates K(w), C(w), assembles S(w) and factorises it (once per frequency). */
+  setFrequency(omega: number): void {
+    this.omega = omega;
+    this.impedance.evaluate(omega, this.k, this.c);
+    this.system.assemble(omega, this.massMatrix, this.k, this.c, this.beta);
+    this.system.factorise();
+  }
+
+  /**
+   * Solves every load with the current factors into `out`; a rotating load is formed as
+   * U[a] - i U[b] from the two loads it combines (linearity), without a solve.
+   */
+  solveAll(loads: UnitLoad[], out: ResponseSet): void {
+    const xr = this.xr;
+    const xi = this.xi;
+    const re = out.re;
+    const im = out.im;
+    for (let l = 0; l < loads.length; l++) {
+      const load = loads[l] as UnitLoad;
+      const o = 6 * l;
+      const comb = load.combine;
+      if (comb) {
+        const a = 6 * comb.a;
+        const b = 6 * comb.b;
+        for (let j = 0; j < 6; j++) {
+          // (ar + i ai) - i (br + i bi) = (ar + bi) + i (ai - br)
+          re[o + j] = (re[a + j] as number) + (im[b + j] as number);
+          im[o + j] = (im[a + j] as number) - (re[b + j] as number);
+        }
+        continue;
+      }
+      xr.set(load.re);
+      xi.set(load.im);
+      this.system.solveInPlace(xr, xi);
+      re.set(xr, o);
+      im.set(xi, o);
+    }
+  }
+
+  /**
+   * Per-axis amplitudes |u_p| of response l at each point (coords flat, relative to O),
+   * scaled by `scale`, written to out[3 i + axis] when out is given. Returns the largest.
+   */
+  pointAmplitudes(u: ResponseSet, l: number, coords: Float64Array, scale: number, out: Float64Array | null): number {
+    const o = 6 * l;
+    const ur = u.re;
+    const ui = u.im;
+    const Uxr = ur[o] as number;
+    const Uyr = ur[o + 1] as number;
+    const Uzr = ur[o + 2] as number;
+    const txr = ur[o + 3] as number;
+    const tyr = ur[o + 4] as number;
+    const tzr = ur[o + 5] as number;
+    const Uxi = ui[o] as number;
+    const Uyi = ui[o + 1] as number;
+    const Uzi = ui[o + 2] as number;
+    const txi = ui[o + 3] as number;
+    const tyi = ui[o + 4] as number;
+    const tzi = ui[o + 5] as number;
+    let largest = 0;
+    const n = coords.length / 3;
+    for (let i = 0; i < n; i++) {
+      const px = coords[3 * i] as number;
+      const py = coords[3 * i + 1] as number;
+      const pz = coords[3 * i + 2] as number;
+      const axr = Uxr + tyr * pz - tzr * py;
+      const axi = Uxi + tyi * pz - tzi * py;
+      const ayr = Uyr + tzr * px - txr * pz;
+      const ayi = Uyi + tzi * px - txi * pz;
+      const azr = Uzr + txr * py - tyr * px;
+      const azi = Uzi + txi * py - tyi * px;
+      const ax = Math.sqrt(axr * axr + axi * axi) * scale;
+      const ay = Math.sqrt(ayr * ayr + ayi * ayi) * scale;
+      const az = Math.sqrt(azr * azr + azi * azi) * scale;
+      if (out) {
+        out[3 * i] = ax;
+        out[3 * i + 1] = ay;
+        out[3 * i + 2] = az;
+      }
+      const m = ax > ay ? (ax > az ? ax : az) : ay > az ? ay : az;
+      if (m > largest) largest = m;
+    }
+    return largest;
+  }
+
+  /** Per-axis amplitudes of the translational soil reaction of response l, scaled. Returns the vector norm. */
+  transmittedForce(u: ResponseSet, l: number, scale: number, out: Float64Array): number {
+    let sum = 0;
+    for (let j = 0; j < 3; j++) {
+      const kj = this.k[j] as number;
+      const damp = 2 * this.beta * kj + this.omega * (this.c[j] as number);
+      const ur = u.re[6 * l + j] as number;
+      const ui = u.im[6 * l + j] as number;
+      const fr = kj * ur - damp * ui;
+      const fi = kj * ui + damp * ur;
+      const a = Math.sqrt(fr * fr + fi * fi) * scale;
+      out[j] = a;
+      sum += a * a;
+    }
+    return Math.sqrt(sum);
+  }
+}
+
+/** Force amplitude at w of a rotor whose amplitude at the rated speed is fRated: F (w / w_r)^2. */
+export function forceAt(fRated: number, omegaRated: number, omega: number): number {
+  const r = omega / omegaRated;
+  return fRated * r * r;
+}

@@ -1,0 +1,24 @@
+// Calculation core of Plinthwise (calc-contract.md version 1): a rigid block foundation with
+// six degrees of freedom on soil springs and dashpots, under rotating unbalance.
+import { analyse } from "./analyse";
+import { parseAnalysisInput, parseAnalysisInputText, type InputIssue } from "./parse";
+import type { AnalysisResult } from "./result-types";
+
+export { analyse, ENGINE_VERSION, type AnalyseOptions } from "./analyse";
+export { parseAnalysisInput, parseAnalysisInputText, formatPath, type InputIssue, type ParseResult } from "./parse";
+export { analysisInputSchema, type AnalysisInput, type AnalysisInputDocument } from "./schema";
+export type * from "./result-types";
+export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";
+export { DOF_KEYS, type DofKey, type Dof6 } from "./dof";
+
+/** Validates a JSON value and analyses it: the shared path of the CLI and the HTTP API. */
+export function analyseJson(json: unknown): { ok: true; result: AnalysisResult } | { ok: false; issues: InputIssue[] } {
+  const parsed = parseAnalysisInput(json);
+  return parsed.ok ? { ok: true, result: analyse(parsed.input) } : parsed;
+}
+
+/** The same from a JSON text. */
+export function analyseText(text: string): { ok: true; result: AnalysisResult } | { ok: false; issues: InputIssue[] } {
+  const parsed = parseAnalysisInputText(text);
+  return parsed.ok ? { ok: true, result: analyse(parsed.input) } : parsed;
+}

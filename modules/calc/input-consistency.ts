@@ -1,0 +1,119 @@
+// Physical consistency rules that a field-by-field schema cannot express. Each problem is
+// reported with the JSON path of the field to fix.
+import type { AnalysisInput } from "./schema";
+import { resolveSweep } from "./sweep-grid";
+import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
+
+export type PathPart = string | number;
+export type AddIssue = (path: PathPart[], message: string) => void;
+
+/** Relative volume tolerance for overlaps and containment. */
+const VOLUME_TOLERANCE = 1e-9;
+
+function checkBlock(input: AnalysisInput, add: AddIssue): void {
+  const solids = input.block.solids.map((s, index) => ({ box: s as Box, index, isVoid: s.void }));
+  const full = solids.filter((s) => !s.isVoid);
+  const voids = solids.filter((s) => s.isVoid);
+  const scale = Math.max(...solids.map((s) => boxVolume(s.box)));
+  const tol = VOLUME_TOLERANCE * scale;
+  if (full.length === 0) {
+    add(["block", "solids"], "the block needs at least one solid that is not a void");
+    return;
+  }
+  for (const group of [full, voids]) {
+    for (let i = 0; i < group.length; i++) {
+      for (let j = i + 1; j < group.length; j++) {
+        const a = group[i];
+        const b = group[j];
+        if (a && b && intersectionVolume(a.box, b.box) > tol) {
+          add(
+            ["block", "solids", b.index],
+            a.isVoid
+              ? `void overlaps void solids[${a.index}]: its volume would be subtracted twice`
+              : `solid overlaps solids[${a.index}]: its concrete would be counted twice`,
+          );
+        }
+      }
+    }
+  }
+  for (const v of voids) {
+    const inside = full.reduce((sum, s) => sum + intersectionVolume(v.box, s.box), 0);
+    if (inside < boxVolume(v.box) - tol) {
+      add(["block", "solids", v.index], "void cuts outside the solids of the block");
+    }
+  }
+  const net =
+    full.reduce((sum, s) => sum + boxVolume(s.box), 0) - voids.reduce((sum, s) => sum + boxVolume(s.box), 0);
+  if (!(net > tol)) {
+    add(["block", "solids"], "the voids leave no (or negative) concrete mass");
+    return;
+  }
+  const base = contactArea(
+    full.map((s) => s.box),
+    voids.map((s) => s.box),
+  );
+  if (base === null) add(["block", "solids"], "the base has no contact area with the soil");
+}
+
+function checkSoil(input: AnalysisInput, add: AddIssue): void {
+  const soil = input.soil;
+  const hasG = soil.shearModulus !== undefined;
+  const hasVs = soil.shearWaveVelocity !== undefined;
+  if (hasG === hasVs) {
+    add(["soil"], "give exactly one of shearModulus and shearWaveVelocity");
+  }
+  if (soil.sidewallContactHeight > soil.embedmentDepth) {
+    add(["soil", "sidewallContactHeight"], "sidewall contact height cannot exceed the embedment depth");
+  }
+}
+
+function checkMachines(input: AnalysisInput, add: AddIssue): void {
+  const names = new Set<string>();
+  input.machines.forEach((machine, mi) => {
+    if (names.has(machine.name)) add(["machines", mi, "name"], `machine name "${machine.name}" is used twice`);
+    names.add(machine.name);
+    const rotorNames = new Set<string>();
+    let rotorMass = 0;
+    machine.rotors.forEach((rotor, ri) => {
+      const path = ["machines", mi, "rotors", ri];
+      if (rotorNames.has(rotor.name)) add([...path, "name"], `rotor name "${rotor.name}" is used twice on this machine`);
+      rotorNames.add(rotor.name);
+      rotorMass += rotor.mass;
+      const hasG = rotor.balanceGrade !== undefined;
+      const hasF = rotor.unbalanceForce !== undefined;
+      if (hasG === hasF) add(path, "give exactly one of balanceGrade and unbalanceForce");
+      const range = rotor.speedRangeRpm;
+      if (range && (rotor.speedRpm < range[0] || rotor.speedRpm > range[1])) {
+        add([...path, "speedRangeRpm"], "the rated speed speedRpm must lie inside speedRangeRpm");
+      }
+      if (rotor.unbalanceMode !== "static") {
+        const axisIndex = rotor.axis === "x" ? 0 : 1;
+        const along = rotor.bearings.map((b) => b[axisIndex]);
+        if (rotor.bearings.length < 2 || Math.max(...along) - Math.min(...along) <= 1e-6) {
+          add(
+            [...path, "bearings"],
+            "couple unbalance needs two bearings at different positions along the shaft axis",
+          );
+        }
+      }
+    });
+    if (rotorMass > machine.mass) {
+      add(["machines", mi, "rotors"], "the rotor masses exceed the machine mass (a rotor is part of its machine)");
+    }
+  });
+}
+
+function checkSweep(input: AnalysisInput, add: AddIssue): void {
+  if (!input.sweep) return;
+  const { fromHz, toHz } = resolveSweep(input);
+  if (!(toHz > fromHz)) {
+    add(["sweep", input.sweep.toHz === undefined ? "fromHz" : "toHz"], `toHz (${toHz} Hz) must be greater than fromHz (${fromHz} Hz)`);
+  }
+}
+
+export function checkInputConsistency(input: AnalysisInput, add: AddIssue): void {
+  checkBlock(input, add);
+  checkSoil(input, add);
+  checkMachines(input, add);
+  checkSweep(input, add);
+}

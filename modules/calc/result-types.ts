@@ -1,0 +1,201 @@
+// Analysis result of calc-contract.md version 1. Fields beyond the contract are optional
+// additions (the contract allows adding optional fields); none changes a contract field.
+import type { Dof6, DofKey } from "./dof";
+import type { Vec3 } from "./vec3";
+
+export type LoadCaseName = "vertical" | "horizontal" | "rotating";
+export type UnbalanceModeName = "static" | "couple";
+
+export interface MassPropertiesResult {
+  blockMass: number;
+  machineMass: number;
+  totalMass: number;
+  /** Combined centre of gravity, in the input's coordinates. */
+  cg: Vec3;
+  /** Combined inertia tensor about the combined centre of gravity (kg m^2). */
+  inertiaAtCg: number[][];
+  baseArea: number;
+  /** Offset of the combined cg from O over the base length in x and width in y (signed). */
+  eccentricity: [number, number];
+  massRatio: number;
+  staticBearingPressure: number;
+  /** O (centroid of the base contact area at the underside), in the input's coordinates. */
+  origin?: Vec3;
+  /** Base length in x and width in y: the bounding rectangle of the contact area (m). */
+  baseDimensions?: [number, number];
+  /** Second moments of the contact area about the axes through O parallel to x and y (m^4). */
+  baseMomentOfArea?: { aboutX: number; aboutY: number };
+  /** 6 x 6 mass matrix about O in the order x, y, z, rx, ry, rz. */
+  massMatrix?: number[][];
+  /** Height of the thinnest solid resting on the soil (m). */
+  baseThickness?: number;
+}
+
+export interface ImpedanceResult {
+  method: "equivalent-radius" | "gazetas" | "user";
+  staticStiffness: Dof6;
+  stiffness: Dof6;
+  dampingRatio: Dof6;
+  /** Dashpot coefficients at the evaluation frequency (N s/m, N m s/rad). */
+  dashpot?: Dof6;
+  /** Frequency at which `stiffness`, `dampingRatio` and `dashpot` are evaluated (first rotor's rated speed, 0 without rotors). */
+  evaluatedAtHz?: number;
+  materialDamping?: number;
+  shearModulus?: number;
+  shearWaveVelocity?: number;
+  /** Method-specific intermediate values (equivalent radii, mass ratios, Gazetas L, B, chi ...). */
+  details?: Record<string, number>;
+}
+
+export interface ModeResult {
+  frequencyHz: number;
+  dominant: DofKey;
+  participation: Dof6;
+  shape: number[];
+}
+
+export interface PointResult {
+  name: string;
+  /** Position in the input's coordinates. */
+  position: Vec3;
+  displacementPeak: Vec3;
+  velocityPeak: Vec3;
+  /** Largest displacement and velocity component over the rotor's speed range. */
+  overSpeedRange?: { displacementPeak: number; velocityPeak: number };
+}
+
+export interface CaseResult {
+  case: LoadCaseName;
+  unbalanceMode: UnbalanceModeName;
+  points: PointResult[];
+  transmittedForce: Vec3;
+  transmissibility: number;
+  maxOverSpeedRange: {
+    displacementPeak: number;
+    atRpm: number;
+    point?: string;
+    velocityPeak?: number;
+    velocityAtRpm?: number;
+  };
+}
+
+export interface RotorResult {
+  machine: string;
+  rotor: string;
+  speedRpm: number;
+  forceAmplitude: number;
+  frequencyRatios: number[];
+  speedRangeRpm?: [number, number];
+  cases: CaseResult[];
+}
+
+export interface CheckResult {
+  id: string;
+  label: string;
+  value: number;
+  limit: number;
+  pass: boolean;
+  source: string;
+  /** Unique key of the check within the result. */
+  key?: string;
+  unit?: string;
+  /** "min": pass when value >= limit; "max": pass when value <= limit. */
+  comparison?: "min" | "max";
+  machine?: string;
+  rotor?: string;
+  case?: LoadCaseName;
+  unbalanceMode?: UnbalanceModeName;
+  point?: string;
+  mode?: number;
+}
+
+export interface SweepSeries {
+  machine: string;
+  rotor: string;
+  case: LoadCaseName;
+  unbalanceMode: UnbalanceModeName;
+  point: string;
+  /** Largest displacement component (m) at each frequency. */
+  displacementPeak: number[];
+  /** Largest velocity component (m/s) at each frequency. */
+  velocityPeak: number[];
+}
+
+export interface TransmissibilitySeries {
+  machine: string;
+  rotor: string;
+  case: LoadCaseName;
+  unbalanceMode: UnbalanceModeName;
+  values: number[];
+}
+
+export interface SweepResult {
+  frequencyHz: number[];
+  series: SweepSeries[];
+  transmissibility?: TransmissibilitySeries[];
+  operatingRangesHz?: { machine: string; rotor: string; fromHz: number; toHz: number; ratedHz: number }[];
+  /** Band around each natural frequency that an operating speed must avoid (separation criterion). */
+  avoidanceBandsHz?: { mode: number; fromHz: number; toHz: number }[];
+}
+
+export interface GoverningAmplitudes {
+  /** Largest displacement component over all rotors, cases and points at rated speed (m). */
+  displacementPeak: number;
+  velocityPeak: number;
+  /** The same enveloped over each rotor's speed range. */
+  displacementPeakOverSpeedRange: number;
+  velocityPeakOverSpeedRange: number;
+}
+
+export interface BoundResult {
+  /** Factor applied to G (soil methods) or to the user stiffness. */
+  factor: number;
+  shearModulus?: number;
+  frequenciesHz: number[];
+  frequencyRatios: { machine: string; rotor: string; ratios: number[] }[];
+  governing: GoverningAmplitudes;
+}
+
+export interface CrossCheckValue {
+  closedFormHz: number;
+  nearestModeHz: number;
+  nearestMode: number;
+}
+
+export interface CrossCheckResult {
+  source: string;
+  vertical: CrossCheckValue & {
+    /** SDOF amplitude and transmissibility for the first rotor's static vertical case at rated speed. */
+    amplitude?: number;
+    sixDofAmplitudeAtO?: number;
+    transmissibility?: number;
+    sixDofTransmissibility?: number;
+  };
+  torsion: CrossCheckValue;
+  /** Sliding along x coupled with rocking about y. */
+  rockingSlidingXZ: { low: CrossCheckValue; high: CrossCheckValue };
+  /** Sliding along y coupled with rocking about x. */
+  rockingSlidingYZ: { low: CrossCheckValue; high: CrossCheckValue };
+}
+
+export interface ResolvedCriterion {
+  value: number;
+  unit: string;
+  source: string;
+}
+
+export interface AnalysisResult {
+  schemaVersion: 1;
+  engineVersion: string;
+  massProperties: MassPropertiesResult;
+  impedance: ImpedanceResult;
+  modes: ModeResult[];
+  rotors: RotorResult[];
+  checks: CheckResult[];
+  sweep: SweepResult;
+  warnings: string[];
+  bounds?: { source: string; lower: BoundResult; upper: BoundResult };
+  crossCheck?: CrossCheckResult;
+  /** The criteria used, defaults filled in, each with its source. */
+  criteria?: Record<string, ResolvedCriterion>;
+}

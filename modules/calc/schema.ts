@@ -1,0 +1,155 @@
+// Analysis input of calc-contract.md version 1, as a zod 4 schema. This schema is the source
+// of truth for the contract: every object is strict (unknown fields are refused), numbers must
+// be finite, and the physical consistency rules of input-consistency.ts run on top.
+import { z } from "zod";
+import { checkInputConsistency } from "./input-consistency";
+
+const finite = () => z.number({ error: "must be a finite number" });
+const positive = () => finite().gt(0, { error: "must be greater than 0" });
+const nonNegative = () => finite().min(0, { error: "must be 0 or more" });
+const name = () => z.string({ error: "must be a text" }).trim().min(1, { error: "must not be empty" });
+
+const vec3Schema = z.tuple([finite(), finite(), finite()], { error: "must be [x, y, z] in m" });
+
+const intervalSchema = z
+  .tuple([finite(), finite()], { error: "must be [from, to]" })
+  .refine(([a, b]) => b > a, { error: "must be [from, to] with from < to" });
+
+const boxSchema = z.strictObject({ x: intervalSchema, y: intervalSchema, z: intervalSchema });
+
+const solidSchema = z.strictObject({
+  name: name(),
+  x: intervalSchema,
+  y: intervalSchema,
+  z: intervalSchema,
+  void: z.boolean({ error: "must be true or false" }).default(false),
+});
+
+const blockSchema = z.strictObject({
+  concreteDensity: positive(),
+  solids: z.array(solidSchema, { error: "must be a list of boxes" }).min(1, { error: "the block needs at least one solid" }),
+});
+
+const soilSchema = z.strictObject({
+  shearModulus: positive().optional(),
+  shearWaveVelocity: positive().optional(),
+  poissonRatio: finite()
+    .gt(0, { error: "Poisson's ratio must lie in (0, 0.5)" })
+    .lt(0.5, { error: "Poisson's ratio must lie in (0, 0.5)" }),
+  density: positive(),
+  materialDamping: finite()
+    .min(0, { error: "must lie in [0, 0.5)" })
+    .lt(0.5, { error: "must lie in [0, 0.5)" })
+    .default(0),
+  allowableBearingPressure: positive(),
+  embedmentDepth: nonNegative().default(0),
+  sidewallContactHeight: nonNegative().default(0),
+});
+
+const dofStiffnessSchema = z.strictObject({
+  x: positive(),
+  y: positive(),
+  z: positive(),
+  rx: positive(),
+  ry: positive(),
+  rz: positive(),
+});
+const ratio = () =>
+  finite().min(0, { error: "must lie in [0, 1)" }).lt(1, { error: "must lie in [0, 1)" });
+const dofRatioSchema = z.strictObject({ x: ratio(), y: ratio(), z: ratio(), rx: ratio(), ry: ratio(), rz: ratio() });
+
+const impedanceSchema = z.discriminatedUnion(
+  "method",
+  [
+    z.strictObject({ method: z.literal("equivalent-radius") }),
+    z.strictObject({ method: z.literal("gazetas") }),
+    z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
+  ],
+  { error: 'method must be "equivalent-radius", "gazetas" or "user"' },
+);
+
+const rotorSchema = z.strictObject({
+  name: name(),
+  mass: positive(),
+  speedRpm: positive(),
+  speedRangeRpm: z
+    .tuple([positive(), positive()], { error: "must be [from, to] in rpm" })
+    .refine(([a, b]) => b >= a, { error: "must be [from, to] with from <= to" })
+    .optional(),
+  balanceGrade: positive().optional(),
+  unbalanceForce: positive().optional(),
+  serviceFactor: positive().default(1),
+  axis: z.enum(["x", "y"], { error: 'must be "x" or "y" (horizontal shaft)' }),
+  unbalanceMode: z.enum(["static", "couple", "both"], { error: 'must be "static", "couple" or "both"' }).default("static"),
+  bearings: z.array(vec3Schema, { error: "must be a list of [x, y, z]" }).min(1, { error: "a rotor needs at least one bearing" }),
+});
+
+const machineSchema = z.strictObject({
+  name: name(),
+  mass: positive(),
+  cg: vec3Schema,
+  box: boxSchema.optional(),
+  rotors: z.array(rotorSchema, { error: "must be a list of rotors" }).default([]),
+});
+
+const checkPointSchema = z.strictObject({ name: name(), position: vec3Schema });
+
+const criteriaSchema = z.strictObject({
+  frequencySeparation: finite()
+    .gt(0, { error: "must lie in (0, 1)" })
+    .lt(1, { error: "must lie in (0, 1)" })
+    .optional(),
+  maxDisplacementPeak: positive().optional(),
+  maxVelocityPeak: positive().optional(),
+  minMassRatio: positive().optional(),
+  maxEccentricity: positive().optional(),
+  maxBearingRatio: positive().optional(),
+});
+
+const sweepSchema = z.strictObject({
+  fromHz: nonNegative().optional(),
+  toHz: positive().optional(),
+  points: z
+    .number({ error: "must be a whole number" })
+    .int({ error: "must be a whole number" })
+    .min(2, { error: "must be at least 2" })
+    .max(10000, { error: "must be at most 10000" })
+    .optional(),
+});
+
+const soilBandSchema = z.strictObject({
+  lowerFactor: finite()
+    .gt(0, { error: "must lie in (0, 1]" })
+    .max(1, { error: "must lie in (0, 1]" })
+    .optional(),
+  upperFactor: finite().min(1, { error: "must be 1 or more" }).optional(),
+});
+
+export const analysisInputBaseSchema = z.strictObject({
+  schemaVersion: z.literal(1, { error: "must be 1" }),
+  block: blockSchema,
+  soil: soilSchema,
+  impedance: impedanceSchema,
+  machines: z.array(machineSchema, { error: "must be a list of machines" }).min(1, { error: "at least one machine is needed" }),
+  checkPoints: z.array(checkPointSchema, { error: "must be a list of check points" }).optional(),
+  criteria: criteriaSchema.optional(),
+  sweep: sweepSchema.optional(),
+  soilBand: soilBandSchema.optional(),
+});
+
+/** The analysis input schema (contract v1) with its physical consistency rules. */
+export const analysisInputSchema = analysisInputBaseSchema.superRefine((input, ctx) => {
+  checkInputConsistency(input, (path, message) => ctx.addIssue({ code: "custom", path, message }));
+});
+
+/** A parsed, valid analysis input (defaults applied). */
+export type AnalysisInput = z.output<typeof analysisInputBaseSchema>;
+/** The analysis input document as written (optional fields may be absent). */
+export type AnalysisInputDocument = z.input<typeof analysisInputBaseSchema>;
+export type SolidInput = AnalysisInput["block"]["solids"][number];
+export type MachineInput = AnalysisInput["machines"][number];
+export type RotorInput = MachineInput["rotors"][number];
+export type SoilInput = AnalysisInput["soil"];
+export type ImpedanceInput = AnalysisInput["impedance"];
+
+export type { AnalysisResult } from "./result-types";

@@ -1,0 +1,56 @@
+// One complete dynamic analysis of the model at one soil stiffness: impedance, undamped modes
+// and the rotor responses. The nominal case uses factor 1; the soil band repeats it.
+import { dofFromArray } from "./dof";
+import { naturalModes, type Mode } from "./eigen";
+import { HarmonicSolver } from "./harmonic";
+import { buildImpedance } from "./impedance";
+import { ratioFromDashpot, type ImpedanceModel } from "./impedance-model";
+import type { Model } from "./model";
+import type { ImpedanceResult, RotorResult } from "./result-types";
+import { rotorResults } from "./rotor-response";
+import { soilProperties, type SoilProperties } from "./soil";
+
+export interface SoilCase {
+  factor: number;
+  soil: SoilProperties;
+  impedance: ImpedanceModel;
+  impedanceResult: ImpedanceResult;
+  /** K and C at the evaluation frequency (first rotor's rated speed, 0 without rotors). */
+  stiffnessUsed: Float64Array;
+  dashpotUsed: Float64Array;
+  modes: Mode[];
+  rotors: RotorResult[];
+  solver: HarmonicSolver;
+}
+
+export function runSoilCase(model: Model, factor: number): SoilCase {
+  const input = model.input;
+  // Soil methods: the factor scales G; user springs: it scales the stiffness (impedance.ts).
+  const soil = soilProperties(input.soil, input.impedance.method === "user" ? 1 : factor);
+  const impedance = buildImpedance(input.impedance, { soil, base: model.base, massDiagonal: model.massDiagonal }, factor);
+  const omega1 = model.rotors[0]?.omegaRated ?? 0;
+  const k = new Float64Array(6);
+  const c = new Float64Array(6);
+  impedance.evaluate(omega1, k, c);
+  // Undamped modes with the real stiffness at the first rotor's rated speed.
+  const modes = naturalModes(model.massMatrix, k);
+  const solver = new HarmonicSolver(model.massMatrix, impedance, soil.materialDamping);
+  const rotors = rotorResults(
+    model,
+    solver,
+    modes.map((m) => m.frequencyHz),
+  );
+  const ratio = Array.from(k, (ki, i) => ratioFromDashpot(c[i] as number, ki, model.massDiagonal[i] as number));
+  const impedanceResult: ImpedanceResult = {
+    method: impedance.method,
+    staticStiffness: dofFromArray(impedance.staticStiffness),
+    stiffness: dofFromArray(k),
+    dampingRatio: dofFromArray(ratio),
+    dashpot: dofFromArray(c),
+    evaluatedAtHz: omega1 / (2 * Math.PI),
+    materialDamping: soil.materialDamping,
+    ...(input.impedance.method === "user" ? {} : { shearModulus: soil.shearModulus, shearWaveVelocity: soil.shearWaveVelocity }),
+    details: impedance.details,
+  };
+  return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, modes, rotors, solver };
+}

@@ -1,0 +1,101 @@
+// Frequency-response series for plotting: at each sweep frequency ONE factorisation of S(w)
+// serves every load vector of every rotor and case. The loop writes into preallocated
+// Float64Arrays (one slot per series), with no allocation per frequency.
+import { forceAt, responseSet, type HarmonicSolver } from "./harmonic";
+import type { Model } from "./model";
+import type { SweepResult, SweepSeries, TransmissibilitySeries } from "./result-types";
+import { linspace, type SweepSettings } from "./sweep-grid";
+
+function fail(what: string, hz: number): never {
+  throw new Error(`internal error: non-finite ${what} at ${hz} Hz in the sweep`);
+}
+
+/** A plain number array from a slice of a Float64Array (JSON-friendly output). */
+function slice(buffer: Float64Array, offset: number, n: number): number[] {
+  const out = new Array<number>(n);
+  for (let i = 0; i < n; i++) out[i] = buffer[offset + i] as number;
+  return out;
+}
+
+export function frequencySweep(
+  model: Model,
+  solver: HarmonicSolver,
+  settings: SweepSettings,
+  modesHz: number[],
+  separation: number,
+): SweepResult {
+  const freqs = linspace(settings.fromHz, settings.toHz, settings.points);
+  const nf = freqs.length;
+  const rotors = model.rotors;
+  // Series index of (rotor, load, point) and of (rotor, load).
+  const pointBase: number[] = [];
+  const loadBase: number[] = [];
+  let nPointSeries = 0;
+  let nLoadSeries = 0;
+  for (const r of rotors) {
+    pointBase.push(nPointSeries);
+    loadBase.push(nLoadSeries);
+    nPointSeries += r.loads.length * r.points.length;
+    nLoadSeries += r.loads.length;
+  }
+  const disp = new Float64Array(nPointSeries * nf);
+  const trans = new Float64Array(nLoadSeries * nf);
+  const u = responseSet(Math.max(0, ...rotors.map((r) => r.loads.length)));
+  const maxPoints = Math.max(1, ...rotors.map((r) => r.points.length));
+  const amp = new Float64Array(3 * maxPoints);
+  const tf = new Float64Array(3);
+  for (let f = 0; f < nf; f++) {
+    const hz = freqs[f] as number;
+    const omega = 2 * Math.PI * hz;
+    solver.setFrequency(omega);
+    for (let r = 0; r < rotors.length; r++) {
+      const rotor = rotors[r] as (typeof rotors)[number];
+      const np = rotor.points.length;
+      const force = forceAt(rotor.forceAtRated, rotor.omegaRated, omega);
+      solver.solveAll(rotor.loads, u);
+      for (let l = 0; l < rotor.loads.length; l++) {
+        solver.pointAmplitudes(u, l, rotor.pointCoords, force, amp);
+        const base = ((pointBase[r] as number) + l * np) * nf + f;
+        for (let i = 0; i < np; i++) {
+          const a = amp[3 * i] as number;
+          const b = amp[3 * i + 1] as number;
+          const c = amp[3 * i + 2] as number;
+          const d = a > b ? (a > c ? a : c) : b > c ? b : c;
+          if (!(d < Infinity)) fail("displacement", hz);
+          disp[base + i * nf] = d;
+        }
+        // transmissibility: |reaction| of the unit-amplitude load
+        const t = solver.transmittedForce(u, l, 1, tf);
+        if (!(t < Infinity)) fail("transmissibility", hz);
+        trans[((loadBase[r] as number) + l) * nf + f] = t;
+      }
+    }
+  }
+  const omegas = freqs.map((hz) => 2 * Math.PI * hz);
+  const series: SweepSeries[] = [];
+  const transmissibility: TransmissibilitySeries[] = [];
+  rotors.forEach((rotor, r) => {
+    rotor.loads.forEach((load, l) => {
+      const id = { machine: rotor.machine, rotor: rotor.rotor, case: load.case, unbalanceMode: load.unbalanceMode };
+      rotor.points.forEach((p, i) => {
+        const offset = ((pointBase[r] as number) + l * rotor.points.length + i) * nf;
+        const displacementPeak = slice(disp, offset, nf);
+        series.push({ ...id, point: p.name, displacementPeak, velocityPeak: displacementPeak.map((d, k) => d * (omegas[k] as number)) });
+      });
+      transmissibility.push({ ...id, values: slice(trans, ((loadBase[r] as number) + l) * nf, nf) });
+    });
+  });
+  return {
+    frequencyHz: freqs,
+    series,
+    transmissibility,
+    operatingRangesHz: rotors.map((r) => ({
+      machine: r.machine,
+      rotor: r.rotor,
+      fromHz: r.rangeRpm[0] / 60,
+      toHz: r.rangeRpm[1] / 60,
+      ratedHz: r.speedRpm / 60,
+    })),
+    avoidanceBandsHz: modesHz.map((f, i) => ({ mode: i + 1, fromHz: f * (1 - separation), toHz: f * (1 + separation) })),
+  };
+}
