@@ -1,0 +1,22 @@
+import { z } from "zod";
+import { analyse, parseAnalysisInput } from "@/modules/calc";
+import { AppError } from "@/modules/platform/errors";
+import { defineRoute } from "@/app/_lib/route";
+
+export const dynamic = "force-dynamic";
+
+/** 1 MB: far above any real foundation model, low enough to keep parsing cheap. */
+const MAX_INPUT_BYTES = 1_000_000;
+
+// The wrapper reads the JSON (413, empty or non-JSON 400); the contract's parser then
+// gives every problem its JSON path in the contract's own words.
+export const POST = defineRoute({
+  access: { kind: "signedIn" },
+  body: z.unknown(),
+  maxBodyBytes: MAX_INPUT_BYTES,
+  handler: async (_ctx, body) => {
+    const parsed = parseAnalysisInput(body);
+    if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
+    return analyse(parsed.input);
+  },
+});

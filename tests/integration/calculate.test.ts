@@ -1,0 +1,91 @@
+// POST /api/v1/calculate: the contract's analysis for any signed-in user, 400 with JSON
+// paths for bad input (never a 500), 413 above 1 MB.
+import { beforeAll, describe, expect, it } from "vitest";
+import { ENGINE_VERSION } from "@/modules/calc";
+import { callRoute, getFixture, type Fixture } from "./support/fixture";
+import { sampleAnalysisInput } from "./analysis-input-sample";
+
+const ROUTE = "v1/calculate";
+
+interface ErrorBody {
+  error: { code: string; message: string; issues?: { path: string; message: string }[] };
+}
+
+let fx: Fixture;
+beforeAll(async () => {
+  fx = await getFixture();
+});
+
+const calculate = (body: unknown, cookie: string | null = fx.cookies.designer) => callRoute(ROUTE, "POST", {}, { cookie, body });
+
+describe("POST /api/v1/calculate", () => {
+  it("answers the analysis result with six ascending modes and the rotor's ratios", async () => {
+    const res = await calculate(sampleAnalysisInput());
+    expect(res.status).toBe(200);
+    const result = (await res.json()) as {
+      schemaVersion: number;
+      engineVersion: string;
+      modes: { frequencyHz: number; dominant: string }[];
+      rotors: { frequencyRatios: number[]; speedRpm: number }[];
+      checks: { id: string; pass: boolean }[];
+    };
+    expect(result.schemaVersion).toBe(1);
+    expect(result.engineVersion).toBe(ENGINE_VERSION);
+    expect(result.modes).toHaveLength(6);
+    const hz = result.modes.map((m) => m.frequencyHz);
+    expect(hz.every((f) => Number.isFinite(f) && f > 0)).toBe(true);
+    expect([...hz].sort((a, b) => a - b)).toEqual(hz);
+    // frequencyRatios = rated speed over each mode's frequency (calc-contract.md).
+    const rotor = result.rotors[0]!;
+    rotor.frequencyRatios.forEach((r, i) => expect(r).toBeCloseTo(rotor.speedRpm / 60 / hz[i]!, 9));
+    expect(result.checks.length).toBeGreaterThan(0);
+  });
+
+  it("serves any signed-in account, project member or not", async () => {
+    for (const role of ["outsider", "vendor", "viewer", "admin"] as const) {
+      expect((await calculate(sampleAnalysisInput(), fx.cookies[role])).status).toBe(200);
+    }
+  });
+
+  it("asks an anonymous caller to sign in", async () => {
+    const res = await calculate(sampleAnalysisInput(), null);
+    expect(res.status).toBe(401);
+  });
+
+  it("answers 400 listing the JSON path of every problem", async () => {
+    const input = sampleAnalysisInput();
+    input.soil.poissonRatio = 0.5;
+    const machines = input.machines as { rotors: { speedRpm: number }[] }[];
+    machines[0]!.rotors[0]!.speedRpm = 0;
+    input.unknownThing = 1;
+    const res = await calculate(input);
+    expect(res.status).toBe(400);
+    const body = (await res.json()) as ErrorBody;
+    expect(body.error.code).toBe("invalid_input");
+    const paths = (body.error.issues ?? []).map((i) => i.path);
+    expect(paths).toEqual(expect.arrayContaining(["soil.poissonRatio", "machines[0].rotors[0].speedRpm", "unknownThing"]));
+    expect(body.error.issues!.every((i) => i.message.length > 0)).toBe(true);
+  });
+
+  it("answers 400, never 500, to bodies of the wrong shape", async () => {
+    for (const body of [null, [], 42, "text", { schemaVersion: 2 }, { ...sampleAnalysisInput(), block: { solids: "many" } }]) {
+      const res = await calculate(JSON.stringify(body));
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(((await res.json()) as ErrorBody).error.issues?.length).toBeGreaterThan(0);
+    }
+  });
+
+  it("answers 400 to a body that is not JSON", async () => {
+    const res = await calculate("{ schemaVersion: 1,");
+    expect(res.status).toBe(400);
+    const body = (await res.json()) as ErrorBody;
+    expect(body.error.issues?.[0]?.path).toBe("(root)");
+  });
+
+  it("answers 413 to a body above 1 MB", async () => {
+    const big = { ...sampleAnalysisInput(), padding: "x".repeat(1_100_000) };
+    const res = await calculate(JSON.stringify(big));
+    expect(res.status).toBe(413);
+    expect(((await res.json()) as ErrorBody).error.code).toBe("payload_too_large");
+  });
+});
