@@ -1,0 +1,6 @@
+// SI <-> US customary conversion for display and entry. The contract and the database stay
+// SI; only what a person reads and types changes with the unit system.
+export { quantityKinds, quantityKindKeys, displayUnit, defineQuantityKind, type QuantityKind, type QuantityKindKey, type UnitInfo, type UnitSystemKey } from "./quantity-kinds";
+export { convertValue, fromDisplay, toDisplay, unitSymbol } from "./convert";
+export { formatFeetInches, formatNumber, formatQuantity, parseFeetInches, parseQuantity, type FormatOptions, type ParseQuantityResult } from "./format";
+export * as units from "./unit-definitions";
