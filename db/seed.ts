@@ -1,4 +1,8 @@
 import bcrypt from "bcryptjs";
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { parseAnalysisInput } from "@/modules/calc";
+import { createDraftFromExample } from "./queries/drafts";
 import { DEMO_PASSWORD, DEMO_PROJECT_CODE, DEMO_VENDOR_COMPANY, demoAccounts } from "@/modules/platform/demo";
 import { createUser, getUserByEmail } from "./queries/accounts";
 import { createFoundation, createProject, getOrCreateCompany, getProjectByCode, upsertMember } from "./queries/projects";
@@ -37,7 +41,17 @@ export async function seedDemo(): Promise<{ created: boolean; projectId: string 
     const userId = ids.get(role);
     if (userId) await upsertMember({ projectId: project.id, userId, role, companyId: role === "vendor" ? companyId : null });
   }
-  await createFoundation(actor, project.id, { tag: "PH1-P101", machineTrain: "Raw-water pump train (motor + pump)", location: "Pump house bay 1" });
-  await createFoundation(actor, project.id, { tag: "PH1-B201", machineTrain: "Aeration blower", location: "Blower hall, grid C4" });
+  const pump = await createFoundation(actor, project.id, { tag: "PH1-P101", machineTrain: "Raw-water pump train (motor + pump)", location: "Pump house bay 1" });
+  const blower = await createFoundation(actor, project.id, { tag: "PH1-B201", machineTrain: "Aeration blower", location: "Blower hall, grid C4" });
+  const designerId = ids.get("designer") ?? null;
+  await createDraftFromExample(pump.id, readExample("raw-water-pump-train.json"), designerId);
+  await createDraftFromExample(blower.id, readExample("aeration-blower.json"), designerId);
   return { created: true, projectId: project.id };
+}
+
+/** An example input from examples/, checked by the contract's schema like any other input. */
+function readExample(file: string) {
+  const parsed = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", file), "utf8")));
+  if (!parsed.ok) throw new Error(`examples/${file} is not a valid analysis input: ${parsed.issues.map((i) => `${i.path}: ${i.message}`).join("; ")}`);
+  return parsed.input;
 }

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { roleAllows } from "@/modules/platform/permissions";
 import { listFoundations } from "@/db/queries/projects";
 import { requireProjectPage } from "../../../_lib/page-guard";
@@ -42,7 +43,9 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
               <tbody>
                 {foundations.map((f) => (
                   <tr key={f.id}>
-                    <td className="font-mono font-medium">{f.tag}</td>
+                    <td className="font-mono font-medium">
+                      <Link href={`/projects/${projectId}/foundations/${f.id}`}>{f.tag}</Link>
+                    </td>
                     <td>{f.machineTrain}</td>
                     <td>{f.location}</td>
                     <td className="text-basalt-500">{f.updatedAt.toISOString().slice(0, 10)}</td>

@@ -1,0 +1,38 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { roleAllows } from "@/modules/platform/permissions";
+import { emptyDraftForm, formFromInput } from "@/modules/desk/draft-form";
+import { getDraft } from "@/db/queries/drafts";
+import { getFoundation } from "@/db/queries/foundations";
+import { requireProjectPage } from "../../../../../_lib/page-guard";
+import { FoundationWorkspace } from "../../../../../_components/workspace/foundation-workspace";
+
+export const metadata: Metadata = { title: "Foundation workspace" };
+
+export default async function FoundationPage({ params }: { params: Promise<{ projectId: string; foundationId: string }> }) {
+  const { projectId, foundationId } = await params;
+  const { actor, project, role } = await requireProjectPage(projectId, "foundation.read");
+  if (!/^[0-9a-f-]{36}$/i.test(foundationId)) notFound();
+  const foundation = await getFoundation(actor, projectId, foundationId);
+  const draft = foundation ? await getDraft(actor, projectId, foundationId) : undefined;
+  if (!foundation || !draft) notFound();
+  return (
+    <div className="space-y-3">
+      <p className="text-xs text-basalt-500">
+        <Link href={`/projects/${projectId}`}>{project.code}</Link> / {foundation.tag} · {foundation.machineTrain}
+        {foundation.location ? ` · ${foundation.location}` : ""}
+      </p>
+      <FoundationWorkspace
+        projectId={projectId}
+        foundationId={foundationId}
+        tag={foundation.tag}
+        readOnly={!roleAllows(role, "draft.edit")}
+        initialVersion={draft.version}
+        initialInput={draft.input}
+        initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
+        units={project.units}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,160 @@
+"use client";
+
+import type { DraftForm } from "@/modules/desk/draft-form";
+import type { MassPropertiesResult } from "@/modules/calc";
+
+// Plan (x-y) and elevation (x-z) of the block to scale: boxes, voids, machines,
+// bearings, check points and the combined centre of gravity, with overall
+// dimensions, so that a wrong coordinate is seen at once.
+
+type View = "plan" | "elevation";
+
+interface Rect {
+  a0: number;
+  a1: number;
+  b0: number;
+  b1: number;
+  isVoid: boolean;
+  name: string;
+}
+
+const ok = (n: unknown): n is number => typeof n === "number" && Number.isFinite(n);
+
+function extents(form: DraftForm, view: View) {
+  const rects: Rect[] = [];
+  for (const s of form.block.solids) {
+    const [x0, x1] = s.x;
+    const [b0, b1] = view === "plan" ? s.y : s.z;
+    if (ok(x0) && ok(x1) && ok(b0) && ok(b1)) rects.push({ a0: Math.min(x0, x1), a1: Math.max(x0, x1), b0: Math.min(b0, b1), b1: Math.max(b0, b1), isVoid: s.void, name: s.name });
+  }
+  const points: { a: number; b: number; kind: "machine" | "bearing" | "check"; label: string }[] = [];
+  for (const m of form.machines) {
+    const [x, y, z] = m.cg;
+    const b = view === "plan" ? y : z;
+    if (ok(x) && ok(b)) points.push({ a: x, b, kind: "machine", label: m.name });
+    for (const r of m.rotors)
+      r.bearings.forEach((p, i) => {
+        const bb = view === "plan" ? p[1] : p[2];
+        if (ok(p[0]) && ok(bb)) points.push({ a: p[0], b: bb, kind: "bearing", label: `${r.name} B${i + 1}` });
+      });
+  }
+  for (const c of form.checkPoints) {
+    const bb = view === "plan" ? c.position[1] : c.position[2];
+    if (ok(c.position[0]) && ok(bb)) points.push({ a: c.position[0], b: bb, kind: "check", label: c.name });
+  }
+  const solids = rects.filter((r) => !r.isVoid);
+  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a)];
+  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b)];
+  return { rects, points, solids, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
+}
+
+function fmtLen(m: number, toDisplay: (m: number) => string): string {
+  return toDisplay(m);
+}
+
+function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View; cg?: [number, number, number]; formatLength: (m: number) => string }) {
+  const e = extents(form, view);
+  if (!e.solids.length || !Number.isFinite(e.aMin) || !Number.isFinite(e.bMin)) {
+    return <p className="text-sm text-basalt-400">Enter a box with all six coordinates to see the {view}.</p>;
+  }
+  const W = 460;
+  const H = 260;
+  const pad = 42;
+  const spanA = Math.max(e.aMax - e.aMin, 1e-3);
+  const spanB = Math.max(e.bMax - e.bMin, 1e-3);
+  // One scale for both axes: the drawing is to scale.
+  const s = Math.min((W - 2 * pad) / spanA, (H - 2 * pad) / spanB);
+  const ox = pad + ((W - 2 * pad) - spanA * s) / 2;
+  const oy = H - pad - ((H - 2 * pad) - spanB * s) / 2;
+  const X = (a: number) => ox + (a - e.aMin) * s;
+  const Y = (b: number) => oy - (b - e.bMin) * s;
+  const solidA0 = Math.min(...e.solids.map((r) => r.a0));
+  const solidA1 = Math.max(...e.solids.map((r) => r.a1));
+  const solidB0 = Math.min(...e.solids.map((r) => r.b0));
+  const solidB1 = Math.max(...e.solids.map((r) => r.b1));
+  const cgA = cg?.[0];
+  const cgB = view === "plan" ? cg?.[1] : cg?.[2];
+  return (
+    <svg viewBox={`0 0 ${W} ${H}`} className="w-full rounded-plinth border border-grout-200 bg-white" role="img" aria-label={`${view} of the block to scale`} data-testid={`drawing-${view}`}>
+      <defs>
+        <pattern id={`hatch-${view}`} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+          <line x1="0" y1="0" x2="0" y2="6" stroke="#a99f8c" strokeWidth="1" />
+        </pattern>
+      </defs>
+      {view === "elevation" ? <line x1={8} x2={W - 8} y1={Y(0)} y2={Y(0)} stroke="#8ea2ab" strokeDasharray="4 3" /> : null}
+      {e.rects.map((r, i) => (
+        <rect
+          key={`${r.name}-${i}`}
+          x={X(r.a0)}
+          y={Y(r.b1)}
+          width={(r.a1 - r.a0) * s}
+          height={(r.b1 - r.b0) * s}
+          fill={r.isVoid ? "#faf9f7" : `url(#hatch-${view})`}
+          stroke={r.isVoid ? "#b8432f" : "#3a4d57"}
+          strokeDasharray={r.isVoid ? "4 2" : undefined}
+          strokeWidth={1.2}
+        >
+          <title>{`${r.name}${r.isVoid ? " (void)" : ""}`}</title>
+        </rect>
+      ))}
+      {e.points.map((p, i) =>
+        p.kind === "machine" ? (
+          <g key={i}>
+            <circle cx={X(p.a)} cy={Y(p.b)} r={5} fill="#d49a1e" stroke="#8f650f" />
+            <text x={X(p.a) + 7} y={Y(p.b) - 6} fontSize="10" fill="#8f650f">
+              {p.label}
+            </text>
+          </g>
+        ) : p.kind === "bearing" ? (
+          <rect key={i} x={X(p.a) - 3.5} y={Y(p.b) - 3.5} width={7} height={7} fill="#2e3d46">
+            <title>{p.label}</title>
+          </rect>
+        ) : (
+          <path key={i} d={`M ${X(p.a)} ${Y(p.b) - 5} l 5 8 l -10 0 z`} fill="#3f8a4a">
+            <title>{p.label}</title>
+          </path>
+        ),
+      )}
+      {ok(cgA) && ok(cgB) ? (
+        <g data-testid={`cg-${view}`}>
+          <circle cx={X(cgA)} cy={Y(cgB)} r={7} fill="none" stroke="#b8432f" strokeWidth={1.5} />
+          <line x1={X(cgA) - 10} x2={X(cgA) + 10} y1={Y(cgB)} y2={Y(cgB)} stroke="#b8432f" />
+          <line x1={X(cgA)} x2={X(cgA)} y1={Y(cgB) - 10} y2={Y(cgB) + 10} stroke="#b8432f" />
+        </g>
+      ) : null}
+      {/* overall dimensions */}
+      <g fontSize="10" fill="#4a616c" stroke="#647d88">
+        <line x1={X(solidA0)} x2={X(solidA1)} y1={H - 16} y2={H - 16} markerStart="" />
+        <line x1={X(solidA0)} x2={X(solidA0)} y1={H - 20} y2={H - 12} />
+        <line x1={X(solidA1)} x2={X(solidA1)} y1={H - 20} y2={H - 12} />
+        <text x={(X(solidA0) + X(solidA1)) / 2} y={H - 20} textAnchor="middle" stroke="none">
+          {fmtLen(solidA1 - solidA0, formatLength)}
+        </text>
+        <line x1={16} x2={16} y1={Y(solidB0)} y2={Y(solidB1)} />
+        <line x1={12} x2={20} y1={Y(solidB0)} y2={Y(solidB0)} />
+        <line x1={12} x2={20} y1={Y(solidB1)} y2={Y(solidB1)} />
+        <text x={24} y={(Y(solidB0) + Y(solidB1)) / 2} stroke="none" dominantBaseline="middle">
+          {fmtLen(solidB1 - solidB0, formatLength)}
+        </text>
+      </g>
+      <text x={W - 10} y={14} textAnchor="end" fontSize="10" fill="#8ea2ab">
+        {view === "plan" ? "PLAN  x →  y ↑" : "ELEVATION  x →  z ↑"}
+      </text>
+    </svg>
+  );
+}
+
+export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; mass?: MassPropertiesResult; formatLength: (m: number) => string }) {
+  return (
+    <div className="grid grid-cols-1 gap-3 xl:grid-cols-2">
+      <figure>
+        <OneView form={form} view="plan" cg={mass?.cg as [number, number, number] | undefined} formatLength={formatLength} />
+        <figcaption className="mt-1 text-2xs text-basalt-400">Plan. Hatched: concrete; dashed red: voids; amber: machine centres; dark squares: bearings; green: check points; red cross: combined centre of gravity.</figcaption>
+      </figure>
+      <figure>
+        <OneView form={form} view="elevation" cg={mass?.cg as [number, number, number] | undefined} formatLength={formatLength} />
+        <figcaption className="mt-1 text-2xs text-basalt-400">Elevation, looking along +y. Dashed line: underside of the base (z = 0).</figcaption>
+      </figure>
+    </div>
+  );
+}

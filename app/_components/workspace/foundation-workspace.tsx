@@ -1,0 +1,265 @@
+"use client";
+
+import { Formik, useFormikContext } from "formik";
+import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react";
+import type { AnalysisResult } from "@/modules/calc";
+import { draftFormSchema, formFromInput, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import type { AnalysisInputDocument } from "@/modules/calc";
+import { Cautions } from "../cautions";
+import { BlockDrawing } from "./block-drawing";
+import { BlockSection } from "./block-section";
+import { MachinesSection } from "./machines-section";
+import { MethodSection } from "./method-section";
+import { ResponsePlots } from "./response-plots";
+import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
+import { SoilSection } from "./soil-section";
+import { useCalculation, type CalcIssue } from "./use-calculation";
+import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
+
+export interface WorkspaceProps {
+  projectId: string;
+  foundationId: string;
+  tag: string;
+  readOnly: boolean;
+  initialVersion: number;
+  initialInput: AnalysisInputDocument | null;
+  initialForm: DraftForm;
+  units: UnitSystem;
+}
+
+function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
+  return (
+    <section className="slab p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
+      <div className="mb-3 flex items-center justify-between gap-2">
+        <h2 id={`${id}-h`} className="text-base">
+          {title}
+        </h2>
+        {aside}
+      </div>
+      {children}
+    </section>
+  );
+}
+
+function issuesByField(issues: CalcIssue[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const i of issues) out[i.path] ??= i.message;
+  return out;
+}
+
+type SaveState =
+  | { kind: "idle" }
+  | { kind: "saving" }
+  | { kind: "saved"; at: string }
+  | { kind: "error"; message: string }
+  | { kind: "conflict"; currentVersion: number; current: AnalysisInputDocument | null };
+
+function diffSummary(mine: unknown, theirs: unknown, prefix = ""): string[] {
+  if (typeof mine !== "object" || mine === null || typeof theirs !== "object" || theirs === null) {
+    return JSON.stringify(mine) === JSON.stringify(theirs) ? [] : [`${prefix || "(input)"}: yours ${JSON.stringify(mine)} · stored ${JSON.stringify(theirs)}`];
+  }
+  const keys = new Set([...Object.keys(mine), ...Object.keys(theirs)]);
+  return [...keys].flatMap((k) => {
+    const path = Array.isArray(mine) ? `${prefix}[${k}]` : prefix ? `${prefix}.${k}` : k;
+    return diffSummary((mine as Record<string, unknown>)[k], (theirs as Record<string, unknown>)[k], path);
+  });
+}
+
+function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number) => void }) {
+  const { values, setStatus, isValid, resetForm } = useFormikContext<DraftForm>();
+  const units = useUnits();
+  const document = useMemo(() => toInputDocument(values), [values]);
+  const { result, error, stale, pending } = useCalculation(document, true);
+  const [save, setSave] = useState<SaveState>({ kind: "idle" });
+  const [savedBody, setSavedBody] = useState(() => (props.initialInput ? JSON.stringify(toInputDocument(props.initialForm)) : ""));
+  const dirty = JSON.stringify(document) !== savedBody;
+
+  useEffect(() => {
+    setStatus({ serverIssues: error ? issuesByField(error.issues) : {} });
+  }, [error, setStatus]);
+
+  const onSave = useCallback(async () => {
+    setSave({ kind: "saving" });
+    const res = await fetch(`/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`, {
+      method: "PUT",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ version: props.version, input: document }),
+    });
+    const body = (await res.json().catch(() => ({}))) as {
+      draft?: { version: number };
+      error?: { message?: string; currentVersion?: number; issues?: CalcIssue[] };
+      current?: { version: number; input: AnalysisInputDocument | null };
+    };
+    if (res.ok && body.draft) {
+      props.setVersion(body.draft.version);
+      setSavedBody(JSON.stringify(document));
+      setSave({ kind: "saved", at: new Date().toLocaleTimeString() });
+    } else if (res.status === 409) {
+      setSave({ kind: "conflict", currentVersion: body.error?.currentVersion ?? body.current?.version ?? 0, current: body.current?.input ?? null });
+    } else {
+      if (body.error?.issues) setStatus({ serverIssues: issuesByField(body.error.issues) });
+      setSave({ kind: "error", message: body.error?.message ?? `Saving failed (${res.status})` });
+    }
+  }, [document, props, setStatus]);
+
+  const reloadStored = () => {
+    if (save.kind !== "conflict") return;
+    if (save.current) {
+      const form = formFromInput(save.current);
+      resetForm({ values: form });
+      setSavedBody(JSON.stringify(toInputDocument(form)));
+    }
+    props.setVersion(save.currentVersion);
+    setSave({ kind: "idle" });
+  };
+
+  const calcState = !result && error ? "error" : stale ? "stale" : "fresh";
+
+  return (
+    <div className="space-y-4">
+      <div className="sticky top-0 z-10 -mx-6 flex flex-wrap items-center gap-3 border-b border-grout-300 bg-grout-50/95 px-6 py-2 backdrop-blur">
+        <h1 className="mr-auto text-lg">
+          Foundation <span className="font-mono">{props.tag}</span>
+          {props.readOnly ? <span className="tag ml-2 bg-basalt-100 text-basalt-700">read-only</span> : null}
+        </h1>
+        <UnitsSwitch />
+        <span
+          className={`tag ${calcState === "fresh" ? "bg-moss-100 text-moss-700" : calcState === "stale" ? "bg-ochre-100 text-ochre-700" : "bg-brick-100 text-brick-700"}`}
+          data-testid="calc-state"
+          data-state={calcState}
+        >
+          {calcState === "fresh" ? "results current" : calcState === "stale" ? (pending ? "recalculating…" : "results out of date") : "inputs incomplete"}
+        </span>
+        {props.readOnly ? null : (
+          <>
+            <span className="text-2xs text-basalt-500" data-testid="save-state">
+              {save.kind === "saving" ? "saving…" : save.kind === "saved" ? `saved ${save.at} · v${props.version}` : dirty ? "unsaved changes" : `v${props.version}`}
+            </span>
+            <button type="button" className="btn-primary" onClick={() => void onSave()} disabled={save.kind === "saving" || !dirty}>
+              Save draft
+            </button>
+          </>
+        )}
+      </div>
+      {save.kind === "error" ? (
+        <p role="alert" className="rounded-plinth border border-brick-500 bg-brick-100 px-3 py-2 text-sm text-brick-700">
+          {save.message}
+        </p>
+      ) : null}
+      {save.kind === "conflict" ? (
+        <div role="alertdialog" aria-label="Save conflict" className="rounded-plinth border border-brick-500 bg-white p-4 shadow-slab" data-testid="conflict">
+          <p className="font-semibold text-brick-700">Someone saved this draft after you opened it (now version {save.currentVersion}). Nothing was overwritten.</p>
+          <details className="mt-2 text-xs">
+            <summary className="cursor-pointer">See the difference</summary>
+            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono">
+              {diffSummary(document, save.current)
+                .slice(0, 60)
+                .map((d) => (
+                  <li key={d}>{d}</li>
+                ))}
+            </ul>
+          </details>
+          <div className="mt-3 flex gap-2">
+            <button type="button" className="btn-primary" onClick={reloadStored}>
+              Load the stored version
+            </button>
+            <button type="button" className="btn-quiet" onClick={() => setSave({ kind: "idle" })}>
+              Keep mine for now
+            </button>
+          </div>
+        </div>
+      ) : null}
+      {!isValid && !props.readOnly ? <p className="text-xs text-brick-700">Some inputs need attention: see the fields marked in red.</p> : null}
+
+      <div className="grid grid-cols-1 gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+        <div className="space-y-4">
+          <Panel title="Block: boxes and voids" id="block">
+            <BlockSection readOnly={props.readOnly} />
+            <div className="mt-4">
+              <BlockDrawing form={values} mass={result?.massProperties} formatLength={(m) => `${units.toDisplayText("length", m)} ${units.unitLabel("length")}`} />
+            </div>
+          </Panel>
+          <Panel title="Ground: soil from the geotechnical report" id="soil">
+            <SoilSection readOnly={props.readOnly} />
+          </Panel>
+          <Panel title="Machines, rotors and bearings" id="machines">
+            <MachinesSection readOnly={props.readOnly} />
+          </Panel>
+          <Panel title="Method and acceptance limits" id="method">
+            <MethodSection readOnly={props.readOnly} />
+          </Panel>
+        </div>
+        <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
+          <Cautions />
+          {error && !result ? (
+            <div className="slab border-brick-500 p-4 text-sm" role="status">
+              <p className="font-semibold text-brick-700">No results yet: the inputs are not complete.</p>
+              <ul className="mt-2 list-disc pl-5 text-xs text-basalt-700" data-testid="calc-issues">
+                {error.issues.slice(0, 12).map((i) => (
+                  <li key={`${i.path}-${i.message}`}>
+                    <span className="font-mono">{i.path}</span>: {i.message}
+                  </li>
+                ))}
+              </ul>
+            </div>
+          ) : null}
+          {result ? <Results result={result} stale={stale} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
+        </div>
+      </div>
+    </div>
+  );
+}
+
+function Results({ result, stale }: { result: AnalysisResult; stale: boolean }) {
+  return (
+    <>
+      {stale ? (
+        <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="stale-note">
+          These results belong to earlier inputs; new ones are on the way or the inputs are incomplete.
+        </p>
+      ) : null}
+      <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
+        <ChecksTable result={result} />
+      </Panel>
+      {result.warnings.length ? (
+        <Panel title="Method warnings" id="warnings">
+          <ul className="list-disc space-y-1 pl-5 text-xs text-basalt-700" data-testid="warnings">
+            {result.warnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
+        </Panel>
+      ) : null}
+      <Panel title="Natural frequencies and frequency ratios" id="modes">
+        <ModesTable result={result} />
+      </Panel>
+      <Panel title="Response against frequency" id="plots">
+        <ResponsePlots result={result} />
+      </Panel>
+      <Panel title="Amplitudes at rated speed" id="response">
+        <ResponseTable result={result} />
+      </Panel>
+      <Panel title="Mass and block rules" id="mass">
+        <MassTable result={result} />
+      </Panel>
+      <Panel title="Soil springs and damping" id="impedance">
+        <ImpedanceTable result={result} />
+      </Panel>
+      <Panel title="Closed-form cross-check" id="crosscheck">
+        <CrossCheckTable result={result} />
+      </Panel>
+      <p className="text-right text-2xs text-basalt-400">engine {result.engineVersion} · contract v{result.schemaVersion}</p>
+    </>
+  );
+}
+
+export function FoundationWorkspace(props: WorkspaceProps) {
+  const [version, setVersion] = useState(props.initialVersion);
+  return (
+    <UnitsProvider initial={props.units}>
+      <Formik<DraftForm> initialValues={props.initialForm} validationSchema={draftFormSchema} onSubmit={() => undefined} validateOnMount initialStatus={{ serverIssues: {} }}>
+        <Desk {...props} version={version} setVersion={setVersion} />
+      </Formik>
+    </UnitsProvider>
+  );
+}

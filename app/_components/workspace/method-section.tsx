@@ -1,0 +1,79 @@
+"use client";
+
+import { useFormikContext } from "formik";
+import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS } from "@/modules/calc";
+import type { DraftForm } from "@/modules/desk/draft-form";
+import { NumberField } from "./number-field";
+import type { QuantityKey } from "./units-context";
+
+const methods = [
+  { value: "equivalent-radius", label: "Equivalent-radius half-space (Richart, Hall & Woods 1970; Lysmer's analog damping)" },
+  { value: "gazetas", label: "Rectangular base, Gazetas (1991): static and dynamic stiffness, radiation dashpots, embedment" },
+  { value: "user", label: "Springs and damping ratios from the geotechnical report or a pile-group analysis" },
+] as const;
+
+const dofs = [
+  ["x", "Sliding x", "stiffness"],
+  ["y", "Sliding y", "stiffness"],
+  ["z", "Vertical z", "stiffness"],
+  ["rx", "Rocking about x", "rotationalStiffness"],
+  ["ry", "Rocking about y", "rotationalStiffness"],
+  ["rz", "Torsion about z", "rotationalStiffness"],
+] as const;
+
+const criteria: { key: keyof typeof CRITERIA_DEFAULTS; label: string; kind: QuantityKey }[] = [
+  { key: "frequencySeparation", label: "Frequency separation", kind: "ratio" },
+  { key: "maxDisplacementPeak", label: "Displacement limit (peak)", kind: "displacement" },
+  { key: "maxVelocityPeak", label: "Velocity limit (peak)", kind: "velocity" },
+  { key: "minMassRatio", label: "Least block/machine mass ratio", kind: "ratio" },
+  { key: "maxEccentricity", label: "Largest eccentricity (fraction of base)", kind: "ratio" },
+  { key: "maxBearingRatio", label: "Largest bearing pressure / allowable", kind: "ratio" },
+];
+
+export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean; projectCriteria?: Record<string, number> }) {
+  const { values, handleChange } = useFormikContext<DraftForm>();
+  return (
+    <div className="space-y-4">
+      <fieldset className="space-y-1.5" disabled={readOnly}>
+        <legend className="field-label">Soil impedance</legend>
+        {methods.map((m) => (
+          <label key={m.value} className="flex items-start gap-2 text-sm">
+            <input type="radio" name="impedance.method" value={m.value} checked={values.impedance.method === m.value} onChange={handleChange} className="mt-1" />
+            <span>{m.label}</span>
+          </label>
+        ))}
+      </fieldset>
+      {values.impedance.method === "user" ? (
+        <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
+          {dofs.map(([k, label, kind]) => (
+            <div key={k} className="grid grid-cols-2 gap-1">
+              <NumberField name={`impedance.stiffness.${k}`} label={`${label} k`} kind={kind} readOnly={readOnly} />
+              <NumberField name={`impedance.dampingRatio.${k}`} label="damping ratio" kind="ratio" readOnly={readOnly} />
+            </div>
+          ))}
+        </div>
+      ) : null}
+      <div>
+        <p className="field-label">Acceptance criteria (blank: the default shown)</p>
+        <div className="grid grid-cols-1 gap-3 md:grid-cols-2 xl:grid-cols-3">
+          {criteria.map((c) => {
+            const fallback = projectCriteria?.[c.key] ?? CRITERIA_DEFAULTS[c.key].value;
+            return (
+              <div key={c.key}>
+                <NumberField name={`criteria.${c.key}`} label={c.label} kind={c.kind} readOnly={readOnly} />
+                <p className="mt-0.5 text-2xs text-basalt-400" title={CRITERIA_DEFAULTS[c.key].source}>
+                  default {Number(fallback.toPrecision(3))} {CRITERIA_DEFAULTS[c.key].unit === "-" ? "" : CRITERIA_DEFAULTS[c.key].unit} · {CRITERIA_DEFAULTS[c.key].source}
+                </p>
+              </div>
+            );
+          })}
+        </div>
+      </div>
+      <div className="grid max-w-xl grid-cols-2 gap-3">
+        <NumberField name="soilBand.lowerFactor" label="Soil band: lower factor on G" kind="ratio" readOnly={readOnly} />
+        <NumberField name="soilBand.upperFactor" label="upper factor on G" kind="ratio" readOnly={readOnly} />
+        <p className="col-span-2 text-2xs text-basalt-400">Blank: G / 1.5 and 1.5 G. {SOIL_BAND_DEFAULTS.source}</p>
+      </div>
+    </div>
+  );
+}

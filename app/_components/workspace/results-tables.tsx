@@ -1,0 +1,323 @@
+"use client";
+
+import type { AnalysisResult, CheckResult } from "@/modules/calc";
+import { DOF_KEYS } from "@/modules/calc";
+import { Explain } from "./explain";
+import { useUnits, type QuantityKey } from "./units-context";
+
+const kindOfUnit = (unit: string | undefined): QuantityKey => (unit === "m" ? "displacement" : unit === "m/s" ? "velocity" : "ratio");
+
+/** How much of its limit a check uses (above 1 fails): the governing check is the largest. */
+export function utilisation(c: CheckResult): number {
+  const minCheck = c.comparison === "min" || c.id === "frequency-separation" || c.id === "mass-ratio";
+  if (minCheck) return c.value > 0 ? c.limit / c.value : Number.POSITIVE_INFINITY;
+  return c.limit > 0 ? Math.abs(c.value) / c.limit : Number.POSITIVE_INFINITY;
+}
+
+export function sortChecks(checks: CheckResult[]): CheckResult[] {
+  return [...checks].sort((a, b) => Number(a.pass) - Number(b.pass) || utilisation(b) - utilisation(a));
+}
+
+export function ChecksTable({ result }: { result: AnalysisResult }) {
+  const units = useUnits();
+  const sorted = sortChecks(result.checks);
+  const failing = sorted.filter((c) => !c.pass).length;
+  return (
+    <div>
+      <p className="mb-2 text-sm" data-testid="checks-summary">
+        {failing === 0 ? (
+          <span className="tag bg-moss-100 text-moss-700">all {sorted.length} checks pass</span>
+        ) : (
+          <span className="tag bg-brick-100 text-brick-700">
+            {failing} of {sorted.length} checks fail
+          </span>
+        )}
+      </p>
+      <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200">
+        <table data-testid="checks-table">
+          <thead className="sticky top-0">
+            <tr>
+              <th>Check</th>
+              <th className="text-right">Value</th>
+              <th className="text-right">Limit</th>
+              <th>Verdict</th>
+              <th>Source</th>
+            </tr>
+          </thead>
+          <tbody>
+            {sorted.map((c, i) => {
+              const kind = kindOfUnit(c.unit);
+              return (
+                <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : "bg-brick-100/40"} data-verdict={c.pass ? "pass" : "fail"}>
+                  <td className="text-xs">{c.label}</td>
+                  <td className="whitespace-nowrap text-right font-mono text-xs">
+                    {units.toDisplayText(kind, c.value)} {units.unitLabel(kind)}
+                  </td>
+                  <td className="whitespace-nowrap text-right font-mono text-xs">
+                    {c.comparison === "min" ? "≥ " : "≤ "}
+                    {units.toDisplayText(kind, c.limit)} {units.unitLabel(kind)}
+                  </td>
+                  <td>{c.pass ? <span className="tag bg-moss-100 text-moss-700">pass</span> : <span className="tag bg-brick-100 text-brick-700">fail</span>}</td>
+                  <td className="max-w-xs text-2xs text-basalt-500">{c.source}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}
+
+function Row({ k, v }: { k: string; v: string }) {
+  return (
+    <tr>
+      <td className="text-xs text-basalt-600">{k}</td>
+      <td className="text-right font-mono text-xs">{v}</td>
+    </tr>
+  );
+}
+
+export function MassTable({ result }: { result: AnalysisResult }) {
+  const u = useUnits();
+  const mp = result.massProperties;
+  const f = (k: QuantityKey, v: number) => `${u.toDisplayText(k, v)} ${u.unitLabel(k)}`;
+  return (
+    <div>
+      <table className="w-full">
+        <tbody>
+          <Row k="Concrete block mass" v={f("mass", mp.blockMass)} />
+          <Row k="Machine mass" v={f("mass", mp.machineMass)} />
+          <Row k="Total mass" v={f("mass", mp.totalMass)} />
+          <Row k="Combined centre of gravity (x, y, z)" v={mp.cg.map((c) => u.toDisplayText("length", c)).join(", ") + ` ${u.unitLabel("length")}`} />
+          <Row k="Base contact area" v={f("area", mp.baseArea)} />
+          <Row k="Mass ratio (block / machines)" v={mp.massRatio.toFixed(2)} />
+          <Row k="Eccentricity x, y (fraction of base)" v={mp.eccentricity.map((e) => (e * 100).toFixed(2) + " %").join(", ")} />
+          <Row k="Static bearing pressure" v={f("pressure", mp.staticBearingPressure)} />
+          {mp.baseThickness !== undefined ? <Row k="Thinnest base solid" v={f("length", mp.baseThickness)} /> : null}
+        </tbody>
+      </table>
+      <Explain
+        method="Sum of the concrete boxes (voids subtracted) and the machines as point masses at their centres of gravity; inertia by the parallel-axis theorem."
+        formula="m = Σ ρ V_i ± m_machines; x_cg = Σ m_i x_i / m; q = m g / A_base (g = 9.80665 m/s²)"
+        source="Rigid-body statics; block rules of thumb (mass ratio ≥ 3, eccentricity ≤ 5 %, bearing ≤ 50 % of allowable) are common practice after ACI 351.3R and Arya, O'Neill & Pincus (1979)"
+        inputs={[
+          ["base area", f("area", mp.baseArea)],
+          ["total weight", f("force", mp.totalMass * 9.80665)],
+        ]}
+      />
+    </div>
+  );
+}
+
+const dofLabel: Record<string, string> = { x: "sliding x", y: "sliding y", z: "vertical", rx: "rocking about x", ry: "rocking about y", rz: "torsion" };
+
+export function ImpedanceTable({ result }: { result: AnalysisResult }) {
+  const u = useUnits();
+  const imp = result.impedance;
+  const kindFor = (d: string): QuantityKey => (d.startsWith("r") ? "rotationalStiffness" : "stiffness");
+  const methodText =
+    imp.method === "equivalent-radius"
+      ? "Equivalent-radius circular footing on an elastic half-space with Lysmer's analog damping"
+      : imp.method === "gazetas"
+        ? "Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots"
+        : "Springs and damping ratios given by the user";
+  return (
+    <div>
+      <table>
+        <thead>
+          <tr>
+            <th>DOF</th>
+            <th className="text-right">Static stiffness</th>
+            <th className="text-right">At rated speed</th>
+            <th className="text-right">Damping ratio</th>
+          </tr>
+        </thead>
+        <tbody>
+          {DOF_KEYS.map((d) => (
+            <tr key={d}>
+              <td className="text-xs">{dofLabel[d]}</td>
+              <td className="text-right font-mono text-xs">
+                {u.toDisplayText(kindFor(d), imp.staticStiffness[d])} {u.unitLabel(kindFor(d))}
+              </td>
+              <td className="text-right font-mono text-xs">
+                {u.toDisplayText(kindFor(d), imp.stiffness[d])} {u.unitLabel(kindFor(d))}
+              </td>
+              <td className="text-right font-mono text-xs">{(imp.dampingRatio[d] * 100).toFixed(1)} %</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <Explain
+        method={methodText}
+        formula={
+          imp.method === "equivalent-radius"
+            ? "k_z = 4 G r0/(1−ν); k_x = 32(1−ν) G r0/(7−8ν); k_ψ = 8 G r0³/(3(1−ν)); k_θ = 16 G r0³/3; D_z = 0.425/√B_z …; c = 2 D √(k M_ii)"
+            : imp.method === "gazetas"
+              ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; C_z = ρ V_La A_b c_z; material damping K(1 + 2iβ)"
+              : "c = 2 D √(k M_ii)"
+        }
+        source={
+          imp.method === "equivalent-radius"
+            ? "Richart, Hall & Woods (1970), Vibrations of Soils and Foundations, ch. 7 and 10; Lysmer (1965); Hall (1967)"
+            : imp.method === "gazetas"
+              ? "Gazetas (1991), J. Geotech. Eng. ASCE 117(9); chart coefficients replaced by closed-form limits where noted in the warnings"
+              : "User-entered values"
+        }
+        inputs={[
+          ...(imp.shearModulus !== undefined ? ([["G", `${u.toDisplayText("modulus", imp.shearModulus)} ${u.unitLabel("modulus")}`]] as [string, string][]) : []),
+          ...(imp.shearWaveVelocity !== undefined ? ([["Vs", `${u.toDisplayText("waveSpeed", imp.shearWaveVelocity)} ${u.unitLabel("waveSpeed")}`]] as [string, string][]) : []),
+          ...(imp.materialDamping !== undefined ? ([["β", String(imp.materialDamping)]] as [string, string][]) : []),
+          ...Object.entries(imp.details ?? {}).map(([k, v]) => [k, Number(v.toPrecision(4)).toString()] as [string, string]),
+        ]}
+      />
+    </div>
+  );
+}
+
+export function ModesTable({ result }: { result: AnalysisResult }) {
+  const lower = result.bounds?.lower.frequenciesHz;
+  const upper = result.bounds?.upper.frequenciesHz;
+  return (
+    <div>
+      <div className="overflow-x-auto">
+        <table data-testid="modes-table">
+          <thead>
+            <tr>
+              <th>Mode</th>
+              <th className="text-right">f (Hz)</th>
+              <th>Dominant</th>
+              <th className="text-right">Soil band (Hz)</th>
+              {result.rotors.map((r) => (
+                <th key={`${r.machine}-${r.rotor}`} className="text-right">
+                  r: {r.machine} {r.rotor}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {result.modes.map((m, i) => (
+              <tr key={i}>
+                <td className="font-mono text-xs">{i + 1}</td>
+                <td className="text-right font-mono text-xs">{m.frequencyHz.toFixed(2)}</td>
+                <td className="text-xs">
+                  {dofLabel[m.dominant]} ({(m.participation[m.dominant] * 100).toFixed(0)} %)
+                </td>
+                <td className="text-right font-mono text-xs">{lower && upper ? `${lower[i]?.toFixed(2)} – ${upper[i]?.toFixed(2)}` : "—"}</td>
+                {result.rotors.map((r) => {
+                  const ratio = r.frequencyRatios[i] ?? 0;
+                  const near = Math.abs(ratio - 1) < 0.2;
+                  return (
+                    <td key={`${r.machine}-${r.rotor}`} className={`text-right font-mono text-xs ${near ? "font-semibold text-brick-700" : ""}`}>
+                      {ratio.toFixed(2)}
+                    </td>
+                  );
+                })}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <Explain
+        method="Undamped generalised eigenproblem K φ = ω² M φ of the rigid block with six degrees of freedom at O (mass matrix about O, springs at O); frequency ratio r = rated speed / natural frequency."
+        formula="det(K − ω² M) = 0; f = ω / 2π; participation = M_ii φ_i² / Σ M_jj φ_j²"
+        source="Standard structural dynamics (e.g. Chopra, Dynamics of Structures); soil band: G / 1.5 and 1.5 G, common practice (ASCE 4, recalled from memory)"
+        inputs={result.rotors.map((r) => [`${r.machine} ${r.rotor} rated`, `${r.speedRpm} rpm = ${(r.speedRpm / 60).toFixed(2)} Hz`] as [string, string])}
+      />
+    </div>
+  );
+}
+
+export function ResponseTable({ result }: { result: AnalysisResult }) {
+  const u = useUnits();
+  return (
+    <div className="space-y-3">
+      {result.rotors.map((r) => (
+        <div key={`${r.machine}-${r.rotor}`}>
+          <p className="text-xs font-semibold text-basalt-700">
+            {r.machine} · {r.rotor} · {r.speedRpm} rpm · force amplitude {u.toDisplayText("force", r.forceAmplitude)} {u.unitLabel("force")}
+          </p>
+          <div className="overflow-x-auto">
+            <table>
+              <thead>
+                <tr>
+                  <th>Case</th>
+                  <th>Point</th>
+                  <th className="text-right">Displacement x, y, z ({u.unitLabel("displacement")})</th>
+                  <th className="text-right">Velocity x, y, z ({u.unitLabel("velocity")})</th>
+                  <th className="text-right">Transmissibility</th>
+                  <th className="text-right">Max over range</th>
+                </tr>
+              </thead>
+              <tbody>
+                {r.cases.flatMap((c) =>
+                  c.points.map((p, pi) => (
+                    <tr key={`${c.case}-${c.unbalanceMode}-${pi}`}>
+                      <td className="text-xs">{pi === 0 ? `${c.case} (${c.unbalanceMode})` : ""}</td>
+                      <td className="text-xs">{p.name}</td>
+                      <td className="text-right font-mono text-xs">{p.displacementPeak.map((d) => u.toDisplayText("displacement", d)).join(", ")}</td>
+                      <td className="text-right font-mono text-xs">{p.velocityPeak.map((d) => u.toDisplayText("velocity", d)).join(", ")}</td>
+                      <td className="text-right font-mono text-xs">{pi === 0 ? c.transmissibility.toFixed(3) : ""}</td>
+                      <td className="text-right font-mono text-xs">
+                        {pi === 0 ? `${u.toDisplayText("displacement", c.maxOverSpeedRange.displacementPeak)} at ${Math.round(c.maxOverSpeedRange.atRpm)} rpm` : ""}
+                      </td>
+                    </tr>
+                  )),
+                )}
+              </tbody>
+            </table>
+          </div>
+        </div>
+      ))}
+      <Explain
+        method="Damped harmonic steady state (K(ω)(1 + 2iβ) + iωC − ω²M) u = F, one complex factorisation per frequency; peaks are the moduli of the complex amplitudes; velocity = ω |u|."
+        formula="F = m_r e ω² with e = G / ω_rated (or the vendor force × (ω/ω_rated)²) × service factor; TR = |F_soil| / F"
+        source="ISO 1940-1 balance grades; harmonic response as in Chopra, Dynamics of Structures"
+      />
+    </div>
+  );
+}
+
+export function CrossCheckTable({ result }: { result: AnalysisResult }) {
+  const cc = result.crossCheck;
+  if (!cc) return <p className="text-sm text-basalt-400">No cross-check for this input.</p>;
+  const rows: [string, { closedFormHz: number; nearestModeHz: number; nearestMode: number }][] = [
+    ["Vertical (single DOF)", cc.vertical],
+    ["Torsion (single DOF)", cc.torsion],
+    ["Rocking–sliding x–ry, low", cc.rockingSlidingXZ.low],
+    ["Rocking–sliding x–ry, high", cc.rockingSlidingXZ.high],
+    ["Rocking–sliding y–rx, low", cc.rockingSlidingYZ.low],
+    ["Rocking–sliding y–rx, high", cc.rockingSlidingYZ.high],
+  ];
+  return (
+    <div>
+      <table data-testid="crosscheck-table">
+        <thead>
+          <tr>
+            <th>Closed form</th>
+            <th className="text-right">Closed form (Hz)</th>
+            <th className="text-right">Six-DOF (Hz)</th>
+            <th className="text-right">Difference</th>
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map(([k, v]) => (
+            <tr key={k}>
+              <td className="text-xs">{k}</td>
+              <td className="text-right font-mono text-xs">{v.closedFormHz.toFixed(2)}</td>
+              <td className="text-right font-mono text-xs">
+                {v.nearestModeHz.toFixed(2)} (mode {v.nearestMode})
+              </td>
+              <td className="text-right font-mono text-xs">{(((v.nearestModeHz - v.closedFormHz) / v.closedFormHz) * 100).toFixed(1)} %</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <Explain
+        method="Single-degree-of-freedom frequencies and the coupled rocking–sliding pair, beside the nearest six-DOF mode; they agree when the coupling the closed forms leave out is small."
+        formula="f_z = √(k_z/m)/2π; ω⁴ − ω²(ω_x² + ω_ψ²)/γ + ω_x² ω_ψ²/γ = 0, γ = I_0/I_b"
+        source={cc.source}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,299 @@
+// The design form's model: the contract's analysis input as the designer is
+// typing it. Numbers may be blank (null) while being entered; `toInputDocument`
+// turns the form into the contract's JSON (blank optional fields dropped) and the
+// contract's zod schema then has the last word on the server.
+import * as yup from "yup";
+import type { AnalysisInputDocument } from "@/modules/calc";
+
+export type Num = number | null;
+export type Vec3Form = [Num, Num, Num];
+export type RangeForm = [Num, Num];
+
+export interface SolidForm {
+  name: string;
+  x: RangeForm;
+  y: RangeForm;
+  z: RangeForm;
+  void: boolean;
+}
+
+export interface RotorForm {
+  name: string;
+  mass: Num;
+  speedRpm: Num;
+  speedRangeRpm: RangeForm;
+  unbalanceSource: "grade" | "force";
+  balanceGrade: Num;
+  unbalanceForce: Num;
+  serviceFactor: Num;
+  axis: "x" | "y";
+  unbalanceMode: "static" | "couple" | "both";
+  bearings: Vec3Form[];
+}
+
+export interface MachineForm {
+  name: string;
+  mass: Num;
+  cg: Vec3Form;
+  rotors: RotorForm[];
+}
+
+export type Dof6Form = { x: Num; y: Num; z: Num; rx: Num; ry: Num; rz: Num };
+
+export interface DraftForm {
+  block: { concreteDensity: Num; solids: SolidForm[] };
+  soil: {
+    modulusSource: "shearModulus" | "shearWaveVelocity";
+    shearModulus: Num;
+    shearWaveVelocity: Num;
+    poissonRatio: Num;
+    density: Num;
+    materialDamping: Num;
+    allowableBearingPressure: Num;
+    embedmentDepth: Num;
+    sidewallContactHeight: Num;
+  };
+  impedance: { method: "equivalent-radius" | "gazetas" | "user"; stiffness: Dof6Form; dampingRatio: Dof6Form };
+  machines: MachineForm[];
+  checkPoints: { name: string; position: Vec3Form }[];
+  criteria: {
+    frequencySeparation: Num;
+    maxDisplacementPeak: Num;
+    maxVelocityPeak: Num;
+    minMassRatio: Num;
+    maxEccentricity: Num;
+    maxBearingRatio: Num;
+  };
+  soilBand: { lowerFactor: Num; upperFactor: Num };
+}
+
+const emptyDof = (): Dof6Form => ({ x: null, y: null, z: null, rx: null, ry: null, rz: null });
+
+export function newRotor(): RotorForm {
+  return {
+    name: "Rotor",
+    mass: null,
+    speedRpm: null,
+    speedRangeRpm: [null, null],
+    unbalanceSource: "grade",
+    balanceGrade: 6.3,
+    // ACI 351.3R recommends a service factor of 2 for unbalance growth (recalled from memory).
+    serviceFactor: 2,
+    unbalanceForce: null,
+    axis: "x",
+    unbalanceMode: "static",
+    bearings: [
+      [null, 0, null],
+      [null, 0, null],
+    ],
+  };
+}
+
+export function newMachine(n: number): MachineForm {
+  return { name: `Machine ${n}`, mass: null, cg: [0, 0, null], rotors: [newRotor()] };
+}
+
+/** The form of a foundation that has no draft yet: one mat to start from, nothing assumed about the soil. */
+export function emptyDraftForm(): DraftForm {
+  return {
+    block: { concreteDensity: 2400, solids: [{ name: "Mat", x: [-2, 2], y: [-1.5, 1.5], z: [0, 1.2], void: false }] },
+    soil: {
+      modulusSource: "shearWaveVelocity",
+      shearModulus: null,
+      shearWaveVelocity: null,
+      poissonRatio: null,
+      density: null,
+      materialDamping: null,
+      allowableBearingPressure: null,
+      embedmentDepth: 0,
+      sidewallContactHeight: 0,
+    },
+    impedance: { method: "equivalent-radius", stiffness: emptyDof(), dampingRatio: emptyDof() },
+    machines: [newMachine(1)],
+    checkPoints: [],
+    criteria: { frequencySeparation: null, maxDisplacementPeak: null, maxVelocityPeak: null, minMassRatio: null, maxEccentricity: null, maxBearingRatio: null },
+    soilBand: { lowerFactor: null, upperFactor: null },
+  };
+}
+
+const v3 = (v: readonly number[] | undefined): Vec3Form => [v?.[0] ?? null, v?.[1] ?? null, v?.[2] ?? null];
+const r2 = (v: readonly number[] | undefined): RangeForm => [v?.[0] ?? null, v?.[1] ?? null];
+
+/** A stored (valid) input document as the form shows it. */
+export function formFromInput(input: AnalysisInputDocument): DraftForm {
+  const soil = input.soil;
+  const imp = input.impedance;
+  return {
+    block: {
+      concreteDensity: input.block.concreteDensity,
+      solids: input.block.solids.map((s) => ({ name: s.name, x: r2(s.x), y: r2(s.y), z: r2(s.z), void: s.void ?? false })),
+    },
+    soil: {
+      modulusSource: soil.shearModulus !== undefined ? "shearModulus" : "shearWaveVelocity",
+      shearModulus: soil.shearModulus ?? null,
+      shearWaveVelocity: soil.shearWaveVelocity ?? null,
+      poissonRatio: soil.poissonRatio,
+      density: soil.density,
+      materialDamping: soil.materialDamping ?? null,
+      allowableBearingPressure: soil.allowableBearingPressure,
+      embedmentDepth: soil.embedmentDepth ?? 0,
+      sidewallContactHeight: soil.sidewallContactHeight ?? 0,
+    },
+    impedance: {
+      method: imp.method,
+      stiffness: imp.method === "user" ? { ...imp.stiffness } : emptyDof(),
+      dampingRatio: imp.method === "user" ? { ...imp.dampingRatio } : emptyDof(),
+    },
+    machines: input.machines.map((m) => ({
+      name: m.name,
+      mass: m.mass,
+      cg: v3(m.cg),
+      rotors: (m.rotors ?? []).map((r) => ({
+        name: r.name,
+        mass: r.mass,
+        speedRpm: r.speedRpm,
+        speedRangeRpm: r.speedRangeRpm ? r2(r.speedRangeRpm) : [null, null],
+        unbalanceSource: r.unbalanceForce !== undefined && r.balanceGrade === undefined ? "force" : "grade",
+        balanceGrade: r.balanceGrade ?? null,
+        unbalanceForce: r.unbalanceForce ?? null,
+        serviceFactor: r.serviceFactor ?? 1,
+        axis: r.axis,
+        unbalanceMode: r.unbalanceMode ?? "static",
+        bearings: r.bearings.map((b) => v3(b)),
+      })),
+    })),
+    checkPoints: (input.checkPoints ?? []).map((c) => ({ name: c.name, position: v3(c.position) })),
+    criteria: {
+      frequencySeparation: input.criteria?.frequencySeparation ?? null,
+      maxDisplacementPeak: input.criteria?.maxDisplacementPeak ?? null,
+      maxVelocityPeak: input.criteria?.maxVelocityPeak ?? null,
+      minMassRatio: input.criteria?.minMassRatio ?? null,
+      maxEccentricity: input.criteria?.maxEccentricity ?? null,
+      maxBearingRatio: input.criteria?.maxBearingRatio ?? null,
+    },
+    soilBand: { lowerFactor: input.soilBand?.lowerFactor ?? null, upperFactor: input.soilBand?.upperFactor ?? null },
+  };
+}
+
+function dropNulls<T extends Record<string, unknown>>(o: T): Partial<T> {
+  return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null && v !== undefined)) as Partial<T>;
+}
+
+/**
+ * The contract's input document from the form. Blank optional values are left
+ * out (the contract's defaults apply); blank required values stay null so the
+ * contract's schema names them.
+ */
+export function toInputDocument(f: DraftForm): unknown {
+  const soil = f.soil;
+  const modulus = soil.modulusSource === "shearModulus" ? { shearModulus: soil.shearModulus } : { shearWaveVelocity: soil.shearWaveVelocity };
+  const criteria = dropNulls(f.criteria);
+  const band = dropNulls(f.soilBand);
+  return {
+    schemaVersion: 1,
+    block: { concreteDensity: f.block.concreteDensity, solids: f.block.solids.map((s) => ({ name: s.name, x: s.x, y: s.y, z: s.z, void: s.void })) },
+    soil: {
+      ...modulus,
+      poissonRatio: soil.poissonRatio,
+      density: soil.density,
+      ...(soil.materialDamping !== null ? { materialDamping: soil.materialDamping } : {}),
+      allowableBearingPressure: soil.allowableBearingPressure,
+      embedmentDepth: soil.embedmentDepth ?? 0,
+      sidewallContactHeight: soil.sidewallContactHeight ?? 0,
+    },
+    impedance: f.impedance.method === "user" ? { method: "user", stiffness: f.impedance.stiffness, dampingRatio: f.impedance.dampingRatio } : { method: f.impedance.method },
+    machines: f.machines.map((m) => ({
+      name: m.name,
+      mass: m.mass,
+      cg: m.cg,
+      rotors: m.rotors.map((r) => ({
+        name: r.name,
+        mass: r.mass,
+        speedRpm: r.speedRpm,
+        ...(r.speedRangeRpm[0] !== null || r.speedRangeRpm[1] !== null ? { speedRangeRpm: r.speedRangeRpm } : {}),
+        ...(r.unbalanceSource === "grade" ? { balanceGrade: r.balanceGrade } : { unbalanceForce: r.unbalanceForce }),
+        ...(r.serviceFactor !== null ? { serviceFactor: r.serviceFactor } : {}),
+        axis: r.axis,
+        unbalanceMode: r.unbalanceMode,
+        bearings: r.bearings,
+      })),
+    })),
+    ...(f.checkPoints.length ? { checkPoints: f.checkPoints } : {}),
+    ...(Object.keys(criteria).length ? { criteria } : {}),
+    ...(Object.keys(band).length ? { soilBand: band } : {}),
+  };
+}
+
+// ---- the browser's validation (the same limits as the contract's zod schema) ----
+
+const req = (label: string) => yup.number().typeError(`${label} must be a number`).nullable().required(`Enter the ${label}`);
+const positive = (label: string) => req(label).moreThan(0, `The ${label} must be greater than 0`);
+const coordinate = yup.number().typeError("Must be a number").nullable().required("Enter a coordinate");
+const vec3 = yup.array().of(coordinate).length(3);
+const range = (label: string) =>
+  yup
+    .array()
+    .of(coordinate)
+    .length(2)
+    .test("ordered", `${label}: 'from' must be below 'to'`, (v) => !v || v[0] == null || v[1] == null || Number(v[1]) > Number(v[0]));
+const optionalRatio = (label: string, max: number) =>
+  yup.number().typeError(`${label} must be a number`).nullable().min(0, `${label} must be 0 or more`).lessThan(max, `${label} must be below ${max}`);
+
+export const draftFormSchema = yup.object({
+  block: yup.object({
+    concreteDensity: positive("concrete density"),
+    solids: yup
+      .array()
+      .of(yup.object({ name: yup.string().trim().required("Name the box"), x: range("x"), y: range("y"), z: range("z"), void: yup.boolean() }))
+      .min(1, "The block needs at least one box"),
+  }),
+  soil: yup.object({
+    modulusSource: yup.string().oneOf(["shearModulus", "shearWaveVelocity"]),
+    shearModulus: yup
+      .number()
+      .typeError("Must be a number")
+      .nullable()
+      .when("modulusSource", { is: "shearModulus", then: () => positive("shear modulus") }),
+    shearWaveVelocity: yup
+      .number()
+      .typeError("Must be a number")
+      .nullable()
+      .when("modulusSource", { is: "shearWaveVelocity", then: () => positive("shear-wave velocity") }),
+    poissonRatio: req("Poisson's ratio").moreThan(0, "Poisson's ratio must lie in (0, 0.5)").lessThan(0.5, "Poisson's ratio must lie in (0, 0.5)"),
+    density: positive("soil density"),
+    materialDamping: optionalRatio("Material damping", 0.5),
+    allowableBearingPressure: positive("allowable bearing pressure"),
+    embedmentDepth: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
+    sidewallContactHeight: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
+  }),
+  machines: yup
+    .array()
+    .of(
+      yup.object({
+        name: yup.string().trim().required("Name the machine"),
+        mass: positive("machine mass"),
+        cg: vec3,
+        rotors: yup.array().of(
+          yup.object({
+            name: yup.string().trim().required("Name the rotor"),
+            mass: positive("rotor mass"),
+            speedRpm: positive("rated speed"),
+            unbalanceSource: yup.string().oneOf(["grade", "force"]),
+            balanceGrade: yup
+              .number()
+              .typeError("Must be a number")
+              .nullable()
+              .when("unbalanceSource", { is: "grade", then: () => positive("balance grade") }),
+            unbalanceForce: yup
+              .number()
+              .typeError("Must be a number")
+              .nullable()
+              .when("unbalanceSource", { is: "force", then: () => positive("vendor force") }),
+            serviceFactor: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
+            bearings: yup.array().of(vec3).min(1, "A rotor needs at least one bearing"),
+          }),
+        ),
+      }),
+    )
+    .min(1, "At least one machine is needed"),
+});
