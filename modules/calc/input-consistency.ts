@@ -62,6 +62,16 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
   if (hasG === hasVs) {
     add(["soil"], "give exactly one of shearModulus and shearWaveVelocity");
   }
+  if (input.impedance.method === "user" && soil.materialDamping === 0) {
+    for (const [key, ratio] of Object.entries(input.impedance.dampingRatio)) {
+      if (ratio === 0) {
+        add(
+          ["impedance", "dampingRatio", key],
+          "must be greater than 0 when soil.materialDamping is 0: an undamped degree of freedom has an infinite resonant response",
+        );
+      }
+    }
+  }
   if (soil.sidewallContactHeight > soil.embedmentDepth) {
     add(["soil", "sidewallContactHeight"], "sidewall contact height cannot exceed the embedment depth");
   }

@@ -22,12 +22,22 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return out || ROOT_PATH;
 }
 
-function issuesFromZod(error: z.ZodError): InputIssue[] {
+/** The value at a path of the submitted document (undefined when absent). */
+function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
+  let v: unknown = json;
+  for (const part of path) {
+    if (v === null || typeof v !== "object") return undefined;
+    v = (v as Record<PropertyKey, unknown>)[part];
+  }
+  return v;
+}
+
+function issuesFromZod(error: z.ZodError, json: unknown): InputIssue[] {
   return error.issues.flatMap((issue) => {
     if (issue.code === "unrecognized_keys") {
       return issue.keys.map((key) => ({ path: formatPath([...issue.path, key]), message: "unknown field" }));
     }
-    if (issue.code === "invalid_type" && issue.input === undefined) {
+    if (issue.code === "invalid_type" && valueAt(json, issue.path) === undefined) {
       return [{ path: formatPath(issue.path), message: "is required" }];
     }
     return [{ path: formatPath(issue.path), message: issue.message }];
@@ -37,7 +47,7 @@ function issuesFromZod(error: z.ZodError): InputIssue[] {
 /** Validates a parsed JSON value against the contract. */
 export function parseAnalysisInput(json: unknown): ParseResult {
   const parsed = analysisInputSchema.safeParse(json);
-  return parsed.success ? { ok: true, input: parsed.data } : { ok: false, issues: issuesFromZod(parsed.error) };
+  return parsed.success ? { ok: true, input: parsed.data } : { ok: false, issues: issuesFromZod(parsed.error, json) };
 }
 
 /** Validates a JSON text (a text that is not JSON is one problem at the root). */

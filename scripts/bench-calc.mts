@@ -1,0 +1,79 @@
+// Calculation-core benchmark sections, called by scripts/bench.mts. Other sections (e.g. the
+// HTTP API) can reuse `timeRuns` and return the same `BenchSection` shape.
+import { readFileSync } from "node:fs";
+import { performance } from "node:perf_hooks";
+import { analyse, parseAnalysisInputText } from "../modules/calc/index";
+import { buildModel } from "../modules/calc/model";
+import { soilBand } from "../modules/calc/soil-band";
+
+export interface TimingStats {
+  median: number;
+  min: number;
+  max: number;
+  p10: number;
+  p90: number;
+  runs: number;
+}
+
+export interface BenchSection {
+  name: string;
+  stats: TimingStats;
+}
+
+function quantile(sorted: number[], q: number): number {
+  const pos = (sorted.length - 1) * q;
+  const lo = Math.floor(pos);
+  const hi = Math.ceil(pos);
+  const a = sorted[lo] ?? 0;
+  const b = sorted[hi] ?? a;
+  return a + (b - a) * (pos - lo);
+}
+
+export function summarise(samplesMs: number[]): TimingStats {
+  const s = [...samplesMs].sort((a, b) => a - b);
+  return {
+    median: quantile(s, 0.5),
+    min: s[0] ?? 0,
+    max: s[s.length - 1] ?? 0,
+    p10: quantile(s, 0.1),
+    p90: quantile(s, 0.9),
+    runs: s.length,
+  };
+}
+
+/** Times a synchronous function: `warmup` untimed calls, then `runs` timed ones (ms). */
+export function timeRuns(fn: () => unknown, runs: number, warmup = Math.min(50, runs)): TimingStats {
+  for (let i = 0; i < warmup; i++) fn();
+  const samples: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    fn();
+    samples.push(performance.now() - t0);
+  }
+  return summarise(samples);
+}
+
+export const DEFAULT_BENCH_INPUT = "examples/raw-water-pump-train.json";
+
+/**
+ * Full analysis (modes, rated and speed-range responses, 600-point sweep of every rotor's
+ * cases, soil band, checks) from a parsed input, and the soil band alone.
+ */
+export function benchCalc(inputPath: string, runs: number): { description: string; sections: BenchSection[] } {
+  const parsed = parseAnalysisInputText(readFileSync(inputPath, "utf8"));
+  if (!parsed.ok) {
+    throw new Error(`${inputPath}: ${parsed.issues.map((i) => `${i.path}: ${i.message}`).join("; ")}`);
+  }
+  const input = parsed.input;
+  const model = buildModel(input);
+  const rotors = input.machines.reduce((n, m) => n + m.rotors.length, 0);
+  const result = analyse(input);
+  const description = `${inputPath}: ${input.machines.length} machine(s), ${rotors} rotor(s), ${result.sweep.frequencyHz.length}-point sweep, ${result.sweep.series.length} point series`;
+  return {
+    description,
+    sections: [
+      { name: "full analysis", stats: timeRuns(() => analyse(input), runs) },
+      { name: "soil band (2 soil cases)", stats: timeRuns(() => soilBand(model), runs) },
+    ],
+  };
+}

@@ -1,0 +1,49 @@
+// `npm run bench`: a table of median and spread per section on the demo foundation.
+// `npm run --silent bench -- --json FILE`: {"fullAnalysisMs": {"median", "min", "max"}, "runs"}
+// for the input in FILE. Optional: --runs N.
+import { benchCalc, DEFAULT_BENCH_INPUT, type BenchSection } from "./bench-calc.mts";
+
+function parseArgs(argv: string[]): { json?: string; runs: number } | string {
+  let json: string | undefined;
+  let runs = 300;
+  for (let i = 0; i < argv.length; i++) {
+    const arg = argv[i];
+    const next = argv[i + 1];
+    if (arg === "--json" && next !== undefined) {
+      json = next;
+      i++;
+    } else if (arg === "--runs" && next !== undefined && Number.isInteger(Number(next)) && Number(next) > 0) {
+      runs = Number(next);
+      i++;
+    } else {
+      return `unknown or incomplete argument: ${arg ?? ""}`;
+    }
+  }
+  return json === undefined ? { runs } : { json, runs };
+}
+
+function formatTable(description: string, sections: BenchSection[]): string {
+  const head = ["section", "median ms", "min ms", "p10 ms", "p90 ms", "max ms", "runs"];
+  const rows = sections.map((s) => [
+    s.name,
+    ...[s.stats.median, s.stats.min, s.stats.p10, s.stats.p90, s.stats.max].map((v) => v.toFixed(3)),
+    String(s.stats.runs),
+  ]);
+  const widths = head.map((h, c) => Math.max(h.length, ...rows.map((r) => (r[c] ?? "").length)));
+  const line = (cells: string[]) => cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c] ?? 0) : cell.padStart(widths[c] ?? 0))).join("  ");
+  return [description, line(head), ...rows.map(line)].join("\n");
+}
+
+const args = parseArgs(process.argv.slice(2));
+if (typeof args === "string") {
+  process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N]\n`);
+  process.exitCode = 2;
+} else if (args.json !== undefined) {
+  const { sections } = benchCalc(args.json, args.runs);
+  const full = sections[0]?.stats;
+  if (!full) throw new Error("no full-analysis timing");
+  process.stdout.write(`${JSON.stringify({ fullAnalysisMs: { median: full.median, min: full.min, max: full.max }, runs: full.runs })}\n`);
+} else {
+  const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
+  process.stdout.write(`${formatTable(description, sections)}\n`);
+}
