@@ -4,7 +4,7 @@ import nextTs from "eslint-config-next/typescript";
 const config = [
   ...nextVitals,
   ...nextTs,
-  { ignores: [".next/**", "node_modules/**", ".local/**", "drizzle/**", "test-artifacts/**", "next-env.d.ts"] },
+  { ignores: [".next/**", ".next-*/**", "node_modules/**", ".local/**", "drizzle/**", "test-artifacts/**", "next-env.d.ts"] },
   {
     // The domain modules stay pure: no framework, UI or database imports.
     files: ["modules/**/*.ts"],

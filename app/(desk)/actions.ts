@@ -7,7 +7,8 @@ import {
   inviteMemberSchema,
   removeMemberSchema,
 } from "@/modules/platform/account-schemas";
-import { createFoundation, createProject, countManagers, deleteMember, getMemberById, getProjectByCode } from "@/db/queries/projects";
+import { projectSettingsFormSchema, settingsFromForm } from "@/modules/desk/project-settings";
+import { createFoundation, createProject, countManagers, deleteMember, getMemberById, getProjectByCode, updateProjectSettings } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { isUniqueViolation } from "@/db/queries/errors";
 import { defineAction } from "../_lib/action";
@@ -75,5 +76,20 @@ export const createFoundationAction = defineAction({
       }
       throw e;
     }
+  },
+});
+
+export const updateProjectSettingsAction = defineAction({
+  name: "project.updateSettings",
+  access: { kind: "project", permission: "project.update" },
+  schema: projectSettingsFormSchema,
+  projectId: (i) => i.projectId,
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const settings = settingsFromForm(input);
+    const project = await updateProjectSettings(ctx.auth.actor, input.projectId, settings);
+    if (!project) throw new AppError("forbidden");
+    await recordAuditEvent({ projectId: input.projectId, actorId: ctx.auth.user.id, action: "project.settings-changed", detail: { ...settings } });
+    return { saved: true };
   },
 });

@@ -21,6 +21,7 @@ function navFor(projectId: string, role: ProjectRole): { href: string; label: st
   const items = [{ href: base, label: "Foundations" }];
   if (role === "manager" || role === "designer") items.push({ href: `${base}/requests`, label: "Data requests" });
   if (role !== "viewer") items.push({ href: `${base}/members`, label: "Team" });
+  if (role === "manager") items.push({ href: `${base}/settings`, label: "Settings" });
   return items;
 }
 

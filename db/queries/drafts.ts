@@ -1,6 +1,6 @@
-import { and, eq, sql } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { getDb } from "../client";
-import { foundationDrafts, type FoundationDraftRow } from "../schema";
+import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
 import type { AnalysisInput } from "@/modules/calc";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { getFoundation } from "./foundations";
@@ -99,4 +99,37 @@ export async function saveDraft(
 export async function createDraftFromExample(foundationId: string, input: AnalysisInput, updatedById: string | null = null): Promise<Draft> {
   await getDb().insert(foundationDrafts).values({ foundationId, input, version: 1, updatedById }).onConflictDoNothing({ target: foundationDrafts.foundationId });
   return readDraft(foundationId);
+}
+
+export interface FoundationWithDraft {
+  id: string;
+  tag: string;
+  machineTrain: string;
+  location: string;
+  updatedAt: Date;
+  draftVersion: number;
+  draftUpdatedAt: Date | null;
+  input: AnalysisInput | null;
+}
+
+/** Every foundation of the project with its draft, for members who may read foundations. */
+export async function listFoundationsWithDrafts(actor: Actor, projectId: string): Promise<FoundationWithDraft[]> {
+  const membership = await getMembership(actor, projectId);
+  if (!membership || !roleAllows(membership.role, "foundation.read")) return [];
+  const rows = await getDb()
+    .select({
+      id: foundations.id,
+      tag: foundations.tag,
+      machineTrain: foundations.machineTrain,
+      location: foundations.location,
+      updatedAt: foundations.updatedAt,
+      draftVersion: foundationDrafts.version,
+      draftUpdatedAt: foundationDrafts.updatedAt,
+      input: foundationDrafts.input,
+    })
+    .from(foundations)
+    .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
+    .where(eq(foundations.projectId, projectId))
+    .orderBy(asc(foundations.tag));
+  return rows.map((r) => ({ ...r, draftVersion: r.draftVersion ?? 0, input: (r.input as AnalysisInput | null) ?? null }));
 }

@@ -55,7 +55,7 @@ export async function getProjectForMember(actor: Actor, projectId: string): Prom
 
 export async function createProject(
   actor: Actor,
-  input: { code: string; name: string; client: string; site: string; units: "si" | "us"; criteriaDefaults?: Record<string, unknown> },
+  input: { code: string; name: string; client: string; site: string; units: "si" | "us"; criteriaDefaults?: Record<string, number> },
 ): Promise<ProjectRow> {
   return getDb().transaction(async (tx) => {
     const inserted = await tx
@@ -184,4 +184,19 @@ export async function createFoundation(
   const row = rows[0];
   if (!row) throw new Error("foundation insert returned nothing");
   return row;
+}
+
+export async function updateProjectSettings(
+  actor: Actor,
+  projectId: string,
+  settings: { units: "si" | "us"; revisionScheme: "letters" | "numbers"; criteriaDefaults: Record<string, number>; soilBand: { lowerFactor?: number; upperFactor?: number } },
+): Promise<ProjectRow | undefined> {
+  const membership = await getMembership(actor, projectId);
+  if (!membership || membership.role !== "manager") return undefined;
+  const rows = await getDb()
+    .update(projects)
+    .set({ ...settings, updatedAt: new Date() })
+    .where(eq(projects.id, projectId))
+    .returning();
+  return rows[0];
 }

@@ -20,7 +20,11 @@ export const projects = pgTable("projects", {
   client: text("client").notNull().default(""),
   site: text("site").notNull().default(""),
   units: text("units", { enum: ["si", "us"] }).notNull().default("si"),
-  criteriaDefaults: jsonb("criteria_defaults").notNull().default({}),
+  // Project defaults for blank criteria in a draft (SI, the contract's keys), and the soil band factors.
+  criteriaDefaults: jsonb("criteria_defaults").$type<Record<string, number>>().notNull().default({}),
+  soilBand: jsonb("soil_band").$type<{ lowerFactor?: number; upperFactor?: number }>().notNull().default({}),
+  // Revision labels: letters A, B, C while in check, or numbers 0, 1, 2 for issue for construction.
+  revisionScheme: text("revision_scheme", { enum: ["letters", "numbers"] }).notNull().default("letters"),
   createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
   ...stamps,
 });

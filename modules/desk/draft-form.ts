@@ -35,6 +35,8 @@ export interface MachineForm {
   name: string;
   mass: Num;
   cg: Vec3Form;
+  /** A machine modelled as a uniform box (its own rotational inertia) instead of a point mass. */
+  box: { enabled: boolean; x: RangeForm; y: RangeForm; z: RangeForm };
   rotors: RotorForm[];
 }
 
@@ -65,6 +67,7 @@ export interface DraftForm {
     maxBearingRatio: Num;
   };
   soilBand: { lowerFactor: Num; upperFactor: Num };
+  sweep: { fromHz: Num; toHz: Num; points: Num };
 }
 
 const emptyDof = (): Dof6Form => ({ x: null, y: null, z: null, rx: null, ry: null, rz: null });
@@ -90,7 +93,7 @@ export function newRotor(): RotorForm {
 }
 
 export function newMachine(n: number): MachineForm {
-  return { name: `Machine ${n}`, mass: null, cg: [0, 0, null], rotors: [newRotor()] };
+  return { name: `Machine ${n}`, mass: null, cg: [0, 0, null], box: { enabled: false, x: [null, null], y: [null, null], z: [null, null] }, rotors: [newRotor()] };
 }
 
 /** The form of a foundation that has no draft yet: one mat to start from, nothing assumed about the soil. */
@@ -113,6 +116,7 @@ export function emptyDraftForm(): DraftForm {
     checkPoints: [],
     criteria: { frequencySeparation: null, maxDisplacementPeak: null, maxVelocityPeak: null, minMassRatio: null, maxEccentricity: null, maxBearingRatio: null },
     soilBand: { lowerFactor: null, upperFactor: null },
+    sweep: { fromHz: null, toHz: null, points: null },
   };
 }
 
@@ -148,6 +152,7 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
       name: m.name,
       mass: m.mass,
       cg: v3(m.cg),
+      box: m.box ? { enabled: true, x: r2(m.box.x), y: r2(m.box.y), z: r2(m.box.z) } : { enabled: false, x: [null, null], y: [null, null], z: [null, null] },
       rotors: (m.rotors ?? []).map((r) => ({
         name: r.name,
         mass: r.mass,
@@ -172,6 +177,7 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
       maxBearingRatio: input.criteria?.maxBearingRatio ?? null,
     },
     soilBand: { lowerFactor: input.soilBand?.lowerFactor ?? null, upperFactor: input.soilBand?.upperFactor ?? null },
+    sweep: { fromHz: input.sweep?.fromHz ?? null, toHz: input.sweep?.toHz ?? null, points: input.sweep?.points ?? null },
   };
 }
 
@@ -189,6 +195,7 @@ export function toInputDocument(f: DraftForm): unknown {
   const modulus = soil.modulusSource === "shearModulus" ? { shearModulus: soil.shearModulus } : { shearWaveVelocity: soil.shearWaveVelocity };
   const criteria = dropNulls(f.criteria);
   const band = dropNulls(f.soilBand);
+  const sweep = dropNulls(f.sweep);
   return {
     schemaVersion: 1,
     block: { concreteDensity: f.block.concreteDensity, solids: f.block.solids.map((s) => ({ name: s.name, x: s.x, y: s.y, z: s.z, void: s.void })) },
@@ -206,6 +213,7 @@ export function toInputDocument(f: DraftForm): unknown {
       name: m.name,
       mass: m.mass,
       cg: m.cg,
+      ...(m.box.enabled ? { box: { x: m.box.x, y: m.box.y, z: m.box.z } } : {}),
       rotors: m.rotors.map((r) => ({
         name: r.name,
         mass: r.mass,
@@ -221,6 +229,7 @@ export function toInputDocument(f: DraftForm): unknown {
     ...(f.checkPoints.length ? { checkPoints: f.checkPoints } : {}),
     ...(Object.keys(criteria).length ? { criteria } : {}),
     ...(Object.keys(band).length ? { soilBand: band } : {}),
+    ...(Object.keys(sweep).length ? { sweep } : {}),
   };
 }
 

@@ -4,6 +4,7 @@ import { Formik, useFormikContext } from "formik";
 import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { draftFormSchema, formFromInput, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
 import { Cautions } from "../cautions";
 import { BlockDrawing } from "./block-drawing";
@@ -25,6 +26,7 @@ export interface WorkspaceProps {
   initialInput: AnalysisInputDocument | null;
   initialForm: DraftForm;
   units: UnitSystem;
+  projectDefaults: Pick<ProjectSettings, "criteriaDefaults" | "soilBand">;
 }
 
 function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
@@ -68,10 +70,11 @@ function diffSummary(mine: unknown, theirs: unknown, prefix = ""): string[] {
 function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number) => void }) {
   const { values, setStatus, isValid, resetForm } = useFormikContext<DraftForm>();
   const units = useUnits();
-  const document = useMemo(() => toInputDocument(values), [values]);
+  // Blank criteria take the project's defaults, so the result and the saved draft record what was used.
+  const document = useMemo(() => withProjectDefaults(toInputDocument(values), props.projectDefaults), [values, props.projectDefaults]);
   const { result, error, stale, pending } = useCalculation(document, true);
   const [save, setSave] = useState<SaveState>({ kind: "idle" });
-  const [savedBody, setSavedBody] = useState(() => (props.initialInput ? JSON.stringify(toInputDocument(props.initialForm)) : ""));
+  const [savedBody, setSavedBody] = useState(() => (props.initialInput ? JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)) : ""));
   const dirty = JSON.stringify(document) !== savedBody;
 
   useEffect(() => {
@@ -107,7 +110,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     if (save.current) {
       const form = formFromInput(save.current);
       resetForm({ values: form });
-      setSavedBody(JSON.stringify(toInputDocument(form)));
+      setSavedBody(JSON.stringify(withProjectDefaults(toInputDocument(form), props.projectDefaults)));
     }
     props.setVersion(save.currentVersion);
     setSave({ kind: "idle" });
@@ -186,7 +189,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
             <MachinesSection readOnly={props.readOnly} />
           </Panel>
           <Panel title="Method and acceptance limits" id="method">
-            <MethodSection readOnly={props.readOnly} />
+            <MethodSection readOnly={props.readOnly} projectCriteria={props.projectDefaults.criteriaDefaults} />
           </Panel>
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">

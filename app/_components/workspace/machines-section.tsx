@@ -37,12 +37,24 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
                 <div className="w-64">
                   <Vec3Inputs base={`machines[${mi}].cg`} label="Centre of gravity" kind="length" readOnly={readOnly} />
                 </div>
+                <label className="flex items-center gap-1.5 pb-2 text-xs">
+                  <input type="checkbox" name={`machines[${mi}].box.enabled`} checked={m.box.enabled} onChange={handleChange} disabled={readOnly} /> model as a box
+                </label>
                 {readOnly ? null : (
                   <button type="button" className="btn-danger text-xs" disabled={values.machines.length <= 1} onClick={() => machines.remove(mi)}>
                     Remove machine
                   </button>
                 )}
               </div>
+              {m.box.enabled ? (
+                <div className="mt-2 grid grid-cols-3 gap-2 md:grid-cols-6">
+                  {(["x", "y", "z"] as const).flatMap((axis) =>
+                    [0, 1].map((j) => (
+                      <NumberField key={`${axis}${j}`} name={`machines[${mi}].box.${axis}[${j}]`} label={`Box ${axis} ${j === 0 ? "from" : "to"}`} kind="length" readOnly={readOnly} />
+                    )),
+                  )}
+                </div>
+              ) : null}
               <FieldArray name={`machines[${mi}].rotors`}>
                 {(rotors) => (
                   <div className="mt-3 space-y-3">

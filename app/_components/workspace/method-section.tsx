@@ -1,7 +1,7 @@
 "use client";
 
 import { useFormikContext } from "formik";
-import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS } from "@/modules/calc";
+import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS } from "@/modules/calc";
 import type { DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
 import type { QuantityKey } from "./units-context";
@@ -73,6 +73,12 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
         <NumberField name="soilBand.lowerFactor" label="Soil band: lower factor on G" kind="ratio" readOnly={readOnly} />
         <NumberField name="soilBand.upperFactor" label="upper factor on G" kind="ratio" readOnly={readOnly} />
         <p className="col-span-2 text-2xs text-basalt-400">Blank: G / 1.5 and 1.5 G. {SOIL_BAND_DEFAULTS.source}</p>
+      </div>
+      <div className="grid max-w-xl grid-cols-3 gap-3">
+        <NumberField name="sweep.fromHz" label="Plot from" kind="frequency" readOnly={readOnly} />
+        <NumberField name="sweep.toHz" label="Plot to" kind="frequency" readOnly={readOnly} />
+        <NumberField name="sweep.points" label="Points" kind="ratio" readOnly={readOnly} />
+        <p className="col-span-3 text-2xs text-basalt-400">Blank: {SWEEP_DEFAULTS.fromHz}–{SWEEP_DEFAULTS.toHz} Hz in {SWEEP_DEFAULTS.points} points (the upper end rises with the fastest operating speed).</p>
       </div>
     </div>
   );

@@ -1,26 +1,16 @@
 "use client";
 
-import type { AnalysisResult, CheckResult } from "@/modules/calc";
+import type { AnalysisResult } from "@/modules/calc";
+import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { DOF_KEYS } from "@/modules/calc";
 import { Explain } from "./explain";
 import { useUnits, type QuantityKey } from "./units-context";
 
 const kindOfUnit = (unit: string | undefined): QuantityKey => (unit === "m" ? "displacement" : unit === "m/s" ? "velocity" : "ratio");
 
-/** How much of its limit a check uses (above 1 fails): the governing check is the largest. */
-export function utilisation(c: CheckResult): number {
-  const minCheck = c.comparison === "min" || c.id === "frequency-separation" || c.id === "mass-ratio";
-  if (minCheck) return c.value > 0 ? c.limit / c.value : Number.POSITIVE_INFINITY;
-  return c.limit > 0 ? Math.abs(c.value) / c.limit : Number.POSITIVE_INFINITY;
-}
-
-export function sortChecks(checks: CheckResult[]): CheckResult[] {
-  return [...checks].sort((a, b) => Number(a.pass) - Number(b.pass) || utilisation(b) - utilisation(a));
-}
-
 export function ChecksTable({ result }: { result: AnalysisResult }) {
   const units = useUnits();
-  const sorted = sortChecks(result.checks);
+  const sorted = sortChecksGoverningFirst(result.checks);
   const failing = sorted.filter((c) => !c.pass).length;
   return (
     <div>

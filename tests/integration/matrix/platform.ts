@@ -6,7 +6,7 @@ import {
   signInAction,
   signOutAction,
 } from "@/app/(auth)/actions";
-import { createFoundationAction, createProjectAction, inviteMemberAction, removeMemberAction } from "@/app/(desk)/actions";
+import { createFoundationAction, createProjectAction, inviteMemberAction, removeMemberAction, updateProjectSettingsAction } from "@/app/(desk)/actions";
 import type { ActionCase, RouteCase } from "../support/matrix-types";
 import type { MatrixRole } from "../support/fixture";
 
@@ -31,6 +31,13 @@ export const routeCases: RouteCase[] = [
     method: "GET",
     allowed: ["manager", "designer", "checker", "viewer"],
     request: async (fx) => ({ params: { projectId: fx.projectId } }),
+  },
+  {
+    route: "v1/projects/[projectId]",
+    method: "PATCH",
+    allowed: ["manager"],
+    // Writes back the settings the demo project already has (SI units, letters).
+    request: async (fx) => ({ params: { projectId: fx.projectId }, body: { units: "si", revisionScheme: "letters" } }),
   },
   {
     route: "v1/projects/[projectId]/members",
@@ -106,6 +113,12 @@ export const actionCases: ActionCase[] = [
     action: removeMemberAction,
     allowed: ["manager"],
     fields: async (fx) => ({ projectId: fx.projectId, memberId: await fx.createThrowawayMember() }),
+  },
+  {
+    name: "project.updateSettings",
+    action: updateProjectSettingsAction,
+    allowed: ["manager"],
+    fields: async (fx) => ({ projectId: fx.projectId, units: "si", revisionScheme: "letters" }),
   },
   {
     name: "foundation.create",

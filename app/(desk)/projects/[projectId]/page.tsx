@@ -1,7 +1,9 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { roleAllows } from "@/modules/platform/permissions";
-import { listFoundations } from "@/db/queries/projects";
+import { analyse } from "@/modules/calc";
+import { governingCheck } from "@/modules/desk/foundation-summary";
+import { listFoundationsWithDrafts } from "@/db/queries/drafts";
+import { FoundationTable, type FoundationRowView } from "../../../_components/foundation-table";
 import { requireProjectPage } from "../../../_lib/page-guard";
 import { EmptyState } from "../../../_components/brand";
 import { NewFoundationForm } from "./new-foundation-form";
@@ -11,7 +13,18 @@ export const metadata: Metadata = { title: "Foundations" };
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const { actor, project, role } = await requireProjectPage(projectId, "project.read");
-  const foundations = await listFoundations(actor, projectId);
+  const foundations = await listFoundationsWithDrafts(actor, projectId);
+  const rows: FoundationRowView[] = foundations.map((f) => ({
+    id: f.id,
+    tag: f.tag,
+    machineTrain: f.machineTrain,
+    location: f.location,
+    status: f.input ? `draft v${f.draftVersion}` : "not started",
+    latestRevision: "none issued",
+    // The engine is fast enough (a few ms) to give each row its governing check live.
+    governing: f.input ? governingCheck(analyse(f.input)) : null,
+    updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
+  }));
   return (
     <div className="space-y-6">
       <div>
@@ -30,30 +43,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
             {roleAllows(role, "foundation.create") ? "Add the first one below." : "A designer adds them."}
           </EmptyState>
         ) : (
-          <div className="slab overflow-hidden">
-            <table data-testid="foundation-table">
-              <thead>
-                <tr>
-                  <th>Tag</th>
-                  <th>Machine train</th>
-                  <th>Location</th>
-                  <th>Last change</th>
-                </tr>
-              </thead>
-              <tbody>
-                {foundations.map((f) => (
-                  <tr key={f.id}>
-                    <td className="font-mono font-medium">
-                      <Link href={`/projects/${projectId}/foundations/${f.id}`}>{f.tag}</Link>
-                    </td>
-                    <td>{f.machineTrain}</td>
-                    <td>{f.location}</td>
-                    <td className="text-basalt-500">{f.updatedAt.toISOString().slice(0, 10)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <FoundationTable projectId={projectId} rows={rows} />
         )}
       </section>
       {roleAllows(role, "foundation.create") ? (

@@ -32,6 +32,7 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         initialInput={draft.input}
         initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
         units={project.units}
+        projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
       />
     </div>
   );

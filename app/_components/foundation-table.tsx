@@ -1,0 +1,118 @@
+"use client";
+
+import Link from "next/link";
+import { useMemo, useState } from "react";
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from "@tanstack/react-table";
+
+export interface FoundationRowView {
+  id: string;
+  tag: string;
+  machineTrain: string;
+  location: string;
+  status: string;
+  latestRevision: string;
+  governing: { label: string; pass: boolean; utilisation: number; failing: number; total: number } | null;
+  updatedAt: string;
+}
+
+const col = createColumnHelper<FoundationRowView>();
+
+export function FoundationTable({ projectId, rows }: { projectId: string; rows: FoundationRowView[] }) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: "tag", desc: false }]);
+  const [filter, setFilter] = useState("");
+  const columns = useMemo(
+    () => [
+      col.accessor("tag", {
+        header: "Tag",
+        cell: (c) => (
+          <Link className="font-mono font-medium" href={`/projects/${projectId}/foundations/${c.row.original.id}`}>
+            {c.getValue()}
+          </Link>
+        ),
+      }),
+      col.accessor("machineTrain", { header: "Machine train" }),
+      col.accessor("status", { header: "Status", cell: (c) => <span className="tag bg-basalt-100 text-basalt-700">{c.getValue()}</span> }),
+      col.accessor("latestRevision", { header: "Latest revision" }),
+      col.accessor((r) => r.governing?.utilisation ?? -1, {
+        id: "governing",
+        header: "Governing check",
+        cell: (c) => {
+          const g = c.row.original.governing;
+          if (!g) return <span className="text-basalt-400">no complete input</span>;
+          return (
+            <span className="text-xs">
+              <span className={`tag mr-1.5 ${g.pass ? "bg-moss-100 text-moss-700" : "bg-brick-100 text-brick-700"}`}>{g.pass ? "pass" : `${g.failing} fail`}</span>
+              {g.label} <span className="font-mono text-basalt-400">({(g.utilisation * 100).toFixed(0)} % of limit)</span>
+            </span>
+          );
+        },
+      }),
+      col.accessor("updatedAt", { header: "Last change", cell: (c) => <span className="text-basalt-500">{c.getValue()}</span> }),
+    ],
+    [projectId],
+  );
+  const table = useReactTable({
+    data: rows,
+    columns,
+    state: { sorting, globalFilter: filter },
+    onSortingChange: setSorting,
+    onGlobalFilterChange: setFilter,
+    globalFilterFn: (row, _id, value: string) => {
+      const r = row.original;
+      const hay = [r.tag, r.machineTrain, r.location, r.status, r.latestRevision, r.governing?.label ?? ""].join(" ").toLowerCase();
+      return hay.includes(String(value).toLowerCase());
+    },
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
+  return (
+    <div className="space-y-2">
+      <input className="field-input max-w-xs" placeholder="Filter by tag, train, status, check…" aria-label="Filter foundations" value={filter} onChange={(e) => setFilter(e.target.value)} />
+      <div className="slab overflow-x-auto">
+        <table data-testid="foundation-table">
+          <thead>
+            {table.getHeaderGroups().map((hg) => (
+              <tr key={hg.id}>
+                {hg.headers.map((h) => {
+                  const dir = h.column.getIsSorted();
+                  return (
+                    <th key={h.id} aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : "none"}>
+                      <button type="button" className="uppercase tracking-wide" onClick={h.column.getToggleSortingHandler()}>
+                        {flexRender(h.column.columnDef.header, h.getContext())} {dir === "asc" ? "▲" : dir === "desc" ? "▼" : ""}
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {table.getRowModel().rows.map((r) => (
+              <tr key={r.id}>
+                {r.getVisibleCells().map((c) => (
+                  <td key={c.id}>{flexRender(c.column.columnDef.cell, c.getContext())}</td>
+                ))}
+              </tr>
+            ))}
+            {table.getRowModel().rows.length === 0 ? (
+              <tr>
+                <td colSpan={columns.length} className="text-center text-sm text-basalt-400">
+                  No foundation matches “{filter}”.
+                </td>
+              </tr>
+            ) : null}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}
