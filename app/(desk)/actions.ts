@@ -1,6 +1,8 @@
 "use server";
 
+import { z } from "zod";
 import { AppError } from "@/modules/platform/errors";
+import { setUnitsPreference } from "@/db/queries/accounts";
 import {
   createFoundationSchema,
   createProjectSchema,
@@ -91,5 +93,16 @@ export const updateProjectSettingsAction = defineAction({
     if (!project) throw new AppError("forbidden");
     await recordAuditEvent({ projectId: input.projectId, actorId: ctx.auth.user.id, action: "project.settings-changed", detail: { ...settings } });
     return { saved: true };
+  },
+});
+
+export const setUnitsPreferenceAction = defineAction({
+  name: "account.setUnits",
+  access: { kind: "signedIn" },
+  schema: z.object({ units: z.enum(["si", "us"], "Pick SI or US customary") }),
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    await setUnitsPreference(ctx.auth.user.id, input.units);
+    return { units: input.units };
   },
 });

@@ -64,7 +64,7 @@ export async function signIn(port: RequestPort, email: string, password: string)
   await clearSignInFailures(email);
   await startSession(port, user.id);
   await recordAuditEvent({ actorId: user.id, action: "account.signed-in", detail: { address } });
-  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, mayCreateProjects: user.mayCreateProjects };
+  return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, mayCreateProjects: user.mayCreateProjects, unitsPreference: user.unitsPreference };
 }
 
 /** Always answers the same way, whether or not the account exists. */

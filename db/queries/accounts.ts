@@ -3,7 +3,7 @@ import { createHash, randomBytes } from "node:crypto";
 import { getDb } from "../client";
 import { oneTimeTokens, sessions, signInFailures, users, type UserRow } from "../schema";
 
-export type PublicUser = Pick<UserRow, "id" | "email" | "name" | "isAdmin" | "mayCreateProjects">;
+export type PublicUser = Pick<UserRow, "id" | "email" | "name" | "isAdmin" | "mayCreateProjects" | "unitsPreference">;
 
 const publicColumns = {
   id: users.id,
@@ -11,6 +11,7 @@ const publicColumns = {
   name: users.name,
   isAdmin: users.isAdmin,
   mayCreateProjects: users.mayCreateProjects,
+  unitsPreference: users.unitsPreference,
 };
 
 export function normaliseEmail(email: string): string {
@@ -185,4 +186,8 @@ export async function countRecentFailures(email: string, clientAddress: string, 
 
 export async function clearSignInFailures(email: string): Promise<void> {
   await getDb().delete(signInFailures).where(eq(signInFailures.email, normaliseEmail(email)));
+}
+
+export async function setUnitsPreference(userId: string, units: "si" | "us" | null): Promise<void> {
+  await getDb().update(users).set({ unitsPreference: units, updatedAt: new Date() }).where(eq(users.id, userId));
 }

@@ -13,6 +13,8 @@ export const users = pgTable("users", {
   passwordHash: text("password_hash"),
   isAdmin: boolean("is_admin").notNull().default(false),
   mayCreateProjects: boolean("may_create_projects").notNull().default(false),
+  // The person's display units; null follows each project's default.
+  unitsPreference: text("units_preference", { enum: ["si", "us"] }),
   ...stamps,
 });
 

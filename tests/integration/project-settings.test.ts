@@ -59,3 +59,20 @@ describe("project settings", () => {
     expect(r.status).toBe(403);
   });
 });
+
+describe("display units per person", () => {
+  it("saving a preference is kept on the account, and other people are unaffected", async () => {
+    const { setUnitsPreferenceAction } = await import("@/app/(desk)/actions");
+    const { getPublicUser } = await import("@/db/queries/accounts");
+    const checkerBefore = (await getPublicUser(fx.userIds.checker))?.unitsPreference;
+    const r = await callAction(setUnitsPreferenceAction, { units: "us" }, fx.cookies.designer);
+    expect(r.state.ok).toBe(true);
+    expect((await getPublicUser(fx.userIds.designer))?.unitsPreference).toBe("us");
+    expect((await getPublicUser(fx.userIds.checker))?.unitsPreference).toBe(checkerBefore);
+    expect(checkerBefore).not.toBe("us");
+    const bad = await callAction(setUnitsPreferenceAction, { units: "imperial" }, fx.cookies.designer);
+    expect(bad.state.ok).toBe(false);
+    if (!bad.state.ok) expect(bad.state.fieldErrors?.units?.[0]).toMatch(/SI or US/);
+    await callAction(setUnitsPreferenceAction, { units: "si" }, fx.cookies.designer);
+  });
+});

@@ -1,6 +1,7 @@
 "use client";
 
-import { createContext, useContext, useMemo, useSyncExternalStore, type ReactNode } from "react";
+import { createContext, useContext, useMemo, useState, type ReactNode } from "react";
+import { setUnitsPreferenceAction } from "../../(desk)/actions";
 import { fromDisplay, quantityKinds, toDisplay, type QuantityKindKey, type UnitSystemKey } from "@/modules/units";
 
 export type QuantityKey = QuantityKindKey;
@@ -17,23 +18,6 @@ export interface UnitsApi {
 }
 
 const Ctx = createContext<UnitsApi | null>(null);
-const STORAGE_KEY = "plinthwise.units";
-const CHANGE_EVENT = "plinthwise-units";
-
-function subscribe(onChange: () => void): () => void {
-  window.addEventListener("storage", onChange);
-  window.addEventListener(CHANGE_EVENT, onChange);
-  return () => {
-    window.removeEventListener("storage", onChange);
-    window.removeEventListener(CHANGE_EVENT, onChange);
-  };
-}
-
-function readSaved(): UnitSystem | null {
-  const v = window.localStorage.getItem(STORAGE_KEY);
-  return v === "si" || v === "us" ? v : null;
-}
-
 function trimNumber(v: number, decimals: number): string {
   if (!Number.isFinite(v)) return "";
   const abs = Math.abs(v);
@@ -41,16 +25,17 @@ function trimNumber(v: number, decimals: number): string {
   return String(Number(v.toFixed(decimals)));
 }
 
+/** `initial` is the person's saved choice, else the project's default; a switch is saved on the account. */
 export function UnitsProvider({ initial, children }: { initial: UnitSystem; children: ReactNode }) {
-  // The person's own choice, kept in this browser, wins over the project's default.
-  const saved = useSyncExternalStore(subscribe, readSaved, () => null);
-  const system: UnitSystem = saved ?? initial;
+  const [system, setSystemState] = useState<UnitSystem>(initial);
   const api = useMemo<UnitsApi>(
     () => ({
       system,
       setSystem: (s) => {
-        window.localStorage.setItem(STORAGE_KEY, s);
-        window.dispatchEvent(new Event(CHANGE_EVENT));
+        setSystemState(s);
+        const fd = new FormData();
+        fd.set("units", s);
+        void setUnitsPreferenceAction(null, fd);
       },
       unitLabel: (k) => (k === "ratio" ? "" : quantityKinds[k][system].symbol),
       toDisplayNumber: (k, si) => toDisplay(k, si, system),

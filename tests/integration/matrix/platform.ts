@@ -6,7 +6,14 @@ import {
   signInAction,
   signOutAction,
 } from "@/app/(auth)/actions";
-import { createFoundationAction, createProjectAction, inviteMemberAction, removeMemberAction, updateProjectSettingsAction } from "@/app/(desk)/actions";
+import {
+  createFoundationAction,
+  createProjectAction,
+  inviteMemberAction,
+  removeMemberAction,
+  setUnitsPreferenceAction,
+  updateProjectSettingsAction,
+} from "@/app/(desk)/actions";
 import type { ActionCase, RouteCase } from "../support/matrix-types";
 import type { MatrixRole } from "../support/fixture";
 
@@ -114,6 +121,7 @@ export const actionCases: ActionCase[] = [
     allowed: ["manager"],
     fields: async (fx) => ({ projectId: fx.projectId, memberId: await fx.createThrowawayMember() }),
   },
+  { name: "account.setUnits", action: setUnitsPreferenceAction, allowed: signedIn, fields: async () => ({ units: "si" }) },
   {
     name: "project.updateSettings",
     action: updateProjectSettingsAction,

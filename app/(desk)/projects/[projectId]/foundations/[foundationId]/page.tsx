@@ -12,7 +12,7 @@ export const metadata: Metadata = { title: "Foundation workspace" };
 
 export default async function FoundationPage({ params }: { params: Promise<{ projectId: string; foundationId: string }> }) {
   const { projectId, foundationId } = await params;
-  const { actor, project, role } = await requireProjectPage(projectId, "foundation.read");
+  const { actor, project, role, user } = await requireProjectPage(projectId, "foundation.read");
   if (!/^[0-9a-f-]{36}$/i.test(foundationId)) notFound();
   const foundation = await getFoundation(actor, projectId, foundationId);
   const draft = foundation ? await getDraft(actor, projectId, foundationId) : undefined;
@@ -31,7 +31,7 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         initialVersion={draft.version}
         initialInput={draft.input}
         initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
-        units={project.units}
+        units={user.unitsPreference ?? project.units}
         projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
       />
     </div>
