@@ -78,7 +78,9 @@ describe("route handlers", () => {
     for (const c of cases.routes.filter((r) => r.method === method)) {
       for (const role of matrixRoles) {
         const { params, body } = await c.request(fx, role);
-        const res = await callRoute(c.route, c.method, params, { cookie: fx.cookies[role], body });
+        const userId = role === "anonymous" ? null : fx.userIds[role];
+        const cookie = c.freshSession && userId ? await cookieFor(userId) : fx.cookies[role];
+        const res = await callRoute(c.route, c.method, params, { cookie, body });
         const allowed = c.allowed.includes(role);
         const text = await res.text();
         if (allowed && (res.status === 401 || res.status === 403 || res.status >= 500)) problems.push(`${role} ${method} ${c.route}: expected allowed, got ${res.status} ${text.slice(0, 120)}`);

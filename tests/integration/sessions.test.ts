@@ -95,3 +95,24 @@ describe("sessions", () => {
     }
   });
 });
+
+describe("API sign-in for scripts", () => {
+  it("POST /api/v1/session signs in, DELETE signs out", async () => {
+    const res = await callRoute("v1/session", "POST", {}, { body: { email, password } });
+    expect(res.status).toBe(200);
+    const set = res.headers.getSetCookie();
+    const cookie = sessionCookieFrom(set);
+    expect(cookie).not.toBeNull();
+    expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(200);
+    expect((await callRoute("v1/session", "DELETE", {}, { cookie })).status).toBe(200);
+    expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(401);
+  });
+
+  it("a wrong password is 401, a malformed body 400 naming the field", async () => {
+    expect((await callRoute("v1/session", "POST", {}, { body: { email, password: "nope" }, headers: { "x-forwarded-for": "10.77.0.1" } })).status).toBe(401);
+    const bad = await callRoute("v1/session", "POST", {}, { body: { email: "x" } });
+    expect(bad.status).toBe(400);
+    const j = (await bad.json()) as { error: { issues: { path: string }[] } };
+    expect(j.error.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["email", "password"]));
+  });
+});

@@ -25,6 +25,14 @@ const unique = (prefix: string) => `${prefix}${Date.now().toString(36)}${(seq +=
 export const routeCases: RouteCase[] = [
   { route: "health", method: "GET", allowed: everyone, request: async () => ({ params: {} }) },
   { route: "v1/session", method: "GET", allowed: signedIn, request: async () => ({ params: {} }) },
+  {
+    route: "v1/session",
+    method: "POST",
+    allowed: everyone,
+    request: async () => ({ params: {}, body: { email: "outsider@elsewhere.test", password: DEMO_PASSWORD } }),
+  },
+  // Signing out ends the caller's session: the matrix runs it last (see role-matrix.test.ts).
+  { route: "v1/session", method: "DELETE", allowed: signedIn, request: async () => ({ params: {} }), freshSession: true },
   { route: "v1/projects", method: "GET", allowed: signedIn, request: async () => ({ params: {} }) },
   {
     route: "v1/projects",

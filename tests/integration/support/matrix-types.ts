@@ -10,6 +10,8 @@ export interface RouteCase {
   method: "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
   allowed: MatrixRole[];
   request: (fx: Fixture, role: MatrixRole) => Promise<{ params: Record<string, string>; body?: unknown }>;
+  /** Ends the session it runs in: run each role on a fresh session. */
+  freshSession?: boolean;
 }
 
 export interface ActionCase {

@@ -1,0 +1,172 @@
+// HTTP part of `npm run bench`: latency and throughput of the production build on
+// loopback only, bounded in time. It starts its own `next start` (on the build in
+// .next, building it first when missing) against the local database that
+// `npm start` set up, signs a session for a demo account directly in the
+// database, and drives the endpoints with autocannon.
+import autocannon from "autocannon";
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { existsSync, readFileSync } from "node:fs";
+import path from "node:path";
+
+export interface HttpStats {
+  name: string;
+  connections: number;
+  durationS: number;
+  requests: number;
+  errors: number;
+  non2xx: number;
+  throughputRps: number;
+  p50Ms: number;
+  p95Ms: number;
+  p99Ms: number;
+}
+
+export interface HttpTarget {
+  name: string;
+  method: "GET" | "POST";
+  path: string;
+  body?: string;
+  headers?: Record<string, string>;
+}
+
+function percentile(sorted: number[], p: number): number {
+  if (!sorted.length) return Number.NaN;
+  const i = Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1));
+  return sorted[i] as number;
+}
+
+/** One bounded autocannon run; latencies are collected per response, so p95 is exact. */
+export async function runLoad(baseUrl: string, target: HttpTarget, connections: number, durationS: number): Promise<HttpStats> {
+  const latencies: number[] = [];
+  let non2xx = 0;
+  const result = await new Promise<autocannon.Result>((resolve, reject) => {
+    const instance = autocannon(
+      {
+        url: `${baseUrl}${target.path}`,
+        method: target.method,
+        body: target.body,
+        headers: { "content-type": "application/json", ...(target.headers ?? {}) },
+        connections,
+        duration: durationS,
+        timeout: 10,
+      },
+      (err: unknown, res: autocannon.Result) => (err ? reject(err instanceof Error ? err : new Error(String(err))) : resolve(res)),
+    );
+    instance.on("response", (_client: unknown, statusCode: number, _bytes: number, responseTimeMs: number) => {
+      latencies.push(responseTimeMs);
+      if (statusCode < 200 || statusCode >= 300) non2xx += 1;
+    });
+  });
+  latencies.sort((a, b) => a - b);
+  return {
+    name: target.name,
+    connections,
+    durationS,
+    requests: latencies.length,
+    errors: result.errors + result.timeouts,
+    non2xx,
+    throughputRps: latencies.length / durationS,
+    p50Ms: percentile(latencies, 50),
+    p95Ms: percentile(latencies, 95),
+    p99Ms: percentile(latencies, 99),
+  };
+}
+
+async function waitForHealth(baseUrl: string, timeoutMs: number): Promise<boolean> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    try {
+      const r = await fetch(`${baseUrl}/api/health`);
+      if (r.ok) return true;
+    } catch {
+      // not up yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  return false;
+}
+
+function readLocalSecret(root: string): string | undefined {
+  if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
+  const file = path.join(root, ".env.local");
+  if (!existsSync(file)) return undefined;
+  return /^SESSION_SECRET=(.+)$/m.exec(readFileSync(file, "utf8"))?.[1];
+}
+
+export interface BenchServer {
+  baseUrl: string;
+  cookieFor: (email: string) => Promise<string>;
+  stop: () => Promise<void>;
+}
+
+/** Starts the production server for the benchmark, or explains why it cannot. */
+export async function startBenchServer(port = 3400): Promise<BenchServer | string> {
+  const root = process.cwd();
+  const secret = readLocalSecret(root);
+  if (!secret) return "no SESSION_SECRET (run `npm start` once first)";
+  process.env.SESSION_SECRET = secret;
+  process.env.DATABASE_URL ??= "postgres://plinthwise@127.0.0.1:54329/plinthwise";
+  const { getPublicUser, getUserByEmail } = await import("../db/queries/accounts");
+  try {
+    await getPublicUser("00000000-0000-0000-0000-000000000000");
+  } catch {
+    return `the database at ${process.env.DATABASE_URL} is not reachable (run \`npm start\` once first)`;
+  }
+  if (!existsSync(path.join(root, ".next", "BUILD_ID"))) {
+    process.stdout.write("building the production bundle for the HTTP benchmark...\n");
+    const b = spawnSync(path.join(root, "node_modules/.bin/next"), ["build"], { stdio: "ignore" });
+    if (b.status !== 0) return "next build failed";
+  }
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const child: ChildProcess = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
+    env: { ...process.env, NODE_ENV: "production", APP_URL: baseUrl, SMTP_URL: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525" },
+    stdio: "ignore",
+    detached: true,
+  });
+  if (!(await waitForHealth(baseUrl, 60_000))) {
+    child.kill("SIGTERM");
+    return "the benchmark server did not start";
+  }
+  const { createSession } = await import("../db/queries/accounts");
+  const { sealSessionCookie, SESSION_COOKIE } = await import("../app/_lib/session");
+  return {
+    baseUrl,
+    cookieFor: async (email: string) => {
+      const user = await getUserByEmail(email);
+      if (!user) throw new Error(`no account ${email}: seed the demo first`);
+      const { id } = await createSession(user.id);
+      return `${SESSION_COOKIE}=${encodeURIComponent(await sealSessionCookie(id))}`;
+    },
+    stop: async () => {
+      if (child.pid) process.kill(-child.pid, "SIGTERM");
+      const { closeDb } = await import("../db/client");
+      await closeDb();
+    },
+  };
+}
+
+export function formatHttpTable(rows: HttpStats[]): string {
+  const head = ["endpoint", "clients", "s", "requests", "req/s", "p50 ms", "p95 ms", "p99 ms", "errors", "non-2xx"];
+  const body = rows.map((r) => [
+    r.name,
+    String(r.connections),
+    String(r.durationS),
+    String(r.requests),
+    r.throughputRps.toFixed(1),
+    r.p50Ms.toFixed(1),
+    r.p95Ms.toFixed(1),
+    r.p99Ms.toFixed(1),
+    String(r.errors),
+    String(r.non2xx),
+  ]);
+  const widths = head.map((h, c) => Math.max(h.length, ...body.map((b) => (b[c] ?? "").length)));
+  const line = (cells: string[]) => cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c] ?? 0) : cell.padStart(widths[c] ?? 0))).join("  ");
+  return [line(head), ...body.map(line)].join("\n");
+}
+
+/** The design-desk figure: POST /api/v1/calculate under 20 concurrent clients for 10 s. */
+export async function benchCalculateApi(server: BenchServer, inputFile: string, durationS = 10): Promise<HttpStats> {
+  const cookie = await server.cookieFor("designer@plinthwise.test");
+  const body = readFileSync(inputFile, "utf8");
+  return runLoad(server.baseUrl, { name: "POST /api/v1/calculate", method: "POST", path: "/api/v1/calculate", body, headers: { cookie } }, 20, durationS);
+}
