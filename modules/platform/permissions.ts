@@ -12,13 +12,21 @@ export const permissionMap = {
   "foundation.create": ["manager", "designer"],
   "draft.edit": ["manager", "designer"],
   "calc.run": ["manager", "designer", "checker", "viewer"],
+  // Revisions: issued ones are read by everyone but vendors; a checker or manager
+  // decides (returns or approves), never on a revision they issued themselves
+  // (that rule needs the revision, so the revision code checks it as well).
+  "revision.read": ["manager", "designer", "checker", "viewer"],
   "revision.issue": ["manager", "designer"],
-  "revision.review": ["manager", "checker"],
-  "revision.approve": ["manager", "checker"],
+  "revision.comment": ["manager", "designer", "checker"],
+  "revision.decide": ["manager", "checker"],
+  // Vendor data: designers and managers ask and review; a vendor sees and answers
+  // only the requests addressed to their own company (checked on the request).
   "vendorRequest.create": ["manager", "designer"],
   "vendorRequest.readOwn": ["vendor", "manager", "designer"],
   "vendorRequest.answer": ["vendor"],
+  "vendorSubmission.review": ["manager", "designer"],
   "package.export": ["manager", "designer", "checker", "viewer"],
+  "register.export": ["manager"],
 } as const satisfies Record<string, readonly ProjectRole[]>;
 
 export type ProjectPermission = keyof typeof permissionMap;
