@@ -8,6 +8,8 @@ export class ComplexSystem6 {
   readonly re = new Float64Array(36);
   readonly im = new Float64Array(36);
   readonly pivot = new Int32Array(6);
+  /** Row order after all pivoting: row i of the factors came from row perm[i] of S. */
+  private readonly perm = new Int32Array(6);
   /** Reciprocals of the U diagonal, so a solve multiplies instead of dividing. */
   private readonly invRe = new Float64Array(6);
   private readonly invIm = new Float64Array(6);
@@ -32,6 +34,8 @@ export class ComplexSystem6 {
   factorise(): void {
     const re = this.re;
     const im = this.im;
+    const perm = this.perm;
+    for (let i = 0; i < 6; i++) perm[i] = i;
     for (let col = 0; col < 6; col++) {
       let p = col;
       let best = -1;
@@ -46,6 +50,9 @@ export class ComplexSystem6 {
       }
       this.pivot[col] = p;
       if (p !== col) {
+        const t = perm[col] as number;
+        perm[col] = perm[p] as number;
+        perm[p] = t;
         for (let j = 0; j < 6; j++) {
           const t1 = re[col * 6 + j] as number;
           re[col * 6 + j] = re[p * 6 + j] as number;
@@ -77,6 +84,63 @@ export class ComplexSystem6 {
           re[r * 6 + j] = (re[r * 6 + j] as number) - (lr * ur - li * ui);
           im[r * 6 + j] = (im[r * 6 + j] as number) - (lr * ui + li * ur);
         }
+      }
+    }
+  }
+
+  /**
+   * Solves S x_k = b_k for several right-hand sides at once, x_k written to xr, xi at offset
+   * offsets[k]. The innermost loop runs over the right-hand sides, so their independent
+   * updates pipeline (the single-RHS solve is latency bound).
+   */
+  solveMany(bRe: Float64Array[], bIm: (Float64Array | null)[], offsets: Int32Array, xr: Float64Array, xi: Float64Array): void {
+    const re = this.re;
+    const im = this.im;
+    const perm = this.perm;
+    const n = offsets.length;
+    for (let k = 0; k < n; k++) {
+      const o = offsets[k] as number;
+      const br = bRe[k] as Float64Array;
+      const bi = bIm[k] ?? null;
+      for (let i = 0; i < 6; i++) {
+        const src = perm[i] as number;
+        xr[o + i] = br[src] as number;
+        xi[o + i] = bi === null ? 0 : (bi[src] as number);
+      }
+    }
+    for (let i = 1; i < 6; i++) {
+      for (let j = 0; j < i; j++) {
+        const lr = re[i * 6 + j] as number;
+        const li = im[i * 6 + j] as number;
+        for (let k = 0; k < n; k++) {
+          const o = offsets[k] as number;
+          const br = xr[o + j] as number;
+          const bi = xi[o + j] as number;
+          xr[o + i] = (xr[o + i] as number) - (lr * br - li * bi);
+          xi[o + i] = (xi[o + i] as number) - (lr * bi + li * br);
+        }
+      }
+    }
+    for (let i = 5; i >= 0; i--) {
+      for (let j = i + 1; j < 6; j++) {
+        const ur = re[i * 6 + j] as number;
+        const ui = im[i * 6 + j] as number;
+        for (let k = 0; k < n; k++) {
+          const o = offsets[k] as number;
+          const br = xr[o + j] as number;
+          const bi = xi[o + j] as number;
+          xr[o + i] = (xr[o + i] as number) - (ur * br - ui * bi);
+          xi[o + i] = (xi[o + i] as number) - (ur * bi + ui * br);
+        }
+      }
+      const ir = this.invRe[i] as number;
+      const ii = this.invIm[i] as number;
+      for (let k = 0; k < n; k++) {
+        const o = offsets[k] as number;
+        const sr = xr[o + i] as number;
+        const si = xi[o + i] as number;
+        xr[o + i] = sr * ir - si * ii;
+        xi[o + i] = sr * ii + si * ir;
       }
     }
   }

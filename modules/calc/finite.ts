@@ -1,38 +1,36 @@
 // The result must never carry NaN or Infinity: checked before it leaves the engine.
 
-const NO_SKIP: ReadonlySet<string> = new Set();
+/** True when every number reachable from value is finite; objects in `skip` are not entered. */
+function allFinite(value: unknown, skip: ReadonlySet<object>): boolean {
+  if (typeof value === "number") return value - value === 0;
+  if (value === null || typeof value !== "object" || skip.has(value)) return true;
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) if (!allFinite(value[i], skip)) return false;
+    return true;
+  }
+  for (const key in value) if (!allFinite((value as Record<string, unknown>)[key], skip)) return false;
+  return true;
+}
 
-function fail(path: string): never {
-  throw new Error(`internal error: non-finite number at ${path || "(root)"}`);
+/** JSON path of the first non-finite number (slow; only on failure). */
+function firstBad(value: unknown, path: string, skip: ReadonlySet<object>): string | null {
+  if (typeof value === "number") return value - value === 0 ? null : path || "(root)";
+  if (value === null || typeof value !== "object" || skip.has(value)) return null;
+  const entries: [string, unknown][] = Array.isArray(value)
+    ? value.map((v, i) => [`${path}[${i}]`, v])
+    : Object.entries(value).map(([k, v]) => [path ? `${path}.${k}` : k, v]);
+  for (const [p, v] of entries) {
+    const bad = firstBad(v, p, skip);
+    if (bad) return bad;
+  }
+  return null;
 }
 
 /**
- * Throws with the JSON path of the first non-finite number in a value. Paths in `skip` (e.g.
- * "sweep.series") are not entered (the sweep checks its own long series as it writes them).
+ * Throws with the JSON path of the first non-finite number in a value. Objects in `skip` (the
+ * sweep's long series, which the sweep loop checks as it writes them) are not entered.
  */
-export function assertFinite(value: unknown, path = "", skip: ReadonlySet<string> = NO_SKIP): void {
-  if (typeof value === "number") {
-    if (!Number.isFinite(value)) fail(path);
-    return;
-  }
-  if (Array.isArray(value)) {
-    const n = value.length;
-    for (let i = 0; i < n; i++) {
-      const v: unknown = value[i];
-      // fast path for the long numeric series of the sweep
-      if (typeof v === "number") {
-        if (v - v !== 0) fail(`${path}[${i}]`);
-      } else {
-        assertFinite(v, `${path}[${i}]`, skip);
-      }
-    }
-    return;
-  }
-  if (value !== null && typeof value === "object") {
-    for (const key in value) {
-      const child = path ? `${path}.${key}` : key;
-      if (skip.has(child)) continue;
-      assertFinite((value as Record<string, unknown>)[key], child, skip);
-    }
-  }
+export function assertFinite(value: unknown, skip: ReadonlySet<object> = new Set()): void {
+  if (allFinite(value, skip)) return;
+  throw new Error(`internal error: non-finite number at ${firstBad(value, "", skip) ?? "(unknown)"}`);
 }

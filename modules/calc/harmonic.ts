@@ -16,12 +16,34 @@ export function responseSet(loadCount: number): ResponseSet {
   return { re: new Float64Array(6 * loadCount), im: new Float64Array(6 * loadCount) };
 }
 
+interface SolvePlan {
+  re: Float64Array[];
+  im: (Float64Array | null)[];
+  offsets: Int32Array;
+  combined: { l: number; a: number; b: number }[];
+}
+
+const plans = new WeakMap<UnitLoad[], SolvePlan>();
+
+/** Which loads need a solve (all at once) and which are combinations of others; cached per list. */
+function solvePlan(loads: UnitLoad[]): SolvePlan {
+  const cached = plans.get(loads);
+  if (cached) return cached;
+  const direct = loads.map((load, l) => ({ load, l })).filter(({ load }) => !load.combine);
+  const plan: SolvePlan = {
+    re: direct.map(({ load }) => load.re),
+    im: direct.map(({ load }) => (load.realOnly ? null : load.im)),
+    offsets: Int32Array.from(direct, ({ l }) => 6 * l),
+    combined: loads.flatMap((load, l) => (load.combine ? [{ l, a: load.combine.a, b: load.combine.b }] : [])),
+  };
+  plans.set(loads, plan);
+  return plan;
+}
+
 export class HarmonicSolver {
   readonly system = new ComplexSystem6();
   readonly k = new Float64Array(6);
   readonly c = new Float64Array(6);
-  private readonly xr = new Float64Array(6);
-  private readonly xi = new Float64Array(6);
   omega = 0;
 
   constructor(
@@ -43,29 +65,19 @@ export class HarmonicSolver {
    * U[a] - i U[b] from the two loads it combines (linearity), without a solve.
    */
   solveAll(loads: UnitLoad[], out: ResponseSet): void {
-    const xr = this.xr;
-    const xi = this.xi;
+    const plan = solvePlan(loads);
+    this.system.solveMany(plan.re, plan.im, plan.offsets, out.re, out.im);
     const re = out.re;
     const im = out.im;
-    for (let l = 0; l < loads.length; l++) {
-      const load = loads[l] as UnitLoad;
+    for (const { l, a, b } of plan.combined) {
       const o = 6 * l;
-      const comb = load.combine;
-      if (comb) {
-        const a = 6 * comb.a;
-        const b = 6 * comb.b;
-        for (let j = 0; j < 6; j++) {
-          // (ar + i ai) - i (br + i bi) = (ar + bi) + i (ai - br)
-          re[o + j] = (re[a + j] as number) + (im[b + j] as number);
-          im[o + j] = (im[a + j] as number) - (re[b + j] as number);
-        }
-        continue;
+      const oa = 6 * a;
+      const ob = 6 * b;
+      for (let j = 0; j < 6; j++) {
+        // (ar + i ai) - i (br + i bi) = (ar + bi) + i (ai - br)
+        re[o + j] = (re[oa + j] as number) + (im[ob + j] as number);
+        im[o + j] = (im[oa + j] as number) - (re[ob + j] as number);
       }
-      xr.set(load.re);
-      xi.set(load.im);
-      this.system.solveInPlace(xr, xi);
-      re.set(xr, o);
-      im.set(xi, o);
     }
   }
 
@@ -113,6 +125,59 @@ export class HarmonicSolver {
       if (m > largest) largest = m;
     }
     return largest;
+  }
+
+  /**
+   * Largest displacement component max_axis |u_p| of response l at each point, scaled, written
+   * to out[i] (one square root per point: the sweep's hot path).
+   */
+  largestPointAmplitudes(u: ResponseSet, l: number, coords: Float64Array, scale: number, out: Float64Array): void {
+    const o = 6 * l;
+    const ur = u.re;
+    const ui = u.im;
+    const Uxr = ur[o] as number;
+    const Uyr = ur[o + 1] as number;
+    const Uzr = ur[o + 2] as number;
+    const txr = ur[o + 3] as number;
+    const tyr = ur[o + 4] as number;
+    const tzr = ur[o + 5] as number;
+    const Uxi = ui[o] as number;
+    const Uyi = ui[o + 1] as number;
+    const Uzi = ui[o + 2] as number;
+    const txi = ui[o + 3] as number;
+    const tyi = ui[o + 4] as number;
+    const tzi = ui[o + 5] as number;
+    const n = coords.length / 3;
+    for (let i = 0; i < n; i++) {
+      const px = coords[3 * i] as number;
+      const py = coords[3 * i + 1] as number;
+      const pz = coords[3 * i + 2] as number;
+      const axr = Uxr + tyr * pz - tzr * py;
+      const axi = Uxi + tyi * pz - tzi * py;
+      const ayr = Uyr + tzr * px - txr * pz;
+      const ayi = Uyi + tzi * px - txi * pz;
+      const azr = Uzr + txr * py - tyr * px;
+      const azi = Uzi + txi * py - tyi * px;
+      const ax = axr * axr + axi * axi;
+      const ay = ayr * ayr + ayi * ayi;
+      const az = azr * azr + azi * azi;
+      out[i] = Math.sqrt(ax > ay ? (ax > az ? ax : az) : ay > az ? ay : az) * scale;
+    }
+  }
+
+  /** |soil reaction| (vector norm of the translational per-axis amplitudes) of response l for a unit load. */
+  transmittedNorm(u: ResponseSet, l: number): number {
+    let sum = 0;
+    for (let j = 0; j < 3; j++) {
+      const kj = this.k[j] as number;
+      const damp = 2 * this.beta * kj + this.omega * (this.c[j] as number);
+      const ur = u.re[6 * l + j] as number;
+      const ui = u.im[6 * l + j] as number;
+      const fr = kj * ur - damp * ui;
+      const fi = kj * ui + damp * ur;
+      sum += fr * fr + fi * fi;
+    }
+    return Math.sqrt(sum);
   }
 
   /** Per-axis amplitudes of the translational soil reaction of response l, scaled. Returns the vector norm. */

@@ -82,12 +82,9 @@ function envelopes(rotors: RotorModel[], solver: HarmonicSolver, modesHz: number
       const f = forceAt(rotor.forceAtRated, rotor.omegaRated, omega);
       solver.solveAll(rotor.loads, u);
       for (let l = 0; l < rotor.loads.length; l++) {
-        solver.pointAmplitudes(u, l, rotor.pointCoords, f, amp);
+        solver.largestPointAmplitudes(u, l, rotor.pointCoords, f, amp);
         for (let i = 0; i < n; i++) {
-          const a = amp[3 * i] as number;
-          const b = amp[3 * i + 1] as number;
-          const c = amp[3 * i + 2] as number;
-          const d = a > b ? (a > c ? a : c) : b > c ? b : c;
+          const d = amp[i] as number;
           const v = d * omega;
           const at = l * n + i;
           if (d > (e.dMax[at] as number)) e.dMax[at] = d;

@@ -48,6 +48,8 @@ export interface UnitLoad {
    * directions 90 degrees apart), so the solver needs no factor solve for it.
    */
   combine?: { a: number; b: number };
+  /** True when im is all zero (vertical and horizontal cases). */
+  realOnly: boolean;
 }
 
 /** Weights of the bearings: static, 1/n each in phase; couple, +1/2 and -1/2 at the two end bearings. */
@@ -87,7 +89,7 @@ export function unitLoads(rotor: RotorInput, bearings: Vec3[]): UnitLoad[] {
           im[3 + j] = (im[3 + j] as number) + (mi[j] as number);
         }
       });
-      const load: UnitLoad = { case: loadCase, unbalanceMode: mode, re, im };
+      const load: UnitLoad = { case: loadCase, unbalanceMode: mode, re, im, realOnly: im.every((v) => v === 0) };
       if (loadCase === "rotating") {
         // shaft x: [0, 1, -i] = horizontal - i vertical; shaft y: [-i, 0, 1] = vertical - i horizontal
         const vertical = loads.length - 2;

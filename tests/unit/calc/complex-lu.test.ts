@@ -15,15 +15,30 @@ describe("complex 6 x 6 LU with partial pivoting", () => {
           sys.im[i] = a[36 + i]! + (i % 7 === 0 ? 25 : 0); // diagonally dominant in the imaginary part: regular
         }
         const S = Array.from({ length: 36 }, (_, i) => new Complex(sys.re[i]!, sys.im[i]!));
-        const xr = Float64Array.from(b.slice(0, 6));
-        const xi = Float64Array.from(b.slice(6));
+        const bRe = Float64Array.from(b.slice(0, 6));
+        const bIm = Float64Array.from(b.slice(6));
+        const xr = Float64Array.from(bRe);
+        const xi = Float64Array.from(bIm);
         sys.factorise();
         sys.solveInPlace(xr, xi);
-        for (let i = 0; i < 6; i++) {
-          let sum = new Complex(0, 0);
-          for (let j = 0; j < 6; j++) sum = sum.add(S[i * 6 + j]!.mul(new Complex(xr[j]!, xi[j]!)));
-          expect(sum.sub(new Complex(b[i]!, b[6 + i]!)).abs()).toBeLessThan(1e-9 * (1 + Math.hypot(b[i]!, b[6 + i]!)) * 100);
-        }
+        // the multi-RHS solve: the same b twice (second slot at offset 6) and a real b = Re(b)
+        const mr = new Float64Array(18);
+        const mi = new Float64Array(18);
+        sys.solveMany([bRe, bRe, bRe], [bIm, bIm, null], Int32Array.from([0, 6, 12]), mr, mi);
+        const residual = (x: (j: number) => Complex, rhs: (i: number) => Complex) => {
+          let worst = 0;
+          for (let i = 0; i < 6; i++) {
+            let sum = new Complex(0, 0);
+            for (let j = 0; j < 6; j++) sum = sum.add(S[i * 6 + j]!.mul(x(j)));
+            worst = Math.max(worst, sum.sub(rhs(i)).abs() / (1 + rhs(i).abs()));
+          }
+          return worst;
+        };
+        const full = (i: number) => new Complex(b[i]!, b[6 + i]!);
+        expect(residual((j) => new Complex(xr[j]!, xi[j]!), full)).toBeLessThan(1e-7);
+        expect(residual((j) => new Complex(mr[j]!, mi[j]!), full)).toBeLessThan(1e-7);
+        expect(residual((j) => new Complex(mr[6 + j]!, mi[6 + j]!), full)).toBeLessThan(1e-7);
+        expect(residual((j) => new Complex(mr[12 + j]!, mi[12 + j]!), (i) => new Complex(b[i]!, 0))).toBeLessThan(1e-7);
       }),
       { numRuns: 200 },
     );
