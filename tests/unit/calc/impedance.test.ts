@@ -105,7 +105,7 @@ describe("Gazetas (1991) static stiffness in the circular limit", () => {
     for (const v of Object.values(embedded)) expect(v).toBeGreaterThan(1);
   });
 
-  it("dynamic multipliers k_rx = 1 - 0.20 a0, k_ry = 1 - 0.30 a0, k_t = 1 - 0.14 a0 (recalled), k_x = 1", () => {
+  it("dynamic multipliers k_rx = 1 - 0.20 a0, k_ry = 1 - 0.30 a0, k_t = 1 - 0.14 a0 (recalled from memory), k_x = 1", () => {
     const k = gazetasDynamicMultipliers(0.8);
     expect(k.x).toBe(1);
     expect(k.rx).toBeCloseTo(1 - 0.2 * 0.8, 12);
