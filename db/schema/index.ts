@@ -3,3 +3,4 @@ export * from "./projects";
 export * from "./mail";
 export * from "./audit";
 export * from "./drafts";
+export * from "./revisions";

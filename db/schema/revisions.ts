@@ -1,0 +1,92 @@
+import { boolean, check, index, integer, jsonb, pgTable, text, timestamp, unique, uuid, type AnyPgColumn } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { users } from "./accounts";
+import { foundations, projects } from "./projects";
+
+const stamps = {
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+};
+
+// One row per issue for check. Immutable once inserted: a trigger (migration
+// "revisions-immutable") refuses every UPDATE and DELETE, so what a checker signed
+// is what stays on record. Its state lives in revision_decisions.
+export const revisions = pgTable(
+  "revisions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    // Restrict, not cascade: an issued revision outlives nothing it was issued from.
+    foundationId: uuid("foundation_id")
+      .notNull()
+      .references(() => foundations.id, { onDelete: "restrict" }),
+    projectId: uuid("project_id")
+      .notNull()
+      .references(() => projects.id, { onDelete: "restrict" }),
+    // 1, 2, 3 … per foundation; the unique pair makes two racing issues yield one winner.
+    sequence: integer("sequence").notNull(),
+    // Per the project's revision scheme at the time of issue (A, B … or 0, 1 …).
+    label: text("label").notNull(),
+    input: jsonb("input").notNull(),
+    result: jsonb("result").notNull(),
+    engineVersion: text("engine_version").notNull(),
+    // SHA-256 (hex) of the canonical input JSON (keys sorted): identical drafts are not re-issued.
+    inputHash: text("input_hash").notNull(),
+    // The vendor submission the draft used; no FK, the vendor tables belong to another module.
+    vendorSubmissionId: uuid("vendor_submission_id"),
+    issuedById: uuid("issued_by_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
+    ...stamps,
+  },
+  (t) => [
+    unique("revisions_foundation_sequence_uq").on(t.foundationId, t.sequence),
+    unique("revisions_foundation_label_uq").on(t.foundationId, t.label),
+    index("revisions_project_idx").on(t.projectId),
+    check("revisions_sequence_positive", sql`${t.sequence} > 0`),
+  ],
+);
+
+// A checker's (or manager's) return or approval. UNIQUE on the revision, so of two
+// racing decisions exactly one row exists; the insert itself refuses the issuer.
+export const revisionDecisions = pgTable("revision_decisions", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  revisionId: uuid("revision_id")
+    .notNull()
+    .unique("revision_decisions_revision_uq")
+    .references(() => revisions.id, { onDelete: "restrict" }),
+  outcome: text("outcome", { enum: ["returned", "approved"] }).notNull(),
+  note: text("note").notNull().default(""),
+  decidedById: uuid("decided_by_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "restrict" }),
+  decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
+  ...stamps,
+});
+
+// Review comments on a revision, on the whole (fieldPath null) or on one field
+// (e.g. `soil.poissonRatio`); answers point at their parent.
+export const revisionComments = pgTable(
+  "revision_comments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    revisionId: uuid("revision_id")
+      .notNull()
+      .references(() => revisions.id, { onDelete: "restrict" }),
+    parentId: uuid("parent_id").references((): AnyPgColumn => revisionComments.id, { onDelete: "restrict" }),
+    fieldPath: text("field_path"),
+    body: text("body").notNull(),
+    resolved: boolean("resolved").notNull().default(false),
+    authorId: uuid("author_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    resolvedById: uuid("resolved_by_id").references(() => users.id, { onDelete: "set null" }),
+    resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    ...stamps,
+  },
+  (t) => [index("revision_comments_revision_idx").on(t.revisionId, t.createdAt)],
+);
+
+export type RevisionRow = typeof revisions.$inferSelect;
+export type RevisionDecisionRow = typeof revisionDecisions.$inferSelect;
+export type RevisionCommentRow = typeof revisionComments.$inferSelect;
