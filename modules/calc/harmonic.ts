@@ -82,56 +82,11 @@ export class HarmonicSolver {
   }
 
   /**
-   * Per-axis amplitudes |u_p| of response l at each point (coords flat, relative to O),
-   * scaled by `scale`, written to out[3 i + axis] when out is given. Returns the largest.
+   * Amplitudes of response l at each point (coords flat, relative to O), scaled by `scale`:
+   * per axis |u_p| in out[3 i + axis] when `perAxis`, else only the largest component in out[i]
+   * (one square root per point: the sweep's and the envelopes' hot path).
    */
-  pointAmplitudes(u: ResponseSet, l: number, coords: Float64Array, scale: number, out: Float64Array | null): number {
-    const o = 6 * l;
-    const ur = u.re;
-    const ui = u.im;
-    const Uxr = ur[o] as number;
-    const Uyr = ur[o + 1] as number;
-    const Uzr = ur[o + 2] as number;
-    const txr = ur[o + 3] as number;
-    const tyr = ur[o + 4] as number;
-    const tzr = ur[o + 5] as number;
-    const Uxi = ui[o] as number;
-    const Uyi = ui[o + 1] as number;
-    const Uzi = ui[o + 2] as number;
-    const txi = ui[o + 3] as number;
-    const tyi = ui[o + 4] as number;
-    const tzi = ui[o + 5] as number;
-    let largest = 0;
-    const n = coords.length / 3;
-    for (let i = 0; i < n; i++) {
-      const px = coords[3 * i] as number;
-      const py = coords[3 * i + 1] as number;
-      const pz = coords[3 * i + 2] as number;
-      const axr = Uxr + tyr * pz - tzr * py;
-      const axi = Uxi + tyi * pz - tzi * py;
-      const ayr = Uyr + tzr * px - txr * pz;
-      const ayi = Uyi + tzi * px - txi * pz;
-      const azr = Uzr + txr * py - tyr * px;
-      const azi = Uzi + txi * py - tyi * px;
-      const ax = Math.sqrt(axr * axr + axi * axi) * scale;
-      const ay = Math.sqrt(ayr * ayr + ayi * ayi) * scale;
-      const az = Math.sqrt(azr * azr + azi * azi) * scale;
-      if (out) {
-        out[3 * i] = ax;
-        out[3 * i + 1] = ay;
-        out[3 * i + 2] = az;
-      }
-      const m = ax > ay ? (ax > az ? ax : az) : ay > az ? ay : az;
-      if (m > largest) largest = m;
-    }
-    return largest;
-  }
-
-  /**
-   * Largest displacement component max_axis |u_p| of response l at each point, scaled, written
-   * to out[i] (one square root per point: the sweep's hot path).
-   */
-  largestPointAmplitudes(u: ResponseSet, l: number, coords: Float64Array, scale: number, out: Float64Array): void {
+  pointAmplitudes(u: ResponseSet, l: number, coords: Float64Array, scale: number, out: Float64Array, perAxis: boolean): void {
     const o = 6 * l;
     const ur = u.re;
     const ui = u.im;
@@ -152,6 +107,7 @@ export class HarmonicSolver {
       const px = coords[3 * i] as number;
       const py = coords[3 * i + 1] as number;
       const pz = coords[3 * i + 2] as number;
+      // u_p = U_t + Theta x p
       const axr = Uxr + tyr * pz - tzr * py;
       const axi = Uxi + tyi * pz - tzi * py;
       const ayr = Uyr + tzr * px - txr * pz;
@@ -161,12 +117,21 @@ export class HarmonicSolver {
       const ax = axr * axr + axi * axi;
       const ay = ayr * ayr + ayi * ayi;
       const az = azr * azr + azi * azi;
-      out[i] = Math.sqrt(ax > ay ? (ax > az ? ax : az) : ay > az ? ay : az) * scale;
+      if (perAxis) {
+        out[3 * i] = Math.sqrt(ax) * scale;
+        out[3 * i + 1] = Math.sqrt(ay) * scale;
+        out[3 * i + 2] = Math.sqrt(az) * scale;
+      } else {
+        out[i] = Math.sqrt(ax > ay ? (ax > az ? ax : az) : ay > az ? ay : az) * scale;
+      }
     }
   }
 
-  /** |soil reaction| (vector norm of the translational per-axis amplitudes) of response l for a unit load. */
-  transmittedNorm(u: ResponseSet, l: number): number {
+  /**
+   * Translational soil reaction of response l, scaled: per-axis amplitudes written to out (when
+   * given); returns their vector norm.
+   */
+  transmittedForce(u: ResponseSet, l: number, scale: number, out: Float64Array | null): number {
     let sum = 0;
     for (let j = 0; j < 3; j++) {
       const kj = this.k[j] as number;
@@ -175,26 +140,11 @@ export class HarmonicSolver {
       const ui = u.im[6 * l + j] as number;
       const fr = kj * ur - damp * ui;
       const fi = kj * ui + damp * ur;
-      sum += fr * fr + fi * fi;
+      const a2 = fr * fr + fi * fi;
+      if (out) out[j] = Math.sqrt(a2) * scale;
+      sum += a2;
     }
-    return Math.sqrt(sum);
-  }
-
-  /** Per-axis amplitudes of the translational soil reaction of response l, scaled. Returns the vector norm. */
-  transmittedForce(u: ResponseSet, l: number, scale: number, out: Float64Array): number {
-    let sum = 0;
-    for (let j = 0; j < 3; j++) {
-      const kj = this.k[j] as number;
-      const damp = 2 * this.beta * kj + this.omega * (this.c[j] as number);
-      const ur = u.re[6 * l + j] as number;
-      const ui = u.im[6 * l + j] as number;
-      const fr = kj * ur - damp * ui;
-      const fi = kj * ui + damp * ur;
-      const a = Math.sqrt(fr * fr + fi * fi) * scale;
-      out[j] = a;
-      sum += a * a;
-    }
-    return Math.sqrt(sum);
+    return Math.sqrt(sum) * scale;
   }
 }
 

@@ -15,7 +15,7 @@ function ratedCases(rotor: RotorModel, solver: HarmonicSolver, u: ResponseSet): 
   const amp = new Float64Array(3 * n);
   const trans = new Float64Array(3);
   return rotor.loads.map((load, l) => {
-    solver.pointAmplitudes(u, l, rotor.pointCoords, rotor.forceAtRated, amp);
+    solver.pointAmplitudes(u, l, rotor.pointCoords, rotor.forceAtRated, amp, true);
     const norm = solver.transmittedForce(u, l, rotor.forceAtRated, trans);
     const points: PointResult[] = rotor.points.map((p, i) => {
       const d: Vec3 = [amp[3 * i] as number, amp[3 * i + 1] as number, amp[3 * i + 2] as number];
@@ -82,7 +82,7 @@ function envelopes(rotors: RotorModel[], solver: HarmonicSolver, modesHz: number
       const f = forceAt(rotor.forceAtRated, rotor.omegaRated, omega);
       solver.solveAll(rotor.loads, u);
       for (let l = 0; l < rotor.loads.length; l++) {
-        solver.largestPointAmplitudes(u, l, rotor.pointCoords, f, amp);
+        solver.pointAmplitudes(u, l, rotor.pointCoords, f, amp, false);
         for (let i = 0; i < n; i++) {
           const d = amp[i] as number;
           const v = d * omega;

@@ -56,14 +56,14 @@ export function frequencySweep(
       solver.solveAll(rotor.loads, u);
       for (let l = 0; l < rotor.loads.length; l++) {
         const base = ((pointBase[r] as number) + l * np) * nf + f;
-        solver.largestPointAmplitudes(u, l, rotor.pointCoords, force, amp);
+        solver.pointAmplitudes(u, l, rotor.pointCoords, force, amp, false);
         for (let i = 0; i < np; i++) {
           const d = amp[i] as number;
           if (!(d < Infinity)) fail("displacement", hz);
           disp[base + i * nf] = d;
         }
         // transmissibility: |reaction| of the unit-amplitude load
-        const t = solver.transmittedNorm(u, l);
+        const t = solver.transmittedForce(u, l, 1, null);
         if (!(t < Infinity)) fail("transmissibility", hz);
         trans[((loadBase[r] as number) + l) * nf + f] = t;
       }
