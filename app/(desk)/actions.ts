@@ -36,6 +36,7 @@ export const inviteMemberAction = defineAction({
   access: { kind: "project", permission: "members.manage" },
   schema: inviteMemberSchema,
   projectId: (i) => i.projectId,
+  revalidate: (_d, i) => [`/projects/${i.projectId}/members`],
   handler: async (ctx, input) => {
     if (!ctx.auth) throw new AppError("unauthenticated");
     const r = await inviteMember(ctx.auth.actor, input);
@@ -48,6 +49,7 @@ export const removeMemberAction = defineAction({
   access: { kind: "project", permission: "members.manage" },
   schema: removeMemberSchema,
   projectId: (i) => i.projectId,
+  revalidate: (_d, i) => [`/projects/${i.projectId}/members`],
   handler: async (ctx, input) => {
     const member = await getMemberById(input.projectId, input.memberId);
     if (!member) throw new AppError("not_found", "That member is not on this project.");
@@ -65,6 +67,7 @@ export const createFoundationAction = defineAction({
   access: { kind: "project", permission: "foundation.create" },
   schema: createFoundationSchema,
   projectId: (i) => i.projectId,
+  revalidate: (_d, i) => [`/projects/${i.projectId}`],
   handler: async (ctx, input) => {
     if (!ctx.auth) throw new AppError("unauthenticated");
     const { projectId, ...rest } = input;

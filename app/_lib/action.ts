@@ -1,3 +1,4 @@
+import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { z } from "zod";
 import { AppError, formatIssuePath, isAppError } from "@/modules/platform/errors";
@@ -27,6 +28,8 @@ interface ActionDefinition<S extends z.ZodType, R> {
   handler: (ctx: ActionContext, input: z.infer<S>) => Promise<R>;
   /** Where to go after success (pages only; detached callers get the data). */
   redirectTo?: (data: R) => string | null;
+  /** Pages whose server-rendered data the action changed. */
+  revalidate?: (data: R, input: z.infer<S>) => string[];
 }
 
 export type ServerAction<R> = ((prev: ActionState<R>, formData: FormData) => Promise<ActionState<R>>) & {
@@ -84,6 +87,7 @@ export function defineAction<S extends z.ZodType, R>(def: ActionDefinition<S, R>
         membership = await requireProjectPermission(auth, def.projectId(parsed.data), def.access.permission);
       }
       const data = await def.handler({ port, auth, membership }, parsed.data);
+      if (def.revalidate && !port.detached) for (const p of def.revalidate(data, parsed.data)) revalidatePath(p);
       target = def.redirectTo ? def.redirectTo(data) : null;
       if (!target || port.detached) return { ok: true, data };
     } catch (e) {

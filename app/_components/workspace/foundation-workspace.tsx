@@ -116,7 +116,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     setSave({ kind: "idle" });
   };
 
-  const calcState = !result && error ? "error" : stale ? "stale" : "fresh";
+  const calcState = error && !pending ? "error" : stale ? "stale" : "fresh";
 
   return (
     <div className="space-y-4">
@@ -194,9 +194,11 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
           <Cautions />
-          {error && !result ? (
+          {error ? (
             <div className="slab border-brick-500 p-4 text-sm" role="status">
-              <p className="font-semibold text-brick-700">No results yet: the inputs are not complete.</p>
+              <p className="font-semibold text-brick-700">
+                {result ? "The inputs as they stand cannot be analysed; the results below belong to the last complete inputs." : "No results yet: the inputs are not complete."}
+              </p>
               <ul className="mt-2 list-disc pl-5 text-xs text-basalt-700" data-testid="calc-issues">
                 {error.issues.slice(0, 12).map((i) => (
                   <li key={`${i.path}-${i.message}`}>

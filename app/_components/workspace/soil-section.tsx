@@ -44,7 +44,7 @@ export function SoilSection({ readOnly }: { readOnly: boolean }) {
         <div className="mt-2 flex flex-wrap items-end gap-2">
           <label className="text-xs">
             <span className="field-label">N (blows/0.3 m)</span>
-            <input className="field-input w-28 font-mono" inputMode="decimal" value={spt} onChange={(e) => setSpt(e.target.value)} aria-label="SPT N" />
+            <input className="field-input w-28 font-mono" inputMode="decimal" value={spt} onChange={(e) => setSpt(e.target.value)} aria-label="SPT N" disabled={readOnly} />
           </label>
           <span className="pb-2 font-mono text-sm" data-testid="spt-vs">
             {vs ? `Vs ≈ ${units.toDisplayText("waveSpeed", vs)} ${units.unitLabel("waveSpeed")}` : "—"}
