@@ -4,3 +4,4 @@ export * from "./mail";
 export * from "./audit";
 export * from "./drafts";
 export * from "./revisions";
+export * from "./vendor";
