@@ -1,6 +1,7 @@
 // Calculation-core benchmark sections, called by scripts/bench.mts. Other sections (e.g. the
 // HTTP API) can reuse `timeRuns` and return the same `BenchSection` shape.
 import { readFileSync } from "node:fs";
+import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { analyse, parseAnalysisInputText } from "../modules/calc/index";
 import { buildModel } from "../modules/calc/model";
@@ -53,7 +54,8 @@ export function timeRuns(fn: () => unknown, runs: number, warmup = Math.min(50, 
   return summarise(samples);
 }
 
-export const DEFAULT_BENCH_INPUT = "examples/raw-water-pump-train.json";
+/** The demo foundation: two machines on one block. */
+export const DEFAULT_BENCH_INPUT = path.relative(process.cwd(), path.resolve(import.meta.dirname, "../examples/raw-water-pump-train.json"));
 
 /**
  * Full analysis (modes, rated and speed-range responses, 600-point sweep of every rotor's

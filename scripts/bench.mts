@@ -34,16 +34,26 @@ function formatTable(description: string, sections: BenchSection[]): string {
   return [description, line(head), ...rows.map(line)].join("\n");
 }
 
-const args = parseArgs(process.argv.slice(2));
-if (typeof args === "string") {
-  process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N]\n`);
-  process.exitCode = 2;
-} else if (args.json !== undefined) {
-  const { sections } = benchCalc(args.json, args.runs);
-  const full = sections[0]?.stats;
-  if (!full) throw new Error("no full-analysis timing");
-  process.stdout.write(`${JSON.stringify({ fullAnalysisMs: { median: full.median, min: full.min, max: full.max }, runs: full.runs })}\n`);
-} else {
-  const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
-  process.stdout.write(`${formatTable(description, sections)}\n`);
+function main(argv: string[]): number {
+  const args = parseArgs(argv);
+  if (typeof args === "string") {
+    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N]\n`);
+    return 2;
+  }
+  try {
+    if (args.json !== undefined) {
+      const full = benchCalc(args.json, args.runs).sections[0]?.stats;
+      if (!full) throw new Error("no full-analysis timing");
+      process.stdout.write(`${JSON.stringify({ fullAnalysisMs: { median: full.median, min: full.min, max: full.max }, runs: full.runs })}\n`);
+    } else {
+      const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
+      process.stdout.write(`${formatTable(description, sections)}\n`);
+    }
+    return 0;
+  } catch (e) {
+    process.stderr.write(`bench: ${(e as Error).message}\n`);
+    return 1;
+  }
 }
+
+process.exitCode = main(process.argv.slice(2));

@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput, type AnalysisResult } from "@/modules/calc";
 import type { AnalysisInputDocument } from "@/modules/calc/schema";
-import { G_SAND, NU, RHO_CONCRETE, RHO_SOIL, relClose, symmetricBlock } from "./helpers";
+import { G_SAND, NU, RHO_CONCRETE, relClose, symmetricBlock } from "./helpers";
 
 function run(doc: AnalysisInputDocument): AnalysisResult {
   const parsed = parseAnalysisInput(doc);
