@@ -45,6 +45,20 @@ describe("raw-water pump train", () => {
   });
 });
 
+describe("aeration blower: two rotors at different speeds", () => {
+  it("each rotor is analysed at its own speed with F0 = serviceFactor m_r (G / w) w^2 (ISO 1940-1)", () => {
+    const { doc, result } = load("aeration-blower.json");
+    const rotors = doc.machines.flatMap((m: { rotors: { mass: number; speedRpm: number; balanceGrade: number; serviceFactor: number }[] }) => m.rotors);
+    expect(result.rotors.map((r) => r.speedRpm)).toEqual(rotors.map((r: { speedRpm: number }) => r.speedRpm));
+    result.rotors.forEach((r, i) => {
+      const input = rotors[i]!;
+      const w = (input.speedRpm * 2 * Math.PI) / 60;
+      expect(r.forceAmplitude).toBeCloseTo(input.serviceFactor * input.mass * (input.balanceGrade / 1000 / w) * w * w, 9);
+      r.frequencyRatios.forEach((ratio, k) => expect(ratio).toBeCloseTo(input.speedRpm / 60 / result.modes[k]!.frequencyHz, 12));
+    });
+  });
+});
+
 describe("every example", () => {
   const files = readdirSync(dir).filter((f) => f.endsWith(".json"));
   it.each(files)("%s is a valid input with checks for every mode and rotor speed range", (file) => {

@@ -98,7 +98,7 @@ describe("Gazetas (1991) static stiffness in the circular limit", () => {
     expect(relClose(k.ry, halfSpaceRocking(G, NU, R), 0.1)).toBe(true);
   });
 
-  it("embedment factors are 1 for a surface base and grow with depth", () => {
+  it("embedment factors (K_x, K_ry, K_t forms recalled from memory) are 1 for a surface base and grow with depth", () => {
     const surface = gazetasEmbedmentFactors(circle, 0, 0);
     for (const v of Object.values(surface)) expect(v).toBe(1);
     const embedded = gazetasEmbedmentFactors(circle, 1, 0.8);

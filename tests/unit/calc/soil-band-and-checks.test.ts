@@ -80,6 +80,23 @@ describe("frequency separation", () => {
   });
 });
 
+describe("criteria defaults", () => {
+  it("are reported with their sources: ISO 10816-3 zone A/B converted to peak (recalled from memory), common practice", () => {
+    const result = run(symmetricBlock());
+    const c = result.criteria!;
+    // group 2, rigid support: 1.4 mm/s and 22 um r.m.s.; peak = r.m.s. x sqrt(2) for a sinusoid
+    expect(c.maxVelocityPeak!.value).toBeCloseTo(1.4e-3 * Math.SQRT2, 15);
+    expect(c.maxDisplacementPeak!.value).toBeCloseTo(22e-6 * Math.SQRT2, 15);
+    expect(c.maxVelocityPeak!.source).toMatch(/ISO 10816-3.*recalled from memory/);
+    expect(c.frequencySeparation!.value).toBe(0.2);
+    expect(c.frequencySeparation!.source).toMatch(/common practice.*ACI 351\.3R/);
+    expect(c.minMassRatio!.source).toMatch(/common practice/);
+    const given = run({ ...symmetricBlock(), criteria: { maxVelocityPeak: 5e-3 } });
+    expect(given.criteria!.maxVelocityPeak!.value).toBe(5e-3);
+    expect(given.checks.filter((k) => k.id === "velocity").every((k) => k.limit === 5e-3)).toBe(true);
+  });
+});
+
 describe("frame", () => {
   it("a base whose centroid is not at the input origin is analysed about its centroid, with a warning", () => {
     const doc = symmetricBlock();
