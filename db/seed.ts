@@ -3,6 +3,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { parseAnalysisInput } from "@/modules/calc";
 import { createDraftFromExample } from "./queries/drafts";
+import { createSeedRevision } from "./queries/revisions";
 import { DEMO_PASSWORD, DEMO_PROJECT_CODE, DEMO_VENDOR_COMPANY, demoAccounts } from "@/modules/platform/demo";
 import { createUser, getUserByEmail } from "./queries/accounts";
 import { createFoundation, createProject, getOrCreateCompany, getProjectByCode, upsertMember } from "./queries/projects";
@@ -44,9 +45,52 @@ export async function seedDemo(): Promise<{ created: boolean; projectId: string 
   const pump = await createFoundation(actor, project.id, { tag: "PH1-P101", machineTrain: "Raw-water pump train (motor + pump)", location: "Pump house bay 1" });
   const blower = await createFoundation(actor, project.id, { tag: "PH1-B201", machineTrain: "Aeration blower", location: "Blower hall, grid C4" });
   const designerId = ids.get("designer") ?? null;
-  await createDraftFromExample(pump.id, readExample("raw-water-pump-train.json"), designerId);
+  const pumpInput = readExample("raw-water-pump-train.json");
+  await createDraftFromExample(pump.id, pumpInput, designerId);
   await createDraftFromExample(blower.id, readExample("aeration-blower.json"), designerId);
+  const checkerId = ids.get("checker");
+  if (designerId && checkerId) await seedPumpRevisions(project.id, pump.id, pumpInput, designerId, checkerId);
   return { created: true, projectId: project.id };
+}
+
+const PUMP = "Raw-water pump RWP-101";
+const IMPELLER_PATH = `machines["${PUMP}"].rotors["impeller"].mass`;
+
+/**
+ * PH1-P101's review so far: revision A on the vendor's preliminary impeller mass
+ * (950 kg), returned by the checker with comments; revision B on the certified
+ * 1100 kg (the example as it stands, so the draft equals B), now in check.
+ */
+async function seedPumpRevisions(projectId: string, foundationId: string, input: ReturnType<typeof readExample>, designerId: string, checkerId: string): Promise<void> {
+  const preliminary = structuredClone(input);
+  const impeller = preliminary.machines.find((m) => m.name === PUMP)?.rotors.find((r) => r.name === "impeller");
+  if (!impeller) throw new Error("the pump example has no impeller");
+  impeller.mass = 950;
+  const day = 86_400_000;
+  const now = Date.now();
+  await createSeedRevision({
+    projectId,
+    foundationId,
+    input: preliminary,
+    issuedById: designerId,
+    issuedAt: new Date(now - 12 * day),
+    comments: [
+      {
+        fieldPath: IMPELLER_PATH,
+        body: "The impeller mass is the vendor's preliminary 950 kg; their certified drawing is due. Please reissue on the certified figure.",
+        authorId: checkerId,
+        resolved: true,
+        answer: { body: "Agreed. Corvane's certified drawing gives 1100 kg; revision B uses it.", authorId: designerId },
+      },
+      {
+        fieldPath: "massProperties.massRatio",
+        body: "Block-to-machine mass ratio 2.92 is under the 3.0 minimum. Enlarge the mat or justify the lower ratio.",
+        authorId: checkerId,
+      },
+    ],
+    decision: { outcome: "returned", note: "Returned: preliminary rotor data and the mass ratio check fails.", decidedById: checkerId, decidedAt: new Date(now - 10 * day) },
+  });
+  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day) });
 }
 
 /** An example input from examples/, checked by the contract's schema like any other input. */

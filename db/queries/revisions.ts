@@ -1,0 +1,476 @@
+import { and, asc, count, desc, eq, inArray, isNull, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { getDb } from "../client";
+import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionComments, revisionDecisions, revisions, users, type RevisionRow } from "../schema";
+import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
+import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, type RevisionStatus } from "@/modules/revisions";
+import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
+import { getMembership, type Actor } from "./projects";
+
+type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
+
+export interface RevisionSummary {
+  id: string;
+  foundationId: string;
+  projectId: string;
+  sequence: number;
+  label: string;
+  engineVersion: string;
+  inputHash: string;
+  vendorSubmissionId: string | null;
+  issuedById: string;
+  issuedByName: string;
+  issuedAt: Date;
+  status: RevisionStatus;
+  decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedAt: Date } | null;
+  openComments: number;
+}
+
+export interface RevisionDetail extends RevisionSummary {
+  // Only inputs that passed the contract's schema and results of the engine are ever
+  // written (issueRevision parses and analyses), so the stored JSON has these types.
+  input: AnalysisInput;
+  result: AnalysisResult;
+}
+
+export interface RevisionComment {
+  id: string;
+  revisionId: string;
+  parentId: string | null;
+  fieldPath: string | null;
+  body: string;
+  resolved: boolean;
+  authorId: string;
+  authorName: string;
+  createdAt: Date;
+}
+
+async function allowed(actor: Actor, projectId: string, permission: ProjectPermission): Promise<boolean> {
+  const m = await getMembership(actor, projectId);
+  return !!m && roleAllows(m.role, permission);
+}
+
+const issuer = alias(users, "issuer");
+const decider = alias(users, "decider");
+
+/** Summaries of the given foundation's revisions (or of one), oldest first. */
+async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<(RevisionSummary & { row: RevisionRow })[]> {
+  const rows = await db
+    .select({ r: revisions, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name })
+    .from(revisions)
+    .innerJoin(issuer, eq(issuer.id, revisions.issuedById))
+    .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
+    .leftJoin(decider, eq(decider.id, revisionDecisions.decidedById))
+    .where(and(eq(revisions.projectId, where.projectId), eq(revisions.foundationId, where.foundationId)))
+    .orderBy(asc(revisions.sequence));
+  const ids = rows.map((x) => x.r.id);
+  const open = ids.length
+    ? await db
+        .select({ revisionId: revisionComments.revisionId, n: count() })
+        .from(revisionComments)
+        .where(and(inArray(revisionComments.revisionId, ids), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
+        .groupBy(revisionComments.revisionId)
+    : [];
+  const openBy = new Map(open.map((o) => [o.revisionId, o.n]));
+  const maxSequence = rows.reduce((m, x) => Math.max(m, x.r.sequence), 0);
+  return rows
+    .filter((x) => !where.revisionId || x.r.id === where.revisionId)
+    .map(({ r, issuerName, d, deciderName }) => ({
+      row: r,
+      id: r.id,
+      foundationId: r.foundationId,
+      projectId: r.projectId,
+      sequence: r.sequence,
+      label: r.label,
+      engineVersion: r.engineVersion,
+      inputHash: r.inputHash,
+      vendorSubmissionId: r.vendorSubmissionId,
+      issuedById: r.issuedById,
+      issuedByName: issuerName,
+      issuedAt: r.issuedAt,
+      status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence),
+      decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedAt: d.decidedAt } : null,
+      openComments: openBy.get(r.id) ?? 0,
+    }));
+}
+
+function strip({ row: _row, ...summary }: RevisionSummary & { row: RevisionRow }): RevisionSummary {
+  void _row;
+  return summary;
+}
+
+/** The foundation's revisions, oldest first; [] when the actor may not read revisions. */
+export async function listRevisions(actor: Actor, projectId: string, foundationId: string): Promise<RevisionSummary[]> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  return (await selectSummaries(getDb(), { projectId, foundationId })).map(strip);
+}
+
+/** One revision with its input and result; undefined when absent or not readable by the actor. */
+export async function getRevision(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<RevisionDetail | undefined> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
+  const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId });
+  if (!hit) return undefined;
+  return { ...strip(hit), input: hit.row.input as AnalysisInput, result: hit.row.result as AnalysisResult };
+}
+
+export interface FoundationRevisionState {
+  foundationId: string;
+  latest: { id: string; label: string; status: RevisionStatus; vendorSubmissionId: string | null; issuedAt: Date } | null;
+  revisionCount: number;
+  openComments: number;
+  draftVendorSubmissionId: string | null;
+}
+
+/** For the project page: per foundation, its latest revision, their count and the open comments. */
+export async function listFoundationRevisionStates(actor: Actor, projectId: string): Promise<FoundationRevisionState[]> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  const db = getDb();
+  const fs = await db
+    .select({ id: foundations.id, draftVendorSubmissionId: foundationDrafts.vendorSubmissionId })
+    .from(foundations)
+    .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
+    .where(eq(foundations.projectId, projectId));
+  const revs = await db
+    .select({ id: revisions.id, foundationId: revisions.foundationId, sequence: revisions.sequence, label: revisions.label, vendorSubmissionId: revisions.vendorSubmissionId, issuedAt: revisions.issuedAt, outcome: revisionDecisions.outcome })
+    .from(revisions)
+    .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
+    .where(eq(revisions.projectId, projectId))
+    .orderBy(asc(revisions.foundationId), desc(revisions.sequence));
+  const open = await db
+    .select({ foundationId: revisions.foundationId, n: count() })
+    .from(revisionComments)
+    .innerJoin(revisions, eq(revisions.id, revisionComments.revisionId))
+    .where(and(eq(revisions.projectId, projectId), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
+    .groupBy(revisions.foundationId);
+  const openBy = new Map(open.map((o) => [o.foundationId, o.n]));
+  return fs.map((f) => {
+    const mine = revs.filter((r) => r.foundationId === f.id);
+    const top = mine[0];
+    return {
+      foundationId: f.id,
+      latest: top ? { id: top.id, label: top.label, status: revisionStatus(top.outcome, false), vendorSubmissionId: top.vendorSubmissionId, issuedAt: top.issuedAt } : null,
+      revisionCount: mine.length,
+      openComments: openBy.get(f.id) ?? 0,
+      draftVendorSubmissionId: f.draftVendorSubmissionId ?? null,
+    };
+  });
+}
+
+export type IssueOutcome =
+  | { ok: true; revision: RevisionSummary }
+  | { ok: false; reason: "forbidden" | "not-found" }
+  | { ok: false; reason: "no-draft" }
+  | { ok: false; reason: "stale-draft"; currentVersion: number }
+  | { ok: false; reason: "invalid-draft"; issues: InputIssue[] }
+  | { ok: false; reason: "identical"; label: string };
+
+/**
+ * Turns the foundation's saved draft into a new revision, in one transaction that
+ * locks the draft row, so two racing issues cannot both pass the "same as the latest
+ * revision" test or take the same sequence. With `expectedDraftVersion`, a draft saved
+ * since the caller looked at it is refused rather than issued unseen.
+ */
+export async function issueRevision(actor: Actor, projectId: string, foundationId: string, opts: { expectedDraftVersion?: number } = {}): Promise<IssueOutcome> {
+  if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
+  return getDb().transaction(async (tx) => {
+    const [foundation] = await tx
+      .select({ id: foundations.id, tag: foundations.tag, scheme: projects.revisionScheme })
+      .from(foundations)
+      .innerJoin(projects, eq(projects.id, foundations.projectId))
+      .where(and(eq(foundations.id, foundationId), eq(foundations.projectId, projectId)))
+      .for("update", { of: foundations });
+    if (!foundation) return { ok: false, reason: "not-found" } as const;
+    const [draft] = await tx.select().from(foundationDrafts).where(eq(foundationDrafts.foundationId, foundationId)).for("update");
+    if (!draft) return { ok: false, reason: "no-draft" } as const;
+    if (opts.expectedDraftVersion !== undefined && opts.expectedDraftVersion !== draft.version) return { ok: false, reason: "stale-draft", currentVersion: draft.version } as const;
+    const parsed = parseAnalysisInput(draft.input);
+    if (!parsed.ok) return { ok: false, reason: "invalid-draft", issues: parsed.issues } as const;
+    const inputHash = canonicalInputHash(parsed.input);
+    const earlier = await tx.select({ label: revisions.label, sequence: revisions.sequence, inputHash: revisions.inputHash }).from(revisions).where(eq(revisions.foundationId, foundationId)).orderBy(desc(revisions.sequence));
+    const latest = earlier[0];
+    if (latest && latest.inputHash === inputHash) return { ok: false, reason: "identical", label: latest.label } as const;
+    const result = analyse(parsed.input);
+    const [row] = await tx
+      .insert(revisions)
+      .values({
+        foundationId,
+        projectId,
+        sequence: (latest?.sequence ?? 0) + 1,
+        label: nextRevisionLabel(foundation.scheme, earlier.map((e) => e.label)),
+        input: parsed.input,
+        result,
+        engineVersion: result.engineVersion ?? ENGINE_VERSION,
+        inputHash,
+        vendorSubmissionId: draft.vendorSubmissionId,
+        issuedById: actor.userId,
+      })
+      .returning();
+    if (!row) throw new Error("revision insert returned nothing");
+    await tx.insert(auditEvents).values({
+      projectId,
+      actorId: actor.userId,
+      action: "revision.issued",
+      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId },
+    });
+    const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
+    if (!summary) throw new Error("issued revision not readable");
+    return { ok: true, revision: strip(summary) } as const;
+  });
+}
+
+export type DecideOutcome =
+  | { ok: true; revision: RevisionSummary }
+  | { ok: false; reason: "forbidden" | "not-found" | "own-revision" | "superseded" }
+  | { ok: false; reason: "already-decided"; outcome: "returned" | "approved" };
+
+/**
+ * Returns or approves a revision. The insert itself carries the rules, so they hold
+ * under concurrency: it selects the revision only when the decider did not issue it
+ * and no later revision exists, and the UNIQUE revision id with ON CONFLICT DO
+ * NOTHING lets exactly one of two racing decisions write a row.
+ */
+export async function decideRevision(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  revisionId: string,
+  decision: { outcome: "returned" | "approved"; note: string },
+): Promise<DecideOutcome> {
+  if (!(await allowed(actor, projectId, "revision.decide"))) return { ok: false, reason: "forbidden" };
+  return getDb().transaction(async (tx) => {
+    const [rev] = await tx.select().from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
+    if (!rev) return { ok: false, reason: "not-found" } as const;
+    if (rev.issuedById === actor.userId) return { ok: false, reason: "own-revision" } as const;
+    const inserted = await tx.execute<{ id: string }>(sql`
+      INSERT INTO ${revisionDecisions} (revision_id, outcome, note, decided_by_id)
+      SELECT r.id, ${decision.outcome}, ${decision.note}, ${actor.userId}::uuid
+      FROM ${revisions} r
+      WHERE r.id = ${revisionId}::uuid
+        AND r.issued_by_id <> ${actor.userId}::uuid
+        AND NOT EXISTS (SELECT 1 FROM ${revisions} later WHERE later.foundation_id = r.foundation_id AND later.sequence > r.sequence)
+      ON CONFLICT (revision_id) DO NOTHING
+      RETURNING id`);
+    if (!inserted.rows[0]) {
+      const [existing] = await tx.select({ outcome: revisionDecisions.outcome }).from(revisionDecisions).where(eq(revisionDecisions.revisionId, revisionId));
+      if (existing) return { ok: false, reason: "already-decided", outcome: existing.outcome } as const;
+      return { ok: false, reason: "superseded" } as const;
+    }
+    await tx.insert(auditEvents).values({
+      projectId,
+      actorId: actor.userId,
+      action: decision.outcome === "approved" ? "revision.approved" : "revision.returned",
+      detail: { foundationId, revisionId, label: rev.label, note: decision.note },
+    });
+    const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId });
+    if (!summary) throw new Error("decided revision not readable");
+    return { ok: true, revision: strip(summary) } as const;
+  });
+}
+
+/** A revision's comments, oldest first (answers carry their parent's id). */
+export async function listRevisionComments(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<RevisionComment[] | undefined> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
+  const [rev] = await getDb().select({ id: revisions.id }).from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
+  if (!rev) return undefined;
+  const rows = await getDb()
+    .select({ c: revisionComments, authorName: users.name })
+    .from(revisionComments)
+    .innerJoin(users, eq(users.id, revisionComments.authorId))
+    .where(eq(revisionComments.revisionId, revisionId))
+    .orderBy(asc(revisionComments.createdAt), asc(revisionComments.id));
+  return rows.map(({ c, authorName }) => ({
+    id: c.id,
+    revisionId: c.revisionId,
+    parentId: c.parentId,
+    fieldPath: c.fieldPath,
+    body: c.body,
+    resolved: c.resolved,
+    authorId: c.authorId,
+    authorName,
+    createdAt: c.createdAt,
+  }));
+}
+
+export type CommentOutcome =
+  | { ok: true; comment: RevisionComment; revision: RevisionSummary }
+  | { ok: false; reason: "forbidden" | "not-found" | "parent-not-found" | "unknown-field" };
+
+/**
+ * A comment on a revision, on the whole or on one of its fields (a path of its input
+ * or result, as the revision page lists them); an answer takes its parent's field.
+ */
+export async function createRevisionComment(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  revisionId: string,
+  comment: { body: string; fieldPath: string | null; parentId: string | null },
+): Promise<CommentOutcome> {
+  if (!(await allowed(actor, projectId, "revision.comment"))) return { ok: false, reason: "forbidden" };
+  return getDb().transaction(async (tx) => {
+    const [hit] = await selectSummaries(tx, { projectId, foundationId, revisionId });
+    if (!hit) return { ok: false, reason: "not-found" } as const;
+    let fieldPath = comment.fieldPath;
+    if (comment.parentId) {
+      const [parent] = await tx.select().from(revisionComments).where(and(eq(revisionComments.id, comment.parentId), eq(revisionComments.revisionId, revisionId)));
+      if (!parent) return { ok: false, reason: "parent-not-found" } as const;
+      fieldPath = parent.fieldPath;
+    } else if (fieldPath && !revisionFieldPaths(hit.row).has(fieldPath)) {
+      return { ok: false, reason: "unknown-field" } as const;
+    }
+    const [row] = await tx
+      .insert(revisionComments)
+      .values({ revisionId, parentId: comment.parentId, fieldPath, body: comment.body, authorId: actor.userId })
+      .returning();
+    if (!row) throw new Error("comment insert returned nothing");
+    await tx.insert(auditEvents).values({
+      projectId,
+      actorId: actor.userId,
+      action: comment.parentId ? "revision.comment-answered" : "revision.commented",
+      detail: { foundationId, revisionId, label: hit.label, commentId: row.id, fieldPath },
+    });
+    const [author] = await tx.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
+    return {
+      ok: true,
+      revision: strip(hit),
+      comment: { id: row.id, revisionId, parentId: row.parentId, fieldPath: row.fieldPath, body: row.body, resolved: row.resolved, authorId: row.authorId, authorName: author?.name ?? "", createdAt: row.createdAt },
+    } as const;
+  });
+}
+
+/** Every field path of a revision a comment may name: its input's and its result's (sweep aside). */
+function revisionFieldPaths(row: RevisionRow): Set<string> {
+  const { sweep: _sweep, ...result } = row.result as AnalysisResult;
+  void _sweep;
+  return new Set([...listLeafPaths(row.input), ...listLeafPaths(result)].map((p) => p.path));
+}
+
+/** Marks a top-level comment resolved or open again. */
+export async function setRevisionCommentResolved(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  commentId: string,
+  resolved: boolean,
+): Promise<{ ok: true; comment: { id: string; revisionId: string; resolved: boolean } } | { ok: false; reason: "forbidden" | "not-found" | "is-answer" }> {
+  if (!(await allowed(actor, projectId, "revision.comment"))) return { ok: false, reason: "forbidden" };
+  return getDb().transaction(async (tx) => {
+    const [c] = await tx
+      .select({ id: revisionComments.id, parentId: revisionComments.parentId, revisionId: revisionComments.revisionId, label: revisions.label })
+      .from(revisionComments)
+      .innerJoin(revisions, eq(revisions.id, revisionComments.revisionId))
+      .where(and(eq(revisionComments.id, commentId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)))
+      .for("update", { of: revisionComments });
+    if (!c) return { ok: false, reason: "not-found" } as const;
+    if (c.parentId) return { ok: false, reason: "is-answer" } as const;
+    await tx
+      .update(revisionComments)
+      .set({ resolved, resolvedById: resolved ? actor.userId : null, resolvedAt: resolved ? new Date() : null, updatedAt: new Date() })
+      .where(eq(revisionComments.id, commentId));
+    await tx.insert(auditEvents).values({
+      projectId,
+      actorId: actor.userId,
+      action: resolved ? "revision.comment-resolved" : "revision.comment-reopened",
+      detail: { foundationId, revisionId: c.revisionId, label: c.label, commentId },
+    });
+    return { ok: true, comment: { id: commentId, revisionId: c.revisionId, resolved } } as const;
+  });
+}
+
+export interface RevisionAuditEntry {
+  id: number;
+  action: string;
+  actorName: string | null;
+  label: string | null;
+  createdAt: Date;
+}
+
+/** The revision transitions of one foundation, newest first (its history panel). */
+export async function listRevisionHistory(actor: Actor, projectId: string, foundationId: string): Promise<RevisionAuditEntry[]> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  const rows = await getDb()
+    .select({ id: auditEvents.id, action: auditEvents.action, actorName: users.name, detail: auditEvents.detail, createdAt: auditEvents.createdAt })
+    .from(auditEvents)
+    .leftJoin(users, eq(users.id, auditEvents.actorId))
+    .where(and(eq(auditEvents.projectId, projectId), sql`${auditEvents.detail}->>'foundationId' = ${foundationId}`, sql`${auditEvents.action} like 'revision.%'`))
+    .orderBy(desc(auditEvents.createdAt), desc(auditEvents.id))
+    .limit(200);
+  return rows.map((r) => ({ id: r.id, action: r.action, actorName: r.actorName, label: typeof (r.detail as Record<string, unknown>).label === "string" ? ((r.detail as Record<string, unknown>).label as string) : null, createdAt: r.createdAt }));
+}
+
+/** Who is told about a transition: the project's members with these roles, with their e-mail. */
+export async function listMemberEmailsByRole(projectId: string, roles: readonly ("manager" | "designer" | "checker")[]): Promise<{ userId: string; email: string; name: string }[]> {
+  return getDb()
+    .select({ userId: users.id, email: users.email, name: users.name })
+    .from(projectMembers)
+    .innerJoin(users, eq(users.id, projectMembers.userId))
+    .where(and(eq(projectMembers.projectId, projectId), inArray(projectMembers.role, [...roles])));
+}
+
+/** The e-mail address and name of one user (the issuer to tell about a decision). */
+export async function getUserContact(userId: string): Promise<{ email: string; name: string } | undefined> {
+  const [u] = await getDb().select({ email: users.email, name: users.name }).from(users).where(eq(users.id, userId));
+  return u;
+}
+
+/**
+ * For the demo seed (trusted, no actor): a revision of a foundation from an input that
+ * has already passed parseAnalysisInput, with an optional decision, in one transaction.
+ */
+export async function createSeedRevision(args: {
+  projectId: string;
+  foundationId: string;
+  input: AnalysisInput;
+  issuedById: string;
+  issuedAt: Date;
+  decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
+  comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
+}): Promise<string> {
+  return getDb().transaction(async (tx) => {
+    const earlier = await tx.select({ label: revisions.label, sequence: revisions.sequence }).from(revisions).where(eq(revisions.foundationId, args.foundationId)).orderBy(desc(revisions.sequence));
+    const [project] = await tx.select({ scheme: projects.revisionScheme }).from(projects).where(eq(projects.id, args.projectId));
+    const result = analyse(args.input);
+    const [row] = await tx
+      .insert(revisions)
+      .values({
+        foundationId: args.foundationId,
+        projectId: args.projectId,
+        sequence: (earlier[0]?.sequence ?? 0) + 1,
+        label: nextRevisionLabel(project?.scheme ?? "letters", earlier.map((e) => e.label)),
+        input: args.input,
+        result,
+        engineVersion: result.engineVersion,
+        inputHash: canonicalInputHash(args.input),
+        issuedById: args.issuedById,
+        issuedAt: args.issuedAt,
+        createdAt: args.issuedAt,
+        updatedAt: args.issuedAt,
+      })
+      .returning({ id: revisions.id, label: revisions.label });
+    if (!row) throw new Error("seed revision insert returned nothing");
+    const audit = (action: string, actorId: string, at: Date, extra: Record<string, unknown> = {}) =>
+      tx.insert(auditEvents).values({ projectId: args.projectId, actorId, action, detail: { foundationId: args.foundationId, revisionId: row.id, label: row.label, ...extra }, createdAt: at, updatedAt: at });
+    await audit("revision.issued", args.issuedById, args.issuedAt);
+    let t = args.issuedAt.getTime();
+    for (const c of args.comments ?? []) {
+      t += 60_000;
+      const at = new Date(t);
+      const [parent] = await tx
+        .insert(revisionComments)
+        .values({ revisionId: row.id, fieldPath: c.fieldPath, body: c.body, authorId: c.authorId, resolved: c.resolved ?? false, resolvedById: c.resolved ? c.authorId : null, resolvedAt: c.resolved ? at : null, createdAt: at, updatedAt: at })
+        .returning({ id: revisionComments.id });
+      await audit("revision.commented", c.authorId, at, { commentId: parent?.id, fieldPath: c.fieldPath });
+      if (c.answer && parent) {
+        t += 60_000;
+        const at2 = new Date(t);
+        await tx.insert(revisionComments).values({ revisionId: row.id, parentId: parent.id, fieldPath: c.fieldPath, body: c.answer.body, authorId: c.answer.authorId, createdAt: at2, updatedAt: at2 });
+        await audit("revision.comment-answered", c.answer.authorId, at2, { fieldPath: c.fieldPath });
+      }
+    }
+    if (args.decision) {
+      await tx.insert(revisionDecisions).values({ revisionId: row.id, outcome: args.decision.outcome, note: args.decision.note, decidedById: args.decision.decidedById, decidedAt: args.decision.decidedAt });
+      await audit(args.decision.outcome === "approved" ? "revision.approved" : "revision.returned", args.decision.decidedById, args.decision.decidedAt, { note: args.decision.note });
+    }
+    return row.id;
+  });
+}
