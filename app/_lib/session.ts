@@ -15,7 +15,9 @@ function secureCookies(): boolean {
   const env = getServerEnv();
   if (env.SECURE_COOKIES === "1") return true;
   if (env.SECURE_COOKIES === "0") return false;
-  return env.NODE_ENV === "production" && env.APP_URL.startsWith("https:");
+  // Secure in production. Browsers treat loopback as a secure context, so the local
+  // production build on http://localhost or 127.0.0.1 keeps working too.
+  return env.NODE_ENV === "production";
 }
 
 export async function sealSessionCookie(sid: string): Promise<string> {
