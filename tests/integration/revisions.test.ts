@@ -40,14 +40,18 @@ async function json(res: Response): Promise<Loose> {
 }
 
 /** A new foundation of the demo project with a saved draft (the sample input, changed by `edit`). */
-async function foundationWithDraft(edit: (input: ReturnType<typeof sampleAnalysisInput>) => void = () => {}): Promise<{ projectId: string; foundationId: string; version: number }> {
+async function foundationWithDraft(edit: (input: ReturnType<typeof sampleAnalysisInput>) => void = () => {}): Promise<{ projectId: string; foundationId: string }> {
   n += 1;
   const f = await createFoundation({ userId: fx.userIds.manager, isAdmin: false }, fx.projectId, { tag: `REV-IT-${Date.now()}-${n}`, machineTrain: "Revision test", location: "" });
   const input = sampleAnalysisInput();
   edit(input);
   const res = await callRoute(DRAFT, "PUT", { projectId: fx.projectId, foundationId: f.id }, { cookie: fx.cookies.designer, body: { version: 0, input } });
   expect(res.status).toBe(200);
-  return { projectId: fx.projectId, foundationId: f.id, version: (await json(res)).draft.version as number };
+  return { projectId: fx.projectId, foundationId: f.id };
+}
+
+async function draftVersionOf(p: { projectId: string; foundationId: string }): Promise<number> {
+  return (await json(await callRoute(DRAFT, "GET", p, { cookie: fx.cookies.designer }))).draft.version as number;
 }
 
 async function saveDraft(p: { projectId: string; foundationId: string }, edit: (input: Loose) => void): Promise<number> {
@@ -89,7 +93,7 @@ describe("the demo's revisions", () => {
 describe("issue for check", () => {
   it("issues the saved draft as revision A with its result, engine version and fingerprint, tells the checker, and refuses the same draft twice", async () => {
     const p = await foundationWithDraft();
-    const first = await issue(p, "designer", { draftVersion: p.version });
+    const first = await issue(p, "designer", { draftVersion: await draftVersionOf(p) });
     expect(first.status).toBe(201);
     expect(first.body.revision).toMatchObject({ label: "A", sequence: 1, status: "in-check", issuedById: fx.userIds.designer, vendorSubmissionId: null });
     expect(first.body.revision.inputHash).toMatch(/^[0-9a-f]{64}$/);
@@ -107,8 +111,9 @@ describe("issue for check", () => {
 
   it("refuses a draft saved since the designer looked at it, and a checker may not issue", async () => {
     const p = await foundationWithDraft();
+    const seen = await draftVersionOf(p);
     await saveDraft(p, (input) => (input.soil.poissonRatio = 0.31));
-    const stale = await issue(p, "designer", { draftVersion: p.version });
+    const stale = await issue(p, "designer", { draftVersion: seen });
     expect(stale.status).toBe(409);
     expect(stale.body.error.message).toMatch(/saved again/);
     expect((await issue(p, "checker")).status).toBe(403);
