@@ -15,9 +15,18 @@ ensure_node_modules
 ensure_env_file
 bash scripts/lib/ensure-chromium.sh
 
-# Tests never run against DATABASE_URL (it may be production): TEST_DATABASE_URL or the local cluster.
-if [ -n "${TEST_DATABASE_URL:-}" ]; then DATABASE_URL="$TEST_DATABASE_URL"; else DATABASE_URL="$(bash scripts/lib/pg.sh ensure plinthwise_test --fresh)"; fi
-export DATABASE_URL
+# Tests never run against DATABASE_URL (it may be production): TEST_DATABASE_URL or the local
+# cluster. Each phase gets a fresh, freshly seeded database so no suite sees another's leftovers.
+fresh_database() { # name
+  if [ -n "${TEST_DATABASE_URL:-}" ]; then
+    DATABASE_URL="$TEST_DATABASE_URL"
+  else
+    DATABASE_URL="$(bash scripts/lib/pg.sh ensure "$1" --fresh)"
+  fi
+  export DATABASE_URL
+  node_modules/.bin/tsx scripts/db-migrate.mts
+  node_modules/.bin/tsx scripts/db-seed.mts
+}
 export PLINTH_DEMO=1
 export APP_URL="http://127.0.0.1:$APP_PORT"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
@@ -32,8 +41,7 @@ cleanup() {
 }
 trap cleanup EXIT INT TERM
 
-node_modules/.bin/tsx scripts/db-migrate.mts
-node_modules/.bin/tsx scripts/db-seed.mts
+fresh_database plinthwise_test
 start_fake_smtp "$SMTP_PORT" "$ART/fake-smtp.log"
 
 set +e
@@ -43,6 +51,9 @@ log "integration suite"
 node_modules/.bin/vitest run --project integration --reporter=default --reporter=json --outputFile.json="$ART/integration.json"
 
 log "building the production bundle for the browser suite"
+kill "$FAKE_SMTP_PID" 2>/dev/null; wait "$FAKE_SMTP_PID" 2>/dev/null || true
+fresh_database plinthwise_e2e
+start_fake_smtp "$SMTP_PORT" "$ART/fake-smtp-e2e.log"
 if node_modules/.bin/next build >"$ART/build.log" 2>&1; then
   node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$ART/server.log" 2>&1 &
   SERVER_PID=$!
