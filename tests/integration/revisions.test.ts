@@ -219,7 +219,8 @@ describe("the review cycle", () => {
 
     const { state: issued } = await callAction(issueRevisionAction, { ...p }, fx.cookies.designer);
     expect(issued).toMatchObject({ ok: true, data: { label: "A" } });
-    const aId = (issued as { data: { revisionId: string } }).data.revisionId;
+    if (!issued.ok) throw new Error(issued.message);
+    const aId = String(issued.data.revisionId);
     await waitForEmail(demoEmail("manager"), "revision A issued for check");
 
     const field = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.checker, body: { body: "Poisson's ratio 0.33 is high for this sand; use the report's 0.30.", fieldPath: "soil.poissonRatio" } });
