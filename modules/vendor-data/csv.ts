@@ -1,0 +1,148 @@
+// The CSV alternative to the workbook: one line per rotor (a machine without rotors on a
+// line of its own), the machine's columns on its first line and blank or equal on the
+// next ones, columns named in the header (any order). Problems are named by CSV cell in
+// A1 notation (column letter, line number), as a spreadsheet shows the file.
+import type { MachineInput } from "@/modules/calc/schema";
+import { assembleMachines, type AssembleResult } from "./assemble";
+import { CSV_SHEET, MAX_BEARINGS, bearingCsvColumn, columnLetter, csvColumns, machineFields, rotorFields } from "./layout";
+import type { CellValue, Problem, RawCell, RawMachine, RawRotor } from "./types";
+
+/** Lines a CSV may have; a few machines with four rotors each need a dozen. */
+export const MAX_CSV_LINES = 500;
+
+/** RFC 4180 fields: commas (or semicolons, as some locales save), double quotes, CRLF or LF. */
+export function parseCsv(text: string): string[][] {
+  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  const sep = firstLine.split(";").length > firstLine.split(",").length ? ";" : ",";
+  const rows: string[][] = [];
+  let row: string[] = [];
+  let field = "";
+  let quoted = false;
+  for (let i = 0; i < text.length; i++) {
+    const ch = text[i];
+    if (quoted) {
+      if (ch === '"') {
+        if (text[i + 1] === '"') {
+          field += '"';
+          i++;
+        } else quoted = false;
+      } else field += ch;
+    } else if (ch === '"' && field === "") quoted = true;
+    else if (ch === sep) {
+      row.push(field);
+      field = "";
+    } else if (ch === "\n" || ch === "\r") {
+      if (ch === "\r" && text[i + 1] === "\n") i++;
+      row.push(field);
+      rows.push(row);
+      row = [];
+      field = "";
+    } else field += ch;
+  }
+  if (field !== "" || row.length) {
+    row.push(field);
+    rows.push(row);
+  }
+  return rows;
+}
+
+function csvValue(text: string | undefined): CellValue {
+  const t = (text ?? "").trim();
+  if (t === "") return { kind: "empty" };
+  return { kind: "text", value: t };
+}
+
+/** Parses CSV machine data into validated machines, or every problem with its cell. */
+export function readMachineCsv(bytes: Buffer, expect: { machineCount: number }): AssembleResult {
+  const text = bytes.toString("utf8").replace(/^\uFEFF/, "");
+  const lineCount = (text.match(/\n/g)?.length ?? 0) + 1;
+  if (lineCount > MAX_CSV_LINES) {
+    return { ok: false, problems: [{ sheet: CSV_SHEET, cell: null, message: `The CSV has ${lineCount} lines; machine data needs a few dozen at most (one per rotor). Refused unread.` }] };
+  }
+  const rows = parseCsv(text);
+  const header = rows[0]?.map((h) => h.trim().toLowerCase()) ?? [];
+  const problems: Problem[] = [];
+  header.forEach((h, i) => {
+    if (!csvColumns.includes(h)) problems.push({ sheet: CSV_SHEET, cell: `${columnLetter(i)}1`, message: `unknown column "${h}"; the columns are ${csvColumns.join(", ")}` });
+  });
+  for (const required of ["machine", "machine_mass_kg", "cg_x_m", "cg_y_m", "cg_z_m"]) {
+    if (!header.includes(required)) problems.push({ sheet: CSV_SHEET, cell: "A1", message: `the header has no "${required}" column` });
+  }
+  if (problems.length) return { ok: false, problems };
+  const col = (name: string) => header.indexOf(name);
+  const cellAt = (line: number, row: string[], name: string): RawCell => {
+    const c = col(name);
+    const cell = c < 0 ? null : `${columnLetter(c)}${line}`;
+    return { ref: { sheet: CSV_SHEET, cell: cell ?? `A${line}` }, value: c < 0 ? { kind: "empty" } : csvValue(row[c]) };
+  };
+
+  const machines = new Map<string, RawMachine>();
+  rows.forEach((row, index) => {
+    // Record numbers as a spreadsheet shows the file; blank lines are skipped, not removed.
+    const line = index + 1;
+    if (index === 0 || row.every((f) => f.trim() === "")) return;
+    const nameCell = cellAt(line, row, "machine");
+    const key = nameCell.value.kind === "text" ? nameCell.value.value : `(line ${line})`;
+    let machine = machines.get(key);
+    if (!machine) {
+      const fields: RawMachine["fields"] = {};
+      for (const spec of machineFields) fields[spec.key] = cellAt(line, row, spec.csv);
+      machine = { anchor: { sheet: CSV_SHEET, cell: nameCell.ref.cell }, fields, rotors: [] };
+      machines.set(key, machine);
+    } else {
+      for (const spec of machineFields) {
+        const later = cellAt(line, row, spec.csv);
+        const first = machine.fields[spec.key];
+        if (later.value.kind === "text" && first?.value.kind === "text" && later.value.value !== first.value.value && spec.key !== "name") {
+          problems.push({ sheet: CSV_SHEET, cell: later.ref.cell, message: `${spec.label}: differs from line ${first.ref.cell?.replace(/^[A-Z]+/, "")} of the same machine (leave it blank on its later lines)` });
+        }
+      }
+    }
+    const rf: RawRotor["fields"] = {};
+    for (const spec of rotorFields) rf[spec.key] = cellAt(line, row, spec.csv);
+    const bearings = Array.from({ length: MAX_BEARINGS }, (_, b) => [0, 1, 2].map((a) => cellAt(line, row, bearingCsvColumn(b, a))));
+    machine.rotors.push({ anchor: { sheet: CSV_SHEET, cell: `A${line}` }, fields: rf, bearings });
+  });
+  if (machines.size === 0) problems.push({ sheet: CSV_SHEET, cell: "A2", message: "the CSV has a header but no machine lines" });
+  else if (machines.size !== expect.machineCount) {
+    problems.push({ sheet: CSV_SHEET, cell: "A2", message: `the request asks for ${expect.machineCount} machine${expect.machineCount === 1 ? "" : "s"}; the CSV has ${machines.size}` });
+  }
+  if (problems.length) return { ok: false, problems };
+  return assembleMachines([...machines.values()]);
+}
+
+function quote(v: string | number | null | undefined): string {
+  if (v === null || v === undefined) return "";
+  const s = String(v);
+  return /[",\r\n;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** A CSV with the header and the figures the desk holds, one line per rotor. */
+export function buildMachineCsv(machines: { name: string; values: MachineInput | null }[]): string {
+  const lines = [csvColumns.join(",")];
+  for (const { name, values } of machines) {
+    const m = values;
+    const machineCells = [
+      name,
+      m?.mass,
+      m?.cg[0],
+      m?.cg[1],
+      m?.cg[2],
+      m?.box?.x[0],
+      m?.box?.x[1],
+      m?.box?.y[0],
+      m?.box?.y[1],
+      m?.box?.z[0],
+      m?.box?.z[1],
+    ];
+    const rotors = m?.rotors.length ? m.rotors : [null];
+    rotors.forEach((r, k) => {
+      const rotorCells = [r?.name, r?.mass, r?.speedRpm, r?.speedRangeRpm?.[0], r?.speedRangeRpm?.[1], r?.balanceGrade, r?.unbalanceForce, r?.serviceFactor, r?.axis, r?.unbalanceMode];
+      const bearingCells = Array.from({ length: MAX_BEARINGS }, (_, b) => [0, 1, 2].map((a) => r?.bearings[b]?.[a])).flat();
+      // The machine's columns on its first line only, as the reader expects.
+      const mc = k === 0 ? machineCells : [name, ...machineCells.slice(1).map(() => null)];
+      lines.push([...mc, ...rotorCells, ...bearingCells].map(quote).join(","));
+    });
+  }
+  return `${lines.join("\r\n")}\r\n`;
+}
