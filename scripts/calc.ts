@@ -36,4 +36,10 @@ function main(args: string[]): number {
   return 0;
 }
 
+// A reader that stops early (`| head`) is not an error of ours.
+process.stdout.on("error", (e: NodeJS.ErrnoException) => {
+  if (e.code === "EPIPE") process.exit(process.exitCode ?? 0);
+  throw e;
+});
+
 process.exitCode = main(process.argv.slice(2));
