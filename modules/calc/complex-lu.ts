@@ -1,13 +1,12 @@
 // Lean complex 6 x 6 solver for the harmonic steady state: the dynamic stiffness
 //   S(w) = K(w) (1 + 2 i beta) + i w C(w) - w^2 M
 // is assembled into Float64Arrays, factorised once per frequency by Gaussian elimination with
-// partial pivoting (LU), and the factors are reused for every load vector. No allocation per
+// partial pivoting (LU), and the factors are reused for every load vector (solved together). No allocation per
 // frequency: this is the hot loop of the sweep.
 
 export class ComplexSystem6 {
   readonly re = new Float64Array(36);
   readonly im = new Float64Array(36);
-  readonly pivot = new Int32Array(6);
   /** Row order after all pivoting: row i of the factors came from row perm[i] of S. */
   private readonly perm = new Int32Array(6);
   /** Reciprocals of the U diagonal, so a solve multiplies instead of dividing. */
@@ -48,7 +47,6 @@ export class ComplexSystem6 {
           p = r;
         }
       }
-      this.pivot[col] = p;
       if (p !== col) {
         const t = perm[col] as number;
         perm[col] = perm[p] as number;

@@ -76,9 +76,6 @@ export const SWEEP_DEFAULTS = {
   speedMargin: 1.25,
 } as const;
 
-export const SERVICE_FACTOR_NOTE =
-  "serviceFactor defaults to 1 (contract); a factor of 2 for unbalance growth in service is recommended in ACI 351.3R (recalled from memory)";
-
 export const MATERIAL_DAMPING_DEFAULT = 0;
 
 /** Gazetas (1991) straight-line dynamic multipliers are used up to this a0 (engine choice). */

@@ -14,18 +14,3 @@ export function dofFromArray(values: ArrayLike<number>): Dof6 {
     rz: values[5] ?? 0,
   };
 }
-
-export function dofToArray(values: Dof6): number[] {
-  return DOF_KEYS.map((k) => values[k]);
-}
-
-export function mapDof(values: Dof6, f: (v: number, key: DofKey) => number): Dof6 {
-  return {
-    x: f(values.x, "x"),
-    y: f(values.y, "y"),
-    z: f(values.z, "z"),
-    rx: f(values.rx, "rx"),
-    ry: f(values.ry, "ry"),
-    rz: f(values.rz, "rz"),
-  };
-}

@@ -2,7 +2,7 @@
 // at the underside, is the origin; mass properties and the 6 x 6 mass matrix about O; rotors
 // with their unit load vectors and response points.
 import { BLOCK_RULES, ORIGIN_TOLERANCE_M, STANDARD_GRAVITY } from "./criteria-defaults";
-import { contactArea, type Box, type ContactArea } from "./geometry";
+import { boxCentre, contactArea, type Box, type ContactArea } from "./geometry";
 import { combineParts, concreteParts, machinePart, type MassPart } from "./mass-properties";
 import { massMatrixAboutO } from "./mass-matrix";
 import type { AnalysisInput, RotorInput } from "./schema";
@@ -113,8 +113,7 @@ export function buildModel(input: AnalysisInput): Model {
   );
   const machines: MassPart[] = input.machines.map((m) => {
     if (m.box) {
-      const centre: Vec3 = [(m.box.x[0] + m.box.x[1]) / 2, (m.box.y[0] + m.box.y[1]) / 2, (m.box.z[0] + m.box.z[1]) / 2];
-      if (Math.hypot(...sub3(centre, m.cg)) > ORIGIN_TOLERANCE_M) {
+      if (Math.hypot(...sub3(boxCentre(m.box), m.cg)) > ORIGIN_TOLERANCE_M) {
         warnings.push(`Machine "${m.name}": its box is taken as a uniform box of the machine's mass, so its centre (not cg) is the machine's centre of gravity.`);
       }
     }

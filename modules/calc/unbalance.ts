@@ -20,11 +20,6 @@ export function forceAtRatedSpeed(rotor: RotorInput): number {
   return rotor.serviceFactor * base;
 }
 
-/** Unbalance eccentricity e = G / w_rated (m), ISO 1940-1; undefined for a vendor force. */
-export function unbalanceEccentricity(rotor: RotorInput): number | undefined {
-  return rotor.balanceGrade === undefined ? undefined : rotor.balanceGrade / 1000 / rpmToRadPerSec(rotor.speedRpm);
-}
-
 /**
  * Unit force phasor (real and imaginary parts) of a load case. Vertical: z. Horizontal: the
  * horizontal axis normal to the shaft. Rotating: both, 90 degrees apart, turning by the
