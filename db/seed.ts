@@ -1,12 +1,16 @@
 import bcrypt from "bcryptjs";
+import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { parseAnalysisInput } from "@/modules/calc";
+import type { MachineInput } from "@/modules/calc/schema";
 import { createDraftFromExample } from "./queries/drafts";
 import { createSeedRevision } from "./queries/revisions";
 import { DEMO_PASSWORD, DEMO_PROJECT_CODE, DEMO_VENDOR_COMPANY, demoAccounts } from "@/modules/platform/demo";
 import { createUser, getUserByEmail } from "./queries/accounts";
 import { createFoundation, createProject, getOrCreateCompany, getProjectByCode, upsertMember } from "./queries/projects";
+import { createDemoVendorHistory } from "./queries/vendor-demo";
+import { buildRequestWorkbook } from "@/modules/vendor-data/workbook-build";
 
 /** Creates the demo scenario unless its project already exists. */
 export async function seedDemo(): Promise<{ created: boolean; projectId: string }> {
@@ -48,6 +52,7 @@ export async function seedDemo(): Promise<{ created: boolean; projectId: string 
   const pumpInput = readExample("raw-water-pump-train.json");
   await createDraftFromExample(pump.id, pumpInput, designerId);
   await createDraftFromExample(blower.id, readExample("aeration-blower.json"), designerId);
+  await seedVendorData(project, pump.id, companyId, pumpInput.machines, ids);
   const checkerId = ids.get("checker");
   if (designerId && checkerId) await seedPumpRevisions(project.id, pump.id, pumpInput, designerId, checkerId);
   return { created: true, projectId: project.id };
@@ -98,4 +103,39 @@ function readExample(file: string) {
   const parsed = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", file), "utf8")));
   if (!parsed.ok) throw new Error(`examples/${file} is not a valid analysis input: ${parsed.issues.map((i) => `${i.path}: ${i.message}`).join("; ")}`);
   return parsed.input;
+}
+
+/**
+ * The pump train's data request to Corvane Pumps: version 1 with a preliminary impeller
+ * mass (950 kg, as revision A used), version 2 with the certified 1100 kg of examples/raw-water-pump-train.json
+ * uploaded as the request's own workbook, both accepted; the seeded draft holds version 2.
+ */
+async function seedVendorData(project: { id: string; code: string; name: string }, foundationId: string, companyId: string, machines: MachineInput[], ids: Map<string, string>) {
+  const vendorUserId = ids.get("vendor");
+  const designerUserId = ids.get("designer");
+  if (!vendorUserId || !designerUserId) throw new Error("demo vendor or designer missing");
+  const first = machines.map((m) => ({ ...m, rotors: m.rotors.map((r) => (r.name === "impeller" ? { ...r, mass: 950 } : r)) }));
+  const requestId = randomUUID();
+  const workbook = await buildRequestWorkbook({
+    requestId,
+    projectCode: project.code,
+    projectName: project.name,
+    foundationTag: "PH1-P101",
+    machineTrain: "Raw-water pump train (motor + pump)",
+    companyName: DEMO_VENDOR_COMPANY,
+    dueOn: null,
+    message: "",
+    machines: machines.map((m) => ({ name: m.name, values: m })),
+  });
+  await createDemoVendorHistory({
+    requestId,
+    projectId: project.id,
+    foundationId,
+    companyId,
+    vendorUserId,
+    designerUserId,
+    requested: first.map((m) => ({ name: m.name, values: m })),
+    first,
+    second: { machines, workbook, fileName: "PH1-P101 machine data (certified).xlsx" },
+  });
 }
