@@ -1,6 +1,6 @@
 // Frequency-response series for plotting: at each sweep frequency ONE factorisation of S(w)
-// serves every load vector of every rotor and case. The loop writes into preallocated
-// Float64Arrays (one slot per series), with no allocation per frequency.
+// serves every load vector of every rotor and case. The loop writes by index into output
+// arrays preallocated at their full length, with no allocation per frequency.
 import { forceAt, responseSet, type HarmonicSolver } from "./harmonic";
 import type { Model } from "./model";
 import type { SweepResult, SweepSeries, TransmissibilitySeries } from "./result-types";
@@ -8,15 +8,6 @@ import { linspace, type SweepSettings } from "./sweep-grid";
 
 function fail(what: string, hz: number): never {
   throw new Error(`internal error: non-finite ${what} at ${hz} Hz in the sweep`);
-}
-
-/** A plain number array from a slice of a Float64Array, optionally times w (JSON-friendly output). */
-function slice(buffer: Float64Array, offset: number, n: number, factor: Float64Array | null): number[] {
-  // a preallocated array written by index is several times faster than push or Array.from
-  const out = new Array<number>(n);
-  if (factor) for (let i = 0; i < n; i++) out[i] = (buffer[offset + i] as number) * (factor[i] as number);
-  else for (let i = 0; i < n; i++) out[i] = buffer[offset + i] as number;
-  return out;
 }
 
 export function frequencySweep(
@@ -40,8 +31,11 @@ export function frequencySweep(
     nPointSeries += r.loads.length * r.points.length;
     nLoadSeries += r.loads.length;
   }
-  const disp = new Float64Array(nPointSeries * nf);
-  const trans = new Float64Array(nLoadSeries * nf);
+  // displacement series written in place (preallocated plain arrays: no copy afterwards)
+  const dispSeries: number[][] = [];
+  for (let i = 0; i < nPointSeries; i++) dispSeries.push(new Array<number>(nf));
+  const transSeries: number[][] = [];
+  for (let i = 0; i < nLoadSeries; i++) transSeries.push(new Array<number>(nf));
   const u = responseSet(Math.max(0, ...rotors.map((r) => r.loads.length)));
   const maxPoints = Math.max(1, ...rotors.map((r) => r.points.length));
   const amp = new Float64Array(3 * maxPoints);
@@ -55,17 +49,17 @@ export function frequencySweep(
       const force = forceAt(rotor.forceAtRated, rotor.omegaRated, omega);
       solver.solveAll(rotor.loads, u);
       for (let l = 0; l < rotor.loads.length; l++) {
-        const base = ((pointBase[r] as number) + l * np) * nf + f;
+        const base = (pointBase[r] as number) + l * np;
         solver.pointAmplitudes(u, l, rotor.pointCoords, force, amp, false);
         for (let i = 0; i < np; i++) {
           const d = amp[i] as number;
           if (!(d < Infinity)) fail("displacement", hz);
-          disp[base + i * nf] = d;
+          (dispSeries[base + i] as number[])[f] = d;
         }
         // transmissibility: |reaction| of the unit-amplitude load
         const t = solver.transmittedForce(u, l, 1, null);
         if (!(t < Infinity)) fail("transmissibility", hz);
-        trans[((loadBase[r] as number) + l) * nf + f] = t;
+        (transSeries[(loadBase[r] as number) + l] as number[])[f] = t;
       }
     }
   }
@@ -77,10 +71,12 @@ export function frequencySweep(
     rotor.loads.forEach((load, l) => {
       const id = { machine: rotor.machine, rotor: rotor.rotor, case: load.case, unbalanceMode: load.unbalanceMode };
       rotor.points.forEach((p, i) => {
-        const offset = ((pointBase[r] as number) + l * rotor.points.length + i) * nf;
-        series.push({ ...id, point: p.name, displacementPeak: slice(disp, offset, nf, null), velocityPeak: slice(disp, offset, nf, omegas) });
+        const displacementPeak = dispSeries[(pointBase[r] as number) + l * rotor.points.length + i] as number[];
+        const velocityPeak = new Array<number>(nf);
+        for (let k = 0; k < nf; k++) velocityPeak[k] = (displacementPeak[k] as number) * (omegas[k] as number);
+        series.push({ ...id, point: p.name, displacementPeak, velocityPeak });
       });
-      transmissibility.push({ ...id, values: slice(trans, ((loadBase[r] as number) + l) * nf, nf, null) });
+      transmissibility.push({ ...id, values: transSeries[(loadBase[r] as number) + l] as number[] });
     });
   });
   return {
