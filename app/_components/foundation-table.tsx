@@ -19,6 +19,9 @@ export interface FoundationRowView {
   location: string;
   status: string;
   latestRevision: string;
+  latestRevisionId: string | null;
+  openComments: number;
+  flags: string[];
   governing: { label: string; pass: boolean; utilisation: number; failing: number; total: number } | null;
   updatedAt: string;
 }
@@ -39,8 +42,33 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
         ),
       }),
       col.accessor("machineTrain", { header: "Machine train" }),
-      col.accessor("status", { header: "Status", cell: (c) => <span className="tag bg-basalt-100 text-basalt-700">{c.getValue()}</span> }),
-      col.accessor("latestRevision", { header: "Latest revision" }),
+      col.accessor("status", {
+        header: "Status",
+        cell: (c) => (
+          <span className="space-x-1">
+            <span className={`tag ${c.getValue() === "approved" ? "bg-moss-100 text-moss-700" : c.getValue().startsWith("returned") ? "bg-brick-100 text-brick-700" : "bg-basalt-100 text-basalt-700"}`}>{c.getValue()}</span>
+            {c.row.original.flags.map((f) => (
+              <span key={f} className="tag bg-ochre-100 text-ochre-700" data-testid="foundation-flag">
+                {f}
+              </span>
+            ))}
+          </span>
+        ),
+      }),
+      col.accessor("latestRevision", {
+        header: "Latest revision",
+        cell: (c) => {
+          const id = c.row.original.latestRevisionId;
+          return id ? (
+            <Link className="font-mono" href={`/projects/${projectId}/foundations/${c.row.original.id}/revisions/${id}`}>
+              {c.getValue()}
+            </Link>
+          ) : (
+            <span className="text-basalt-400">{c.getValue()}</span>
+          );
+        },
+      }),
+      col.accessor("openComments", { header: "Open comments", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
       col.accessor((r) => r.governing?.utilisation ?? -1, {
         id: "governing",
         header: "Governing check",
@@ -67,7 +95,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
     onGlobalFilterChange: setFilter,
     globalFilterFn: (row, _id, value: string) => {
       const r = row.original;
-      const hay = [r.tag, r.machineTrain, r.location, r.status, r.latestRevision, r.governing?.label ?? ""].join(" ").toLowerCase();
+      const hay = [r.tag, r.machineTrain, r.location, r.status, r.latestRevision, ...r.flags, r.governing?.label ?? ""].join(" ").toLowerCase();
       return hay.includes(String(value).toLowerCase());
     },
     getCoreRowModel: getCoreRowModel(),

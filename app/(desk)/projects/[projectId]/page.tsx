@@ -3,6 +3,8 @@ import { roleAllows } from "@/modules/platform/permissions";
 import { analyse } from "@/modules/calc";
 import { governingCheck } from "@/modules/desk/foundation-summary";
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
+import { listFoundationRevisionStates } from "@/db/queries/revisions";
+import { isApprovalStale, revisionStatusLabels } from "@/modules/revisions";
 import { FoundationTable, type FoundationRowView } from "../../../_components/foundation-table";
 import { requireProjectPage } from "../../../_lib/page-guard";
 import { EmptyState } from "../../../_components/brand";
@@ -13,18 +15,27 @@ export const metadata: Metadata = { title: "Foundations" };
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const { actor, project, role } = await requireProjectPage(projectId, "project.read");
-  const foundations = await listFoundationsWithDrafts(actor, projectId);
-  const rows: FoundationRowView[] = foundations.map((f) => ({
-    id: f.id,
-    tag: f.tag,
-    machineTrain: f.machineTrain,
-    location: f.location,
-    status: f.input ? `draft v${f.draftVersion}` : "not started",
-    latestRevision: "none issued",
-    // The engine is fast enough (a few ms) to give each row its governing check live.
-    governing: f.input ? governingCheck(analyse(f.input)) : null,
-    updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
-  }));
+  const [foundations, revisionStates] = await Promise.all([listFoundationsWithDrafts(actor, projectId), listFoundationRevisionStates(actor, projectId)]);
+  const stateOf = new Map(revisionStates.map((s) => [s.foundationId, s]));
+  const rows: FoundationRowView[] = foundations.map((f) => {
+    const rev = stateOf.get(f.id);
+    const latest = rev?.latest ?? null;
+    return {
+      id: f.id,
+      tag: f.tag,
+      machineTrain: f.machineTrain,
+      location: f.location,
+      status: latest ? revisionStatusLabels[latest.status] : f.input ? `draft v${f.draftVersion}` : "not started",
+      latestRevision: latest ? latest.label : "none issued",
+      latestRevisionId: latest?.id ?? null,
+      openComments: rev?.openComments ?? 0,
+      // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
+      flags: latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
+      // The engine is fast enough (a few ms) to give each row its governing check live.
+      governing: f.input ? governingCheck(analyse(f.input)) : null,
+      updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
+    };
+  });
   return (
     <div className="space-y-6">
       <div>

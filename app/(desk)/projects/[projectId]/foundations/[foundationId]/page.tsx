@@ -5,8 +5,10 @@ import { roleAllows } from "@/modules/platform/permissions";
 import { emptyDraftForm, formFromInput } from "@/modules/desk/draft-form";
 import { getDraft } from "@/db/queries/drafts";
 import { getFoundation } from "@/db/queries/foundations";
+import { listRevisions } from "@/db/queries/revisions";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
 import { FoundationWorkspace } from "../../../../../_components/workspace/foundation-workspace";
+import { RevisionBar } from "./revisions/revision-bar";
 
 export const metadata: Metadata = { title: "Foundation workspace" };
 
@@ -17,12 +19,14 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
   const foundation = await getFoundation(actor, projectId, foundationId);
   const draft = foundation ? await getDraft(actor, projectId, foundationId) : undefined;
   if (!foundation || !draft) notFound();
+  const revisions = roleAllows(role, "revision.read") ? await listRevisions(actor, projectId, foundationId) : [];
   return (
     <div className="space-y-3">
       <p className="text-xs text-basalt-500">
         <Link href={`/projects/${projectId}`}>{project.code}</Link> / {foundation.tag} · {foundation.machineTrain}
         {foundation.location ? ` · ${foundation.location}` : ""}
       </p>
+      <RevisionBar projectId={projectId} foundationId={foundationId} revisions={revisions} mayIssue={roleAllows(role, "revision.issue")} />
       <FoundationWorkspace
         projectId={projectId}
         foundationId={foundationId}

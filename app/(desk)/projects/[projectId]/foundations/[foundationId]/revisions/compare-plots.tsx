@@ -1,0 +1,119 @@
+"use client";
+
+import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries } from "@nivo/line";
+import { useMemo, useState } from "react";
+import type { AnalysisResult } from "@/modules/calc";
+import { UnitsProvider, useUnits, type UnitSystem } from "@/app/_components/workspace/units-context";
+
+type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
+
+// Older revision in slate, newer in ochre: the same palette as the workspace plots.
+const colours = ["#647d88", "#d49a1e"];
+
+function caseKey(s: { machine: string; rotor: string; case: string; unbalanceMode: string }): string {
+  return `${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})`;
+}
+
+/** Largest value over every point of the chosen rotor and case, at each frequency. */
+function envelope(result: AnalysisResult, key: string, pick: (s: AnalysisResult["sweep"]["series"][number]) => number[]): number[] {
+  const series = result.sweep.series.filter((s) => caseKey(s) === key);
+  return result.sweep.frequencyHz.map((_, i) => series.reduce((m, s) => Math.max(m, pick(s)[i] ?? 0), 0));
+}
+
+function operatingLayer(ranges: { fromHz: number; toHz: number }[]) {
+  function OperatingLayer({ xScale, innerHeight }: LineCustomSvgLayerProps<Series>) {
+    const x = (v: number) => xScale(v as never);
+    return (
+      <g>
+        {ranges.map((r, i) => (
+          <rect key={i} x={x(r.fromHz)} width={Math.max(2, x(r.toHz) - x(r.fromHz))} y={0} height={innerHeight} fill="#d49a1e" opacity={0.18} />
+        ))}
+      </g>
+    );
+  }
+  return OperatingLayer;
+}
+
+function Overlay({ series, yLabel, ranges, testId }: { series: Series[]; yLabel: string; ranges: { fromHz: number; toHz: number }[]; testId: string }) {
+  const layer = useMemo(() => operatingLayer(ranges), [ranges]);
+  return (
+    <div className="h-64 w-full" data-testid={testId}>
+      <ResponsiveLine
+        data={series}
+        margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
+        xScale={{ type: "linear", min: "auto", max: "auto" }}
+        yScale={{ type: "linear", min: 0, max: "auto" }}
+        colors={colours}
+        lineWidth={1.6}
+        enablePoints={false}
+        enableGridX={false}
+        useMesh
+        animate={false}
+        axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
+        axisLeft={{ legend: yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
+        layers={[layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
+        theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
+      />
+    </div>
+  );
+}
+
+function Plots({ older, newer }: { older: { label: string; result: AnalysisResult }; newer: { label: string; result: AnalysisResult } }) {
+  const u = useUnits();
+  const options = useMemo(() => [...new Set([...newer.result.sweep.series, ...older.result.sweep.series].map(caseKey))], [older, newer]);
+  const [pick, setPick] = useState(0);
+  const chosen = options[Math.min(pick, options.length - 1)] ?? "";
+  const ranges = newer.result.sweep.operatingRangesHz ?? [];
+  if (!options.length) return <p className="text-sm text-basalt-400">No rotor to plot.</p>;
+  const both = (kind: "displacement" | "velocity"): Series[] =>
+    [older, newer].map((rev) => {
+      const values = envelope(rev.result, chosen, (s) => (kind === "displacement" ? s.displacementPeak : s.velocityPeak));
+      return { id: `revision ${rev.label}`, data: rev.result.sweep.frequencyHz.map((f, i) => ({ x: f, y: u.toDisplayNumber(kind, values[i] ?? 0) })) };
+    });
+  const tr: Series[] = [older, newer].map((rev) => {
+    const t = (rev.result.sweep.transmissibility ?? []).find((x) => caseKey(x) === chosen);
+    return { id: `revision ${rev.label}`, data: rev.result.sweep.frequencyHz.map((f, i) => ({ x: f, y: t?.values[i] ?? 0 })) };
+  });
+  return (
+    <div className="space-y-3">
+      <label className="flex items-center gap-2 text-xs">
+        <span className="field-label mb-0">Rotor and load case</span>
+        <select className="field-input w-auto" value={pick} onChange={(e) => setPick(Number(e.target.value))}>
+          {options.map((o, i) => (
+            <option key={o} value={i}>
+              {o}
+            </option>
+          ))}
+        </select>
+      </label>
+      <div className="flex flex-wrap gap-3 text-2xs text-basalt-500">
+        <span><span className="inline-block h-0.5 w-4 align-middle" style={{ background: colours[0] }} /> revision {older.label}</span>
+        <span><span className="inline-block h-0.5 w-4 align-middle" style={{ background: colours[1] }} /> revision {newer.label}</span>
+        <span><span className="inline-block h-2 w-4 bg-ochre-300 align-middle" /> operating speed range (revision {newer.label})</span>
+      </div>
+      <div className="grid grid-cols-1 gap-4 2xl:grid-cols-2">
+        <div>
+          <p className="text-xs font-semibold">Displacement amplitude, largest over the points</p>
+          <Overlay series={both("displacement")} ranges={ranges} yLabel={`peak (${u.unitLabel("displacement")})`} testId="compare-plot-displacement" />
+        </div>
+        <div>
+          <p className="text-xs font-semibold">Velocity amplitude, largest over the points</p>
+          <Overlay series={both("velocity")} ranges={ranges} yLabel={`peak (${u.unitLabel("velocity")})`} testId="compare-plot-velocity" />
+        </div>
+        <div>
+          <p className="text-xs font-semibold">Transmissibility</p>
+          <Overlay series={tr} ranges={ranges} yLabel="TR" testId="compare-plot-transmissibility" />
+        </div>
+      </div>
+    </div>
+  );
+}
+
+/** The frequency responses of two revisions drawn over each other. */
+export function ComparePlots(props: { older: { label: string; result: AnalysisResult }; newer: { label: string; result: AnalysisResult }; units: UnitSystem }) {
+  return (
+    <UnitsProvider initial={props.units}>
+      <Plots older={props.older} newer={props.newer} />
+    </UnitsProvider>
+  );
+}
