@@ -83,7 +83,9 @@ export const vendorSubmissions = pgTable(
     version: integer("version").notNull(),
     source: text("source", { enum: ["workbook", "csv", "form"] }).notNull(),
     machines: jsonb("machines").notNull(),
-    fileId: uuid("file_id").references(() => storedFiles.id),
+    // Cascade only so that a removed request can take its files and versions together; on its
+    // own, removing the file of a version is refused by the immutability trigger.
+    fileId: uuid("file_id").references(() => storedFiles.id, { onDelete: "cascade" }),
     sha256: text("sha256").notNull(),
     note: text("note").notNull().default(""),
     submittedById: uuid("submitted_by_id").notNull().references(() => users.id),
@@ -97,7 +99,9 @@ export const vendorSubmissionDrawings = pgTable(
   "vendor_submission_drawings",
   {
     submissionId: uuid("submission_id").notNull().references(() => vendorSubmissions.id, { onDelete: "cascade" }),
-    fileId: uuid("file_id").notNull().references(() => storedFiles.id),
+    fileId: uuid("file_id")
+      .notNull()
+      .references(() => storedFiles.id, { onDelete: "cascade" }),
     ...stamps,
   },
   (t) => [primaryKey({ columns: [t.submissionId, t.fileId], name: "vendor_submission_drawings_pk" })],
