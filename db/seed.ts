@@ -4,7 +4,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { parseAnalysisInput } from "@/modules/calc";
 import type { MachineInput } from "@/modules/calc/schema";
-import { createDraftFromExample } from "./queries/drafts";
+import { createDraftFromExample, getDraft } from "./queries/drafts";
 import { createSeedRevision } from "./queries/revisions";
 import { DEMO_PASSWORD, DEMO_PROJECT_CODE, DEMO_VENDOR_COMPANY, demoAccounts } from "@/modules/platform/demo";
 import { createUser, getUserByEmail } from "./queries/accounts";
@@ -95,7 +95,9 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
     ],
     decision: { outcome: "returned", note: "Returned: preliminary rotor data and the mass ratio check fails.", decidedById: checkerId, decidedAt: new Date(now - 10 * day) },
   });
-  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day) });
+  // B was issued from the draft as it stands, so it records the vendor submission the draft uses.
+  const draft = await getDraft({ userId: designerId, isAdmin: false }, projectId, foundationId);
+  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day), vendorSubmissionId: draft?.vendorSubmissionId ?? null });
 }
 
 /** An example input from examples/, checked by the contract's schema like any other input. */

@@ -423,6 +423,7 @@ export async function createSeedRevision(args: {
   input: AnalysisInput;
   issuedById: string;
   issuedAt: Date;
+  vendorSubmissionId?: string | null;
   decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
   comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
 }): Promise<string> {
@@ -441,6 +442,7 @@ export async function createSeedRevision(args: {
         result,
         engineVersion: result.engineVersion,
         inputHash: canonicalInputHash(args.input),
+        vendorSubmissionId: args.vendorSubmissionId ?? null,
         issuedById: args.issuedById,
         issuedAt: args.issuedAt,
         createdAt: args.issuedAt,
