@@ -95,6 +95,9 @@ export function gazetasDashpots(rho: number, Vs: number, nu: number, b: GazetasB
   };
 }
 
+/** Relative difference of the half-sides below which the base counts as square (L along x). */
+const SQUARE_TOLERANCE = 1e-9;
+
 /** Gazetas' axes onto ours: index into [x, y, z, rx, ry, t] for each of our x, y, z, rx, ry, rz. */
 function axisMap(longAlongX: boolean): (keyof GazetasStiffness)[] {
   return longAlongX ? ["x", "y", "z", "rx", "ry", "t"] : ["y", "x", "z", "ry", "rx", "t"];
@@ -103,7 +106,9 @@ function axisMap(longAlongX: boolean): (keyof GazetasStiffness)[] {
 export function gazetasBaseFromContact(ctx: ImpedanceContext): { base: GazetasBase; longAlongX: boolean } {
   const hx = (ctx.base.bounds.x[1] - ctx.base.bounds.x[0]) / 2;
   const hy = (ctx.base.bounds.y[1] - ctx.base.bounds.y[0]) / 2;
-  const longAlongX = hx >= hy;
+  // A square base has no long side; a relative tolerance keeps the choice (L along x) stable
+  // under round-off, since Gazetas' K_rx and K_ry differ by about 3 % even when L = B.
+  const longAlongX = hx >= hy * (1 - SQUARE_TOLERANCE);
   const L = Math.max(hx, hy);
   const B = Math.min(hx, hy);
   // Rectangle formulas of the enclosing 2L x 2B rectangle (Gazetas 1991).
