@@ -1,0 +1,77 @@
+"use client";
+
+import { useActionState, useState } from "react";
+import { FormMessage, SubmitButton, TextField, fieldErrorsOf, type FormState } from "../form-kit";
+import type { ServerAction } from "../../_lib/action";
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- each action has its own data type
+type AnyAction = ServerAction<any>;
+
+export interface FoundationChoice {
+  id: string;
+  tag: string;
+  machineNames: string[];
+}
+
+export interface ContactChoiceView {
+  userId: string;
+  label: string;
+}
+
+/** The designer's request: a foundation, its machines, and a vendor contact (existing or new). */
+export function SendRequestForm({ projectId, foundations, contacts, action }: { projectId: string; foundations: FoundationChoice[]; contacts: ContactChoiceView[]; action: AnyAction }) {
+  const [state, formAction] = useActionState(action as (s: FormState, f: FormData) => Promise<FormState>, null);
+  const [foundationId, setFoundationId] = useState(foundations[0]?.id ?? "");
+  const [contact, setContact] = useState(contacts[0] ? `member:${contacts[0].userId}` : "new");
+  const machines = foundations.find((f) => f.id === foundationId)?.machineNames.join("\n") ?? "";
+  return (
+    <form action={formAction} className="space-y-3" data-testid="send-request-form">
+      <input type="hidden" name="projectId" value={projectId} />
+      <div className="grid gap-3 md:grid-cols-2">
+        <label className="block">
+          <span className="field-label">Foundation</span>
+          <select name="foundationId" className="field-input" value={foundationId} onChange={(e) => setFoundationId(e.target.value)}>
+            {foundations.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.tag}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="block">
+          <span className="field-label">Vendor contact</span>
+          <select name="contact" className="field-input" value={contact} onChange={(e) => setContact(e.target.value)}>
+            {contacts.map((c) => (
+              <option key={c.userId} value={`member:${c.userId}`}>
+                {c.label}
+              </option>
+            ))}
+            <option value="new">New contact (invite by e-mail)…</option>
+          </select>
+        </label>
+      </div>
+      {contact === "new" ? (
+        <div className="grid gap-3 md:grid-cols-3">
+          <TextField name="newEmail" label="Contact e-mail" type="email" state={state} />
+          <TextField name="newName" label="Contact name" state={state} />
+          <TextField name="newCompany" label="Vendor company" state={state} />
+        </div>
+      ) : null}
+      <label className="block">
+        <span className="field-label">Machines asked for (one per line; names as in the draft prefill their figures)</span>
+        <textarea key={foundationId} name="machineNames" rows={3} className="field-input font-mono" defaultValue={machines} />
+        {fieldErrorsOf(state, "machineNames").map((e) => (
+          <span key={e} className="field-error block">
+            {e}
+          </span>
+        ))}
+      </label>
+      <div className="grid gap-3 md:grid-cols-[1fr_12rem]">
+        <TextField name="message" label="Note to the vendor" state={state} />
+        <TextField name="dueOn" label="Wanted by" type="date" state={state} />
+      </div>
+      <SubmitButton>Send data request</SubmitButton>
+      <FormMessage state={state} />
+    </form>
+  );
+}
