@@ -10,6 +10,9 @@ const tsx = path.join(root, "node_modules/.bin/tsx");
 const examples = readdirSync(path.join(root, "examples")).filter((f) => f.endsWith(".json"));
 const tmp = mkdtempSync(path.join(os.tmpdir(), "plinthwise-cli-"));
 
+// spawning tsx takes about a second; allow for a loaded machine
+const CLI_TIMEOUT_MS = 60_000;
+
 function calc(...args: string[]) {
   return spawnSync(tsx, ["scripts/calc.ts", ...args], { cwd: root, encoding: "utf8", maxBuffer: 64 * 1024 * 1024 });
 }
@@ -29,7 +32,7 @@ describe("calc command line", () => {
     expect(result.schemaVersion).toBe(1);
     expect(result.engineVersion).toBe("1.0.0");
     expect(result.modes).toHaveLength(6);
-  });
+  }, CLI_TIMEOUT_MS);
 
   it("invalid input: every problem with its JSON path on stderr, nothing on stdout, exit 1", () => {
     const doc = JSON.parse(readFileSync(path.join(root, "examples/raw-water-pump-train.json"), "utf8"));
@@ -40,14 +43,14 @@ describe("calc command line", () => {
     expect(out.stdout).toBe("");
     expect(out.stderr).toContain("soil.poissonRatio");
     expect(out.stderr).toContain("machines[1].rotors[0].bearings");
-  });
+  }, CLI_TIMEOUT_MS);
 
   it("a file that is not JSON exits 1 with nothing on stdout", () => {
     const out = calc(writeInput("not.json", "{ schemaVersion: 1,"));
     expect(out.status).toBe(1);
     expect(out.stdout).toBe("");
     expect(out.stderr).toMatch(/not valid JSON/);
-  });
+  }, CLI_TIMEOUT_MS);
 
   it("an unreadable file exits 1; a wrong command line exits 2", () => {
     const missing = calc(path.join(tmp, "missing.json"));
@@ -58,5 +61,5 @@ describe("calc command line", () => {
     expect(usage.status).toBe(2);
     expect(usage.stdout).toBe("");
     expect(usage.stderr).toMatch(/usage/);
-  });
+  }, CLI_TIMEOUT_MS);
 });

@@ -8,6 +8,9 @@ import { buildModel } from "@/modules/calc/model";
 import { runSoilCase } from "@/modules/calc/soil-case";
 import { arbitraryInput } from "./helpers";
 
+/** Property tests run many full analyses; allow for a loaded machine. */
+const PROPERTY_TIMEOUT_MS = 60_000;
+
 function modelOf(doc: unknown) {
   const parsed = parseAnalysisInput(doc);
   if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
@@ -53,7 +56,7 @@ describe("generalised eigenproblem K phi = w^2 M phi", () => {
       }),
       { numRuns: 60 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 
   it("mathjs route (M^-1/2 K M^-1/2, mathjs eigs) agrees with the ml-matrix route to 1e-9 relative", () => {
     fc.assert(
@@ -75,5 +78,5 @@ describe("generalised eigenproblem K phi = w^2 M phi", () => {
       }),
       { numRuns: 60 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 });

@@ -10,6 +10,9 @@ type Doc = AnalysisInputDocument;
 type V3 = [number, number, number];
 type Range = [number, number];
 
+/** Property tests run many full analyses; allow for a loaded machine. */
+const PROPERTY_TIMEOUT_MS = 60_000;
+
 function run(doc: Doc): AnalysisResult {
   const parsed = parseAnalysisInput(doc);
   if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
@@ -79,7 +82,7 @@ describe("a common horizontal shift of every coordinate", () => {
       }),
       { numRuns: 40 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 });
 
 describe("mirroring the block", () => {
@@ -95,7 +98,7 @@ describe("mirroring the block", () => {
       }),
       { numRuns: 40 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 });
 
 function walkFinite(value: unknown, path: string, bad: string[]) {
@@ -117,5 +120,5 @@ describe("finite output", () => {
       }),
       { numRuns: 80 },
     );
-  });
+  }, PROPERTY_TIMEOUT_MS);
 });
