@@ -14,6 +14,7 @@ rm -rf "$ART" && mkdir -p "$ART"
 ensure_node_modules
 ensure_env_file
 bash scripts/lib/ensure-chromium.sh
+bash scripts/lib/ensure-libreoffice.sh
 
 # Tests never run against DATABASE_URL (it may be production): TEST_DATABASE_URL or the local
 # cluster. Each phase gets a fresh, freshly seeded database so no suite sees another's leftovers.

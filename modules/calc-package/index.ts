@@ -1,0 +1,9 @@
+// Calculation package: the workbook of one revision and the project register (exceljs),
+// built from plain data so the route handlers only read and the builders only write.
+export { buildRevisionWorkbook, revisionWorkbookBytes, PACKAGE_SHEETS, DOF_NAMES, checkKind } from "./revision-workbook";
+export { buildRegisterWorkbook, registerWorkbookBytes, REGISTER_SHEETS } from "./register-workbook";
+export { addHandCheckSheet, handCheckValues, HAND_CHECK_COLUMNS, HAND_CHECK_FIRST_ROW, type HandCheckSymbol } from "./hand-check-sheet";
+export { packageFileName, registerFileName, attachmentDisposition, XLSX_CONTENT_TYPE } from "./file-names";
+export { safeText, looksLikeFormula } from "./safe-text";
+export { packageUnit, toPackageUnit, factorToStored, type PackageKind } from "./package-units";
+export type * from "./types";

@@ -1,0 +1,597 @@
+// The calculation package of one revision: an Excel workbook a checker or the client can
+// audit, every number from the stored revision (input and engine result as issued), in
+// the project's unit system with the unit in every header, and a hand-check sheet whose
+// single-degree-of-freedom values are live formulas.
+import ExcelJS from "exceljs";
+import { CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, type CheckResult, type DofKey } from "@/modules/calc";
+import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
+import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
+import { revisionStatusLabels } from "@/modules/revisions";
+import type { PackageKind } from "./package-units";
+import { addHandCheckSheet } from "./hand-check-sheet";
+import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
+import type { PackageRevisionSummary, RevisionPackageData } from "./types";
+
+export const PACKAGE_SHEETS = {
+  cover: "Cover",
+  inputs: "Inputs",
+  mass: "Mass",
+  springs: "Soil springs",
+  modes: "Modes",
+  response: "Response",
+  band: "Soil band",
+  checks: "Checks",
+  history: "Revision trail",
+  handCheck: "Hand check",
+} as const;
+
+export const DOF_NAMES: Record<DofKey, string> = {
+  x: "x sliding",
+  y: "y sliding",
+  z: "z vertical",
+  rx: "rx rocking about x",
+  ry: "ry rocking about y",
+  rz: "rz torsion",
+};
+
+export const METHOD_NAMES = {
+  "equivalent-radius": "equivalent-radius half-space springs with Lysmer's analog damping (Richart, Hall & Woods 1970)",
+  gazetas: "static and dynamic stiffness and radiation dashpots of a rectangular base (Gazetas 1991)",
+  user: "springs and damping ratios entered by the user (geotechnical report or pile-group analysis)",
+} as const;
+
+const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
+const SHAPE_FORMAT = "0.000E+00";
+const SHARE_FORMAT = "0.000";
+const UTC = " (UTC)";
+
+export const UNIT_SYSTEM_NAMES = { si: "SI", us: "US customary" } as const;
+
+/** The revision's checked-by and approved-by names: the one decision a checker (or manager) made. */
+export function signatures(r: PackageRevisionSummary): { checked: string; approved: string } {
+  if (!r.decision) return { checked: "not yet", approved: "not yet" };
+  return { checked: r.decision.decidedByName, approved: r.decision.outcome === "approved" ? r.decision.decidedByName : "not approved (returned)" };
+}
+
+function cover(w: SheetWriter, d: RevisionPackageData): void {
+  const { project, foundation, revision } = d;
+  const sign = signatures(revision);
+  w.title(`Calculation package: ${project.code} ${foundation.tag}, revision ${revision.label}`);
+  w.note("Concrete block foundation of rotating machines: masses, soil springs, natural frequencies, response and checks as issued.");
+  w.blank();
+  w.pairs("Project", [
+    { label: "Project code", value: project.code },
+    { label: "Project name", value: project.name },
+    { label: "Client", value: project.client || "—" },
+    { label: "Site", value: project.site || "—" },
+    { label: "Units in this workbook", value: UNIT_SYSTEM_NAMES[project.units], note: "the project's unit system; the stored revision is SI (calculation contract v1)" },
+  ]);
+  w.pairs("Foundation", [
+    { label: "Tag", value: foundation.tag },
+    { label: "Machine train", value: foundation.machineTrain || "—" },
+    { label: "Location", value: foundation.location || "—" },
+  ]);
+  w.table(
+    "Revision block",
+    [{ header: "Revision" }, { header: `Date${UTC}` }, { header: "By" }, { header: "Checked" }, { header: "Approved" }, { header: "Status" }],
+    [[revision.label, revision.issuedAt, revision.issuedByName, sign.checked, sign.approved, revisionStatusLabels[revision.status]]],
+  );
+  w.pairs("Record", [
+    { label: "Decision date" + UTC, value: revision.decision?.decidedAt ?? "—" },
+    { label: "Decision note", value: revision.decision?.note || "—" },
+    { label: "Open review comments", value: revision.openComments, kind: "count" },
+    { label: "Engine version", value: revision.engineVersion },
+    { label: "Input fingerprint (SHA-256 of the canonical input)", value: revision.inputHash },
+    { label: "Vendor submission used", value: revision.vendorSubmissionId ?? "none recorded" },
+    { label: "Workbook written" + UTC, value: d.generatedAt },
+    { label: "Written for", value: d.generatedByName },
+  ]);
+  w.title(CAUTIONS_TITLE);
+  for (const c of CAUTIONS) w.note(c, { bold: true });
+  w.blank();
+  w.table("Engine warnings", [{ header: "Warning" }], d.result.warnings.map((x) => [x]));
+  w.table(
+    "Sheets",
+    [{ header: "Sheet" }, { header: "What it holds" }],
+    [
+      [PACKAGE_SHEETS.inputs, "block, soil, impedance method, machines, rotors, bearings, check points, criteria with their sources, soil band, sweep"],
+      [PACKAGE_SHEETS.mass, "masses, centre of gravity, eccentricity, mass ratio, bearing pressure, inertia"],
+      [PACKAGE_SHEETS.springs, "soil springs, damping ratios and dashpots per degree of freedom"],
+      [PACKAGE_SHEETS.modes, "six natural frequencies, participation, mode shapes, frequency ratios, avoidance bands, closed-form cross-check"],
+      [PACKAGE_SHEETS.response, "amplitude and velocity at every bearing and check point for every load case"],
+      [PACKAGE_SHEETS.band, "the same analysis at the lower and the upper shear modulus"],
+      [PACKAGE_SHEETS.checks, "every check with value, limit, verdict and source"],
+      [PACKAGE_SHEETS.history, "every revision of this foundation and its review trail"],
+      [PACKAGE_SHEETS.handCheck, "vertical single-degree-of-freedom check as live formulas: change a yellow cell and see the effect"],
+    ],
+  );
+  w.widths([44, 30, 26, 26, 26, 22]);
+}
+
+function inputs(w: SheetWriter, d: RevisionPackageData): void {
+  const { input, result } = d;
+  const L: PackageKind = "length";
+  w.title(`Inputs of revision ${d.revision.label} as issued`);
+  w.blank();
+  w.pairs("Block", [{ label: "Concrete density", value: input.block.concreteDensity, kind: "density" }]);
+  w.table(
+    "Solids and voids (boxes in the foundation's coordinates; z up, O at the centroid of the base)",
+    [{ header: "Name" }, { header: "Kind" }, { header: "x from", kind: L }, { header: "x to", kind: L }, { header: "y from", kind: L }, { header: "y to", kind: L }, { header: "z from", kind: L }, { header: "z to", kind: L }],
+    input.block.solids.map((s) => [s.name, s.void ? "void" : "solid", s.x[0], s.x[1], s.y[0], s.y[1], s.z[0], s.z[1]]),
+  );
+  const soil = input.soil;
+  const soilPairs: Pair[] = [];
+  if (soil.shearModulus !== undefined) soilPairs.push({ label: "Shear modulus G", value: soil.shearModulus, kind: "modulus", note: "from the geotechnical report" });
+  if (soil.shearWaveVelocity !== undefined) soilPairs.push({ label: "Shear-wave velocity Vs", value: soil.shearWaveVelocity, kind: "waveSpeed", note: "G = rho Vs^2" });
+  soilPairs.push(
+    { label: "Poisson's ratio", value: soil.poissonRatio, kind: "ratio" },
+    { label: "Soil density", value: soil.density, kind: "density" },
+    { label: "Material damping beta", value: soil.materialDamping ?? 0, kind: "ratio", note: soil.materialDamping === undefined ? "not given: 0 used" : "hysteretic, multiplies the stiffness by (1 + 2 i beta)" },
+    { label: "Allowable bearing pressure", value: soil.allowableBearingPressure, kind: "pressure" },
+    { label: "Embedment depth", value: soil.embedmentDepth, kind: L },
+    { label: "Sidewall contact height", value: soil.sidewallContactHeight, kind: L },
+  );
+  w.pairs("Soil", soilPairs);
+  w.pairs("Impedance method", [{ label: "Method", value: input.impedance.method, note: METHOD_NAMES[input.impedance.method] }]);
+  if (input.impedance.method === "user") {
+    const imp = input.impedance;
+    w.table(
+      "User springs and damping ratios",
+      [{ header: "Degree of freedom" }, { header: "Translational stiffness", kind: "stiffness" }, { header: "Rotational stiffness", kind: "rotationalStiffness" }, { header: "Damping ratio", kind: "ratio" }],
+      DOF_KEYS.map((k) => [DOF_NAMES[k], translational(k) ? imp.stiffness[k] : null, translational(k) ? null : imp.stiffness[k], imp.dampingRatio[k]]),
+    );
+  }
+  w.table(
+    "Machines (point masses at their centre of gravity unless a box is given)",
+    [{ header: "Machine" }, { header: "Mass", kind: "mass" }, { header: "cg x", kind: L }, { header: "cg y", kind: L }, { header: "cg z", kind: L }, { header: "Modelled as" }, { header: "Rotors", kind: "count" }],
+    input.machines.map((m) => [m.name, m.mass, m.cg[0], m.cg[1], m.cg[2], m.box ? `box x ${m.box.x.join("..")}, y ${m.box.y.join("..")}, z ${m.box.z.join("..")} m` : "point mass", m.rotors.length]),
+  );
+  const rotors = input.machines.flatMap((m) => m.rotors.map((r) => ({ m, r })));
+  w.table(
+    "Rotors (unbalance from the ISO 1940-1 balance grade, e = G / w, or the vendor's force at rated speed)",
+    [
+      { header: "Machine" },
+      { header: "Rotor" },
+      { header: "Rotor mass", kind: "mass" },
+      { header: "Rated speed", kind: "speed" },
+      { header: "Speed range from", kind: "speed" },
+      { header: "Speed range to", kind: "speed" },
+      { header: "Balance grade G", kind: "balanceGrade" },
+      { header: "Vendor force at rated speed", kind: "force" },
+      { header: "Service factor", kind: "ratio" },
+      { header: "Shaft axis" },
+      { header: "Unbalance" },
+      { header: "Bearings", kind: "count" },
+    ],
+    rotors.map(({ m, r }) => [m.name, r.name, r.mass, r.speedRpm, r.speedRangeRpm?.[0] ?? r.speedRpm, r.speedRangeRpm?.[1] ?? r.speedRpm, r.balanceGrade ?? null, r.unbalanceForce ?? null, r.serviceFactor, r.axis, r.unbalanceMode, r.bearings.length]),
+  );
+  w.table(
+    "Bearings",
+    [{ header: "Machine" }, { header: "Rotor" }, { header: "Bearing", kind: "count" }, { header: "x", kind: L }, { header: "y", kind: L }, { header: "z", kind: L }],
+    rotors.flatMap(({ m, r }) => r.bearings.map((b, i) => [m.name, r.name, i + 1, b[0], b[1], b[2]] as Cell[])),
+  );
+  w.table(
+    "Check points",
+    [{ header: "Point" }, { header: "x", kind: L }, { header: "y", kind: L }, { header: "z", kind: L }],
+    (input.checkPoints ?? []).map((p) => [p.name, p.position[0], p.position[1], p.position[2]]),
+  );
+  const criterionKinds: Record<keyof typeof CRITERIA_DEFAULTS, PackageKind> = {
+    frequencySeparation: "ratio",
+    maxDisplacementPeak: "displacement",
+    maxVelocityPeak: "velocity",
+    minMassRatio: "ratio",
+    maxEccentricity: "ratio",
+    maxBearingRatio: "ratio",
+  };
+  const criterionLabels: Record<keyof typeof CRITERIA_DEFAULTS, string> = {
+    frequencySeparation: "Frequency separation |r - 1| at least",
+    maxDisplacementPeak: "Peak displacement at most",
+    maxVelocityPeak: "Peak velocity at most",
+    minMassRatio: "Block mass over machine mass at least",
+    maxEccentricity: "Eccentricity of the combined cg at most (fraction of base side)",
+    maxBearingRatio: "Static bearing pressure over allowable at most",
+  };
+  w.pairs(
+    "Acceptance criteria used",
+    (Object.keys(CRITERIA_DEFAULTS) as (keyof typeof CRITERIA_DEFAULTS)[]).map((k) => {
+      const used = result.criteria?.[k] ?? { value: input.criteria?.[k] ?? CRITERIA_DEFAULTS[k].value, source: CRITERIA_DEFAULTS[k].source };
+      return { label: criterionLabels[k], value: used.value, kind: criterionKinds[k], note: used.source };
+    }),
+    "Source",
+  );
+  w.pairs(
+    "Soil band",
+    [
+      { label: "Lower factor on G", value: result.bounds?.lower.factor ?? input.soilBand?.lowerFactor ?? SOIL_BAND_DEFAULTS.lowerFactor, kind: "ratio", note: result.bounds?.source ?? SOIL_BAND_DEFAULTS.source },
+      { label: "Upper factor on G", value: result.bounds?.upper.factor ?? input.soilBand?.upperFactor ?? SOIL_BAND_DEFAULTS.upperFactor, kind: "ratio" },
+    ],
+    "Source",
+  );
+  const f = result.sweep.frequencyHz;
+  w.pairs("Frequency sweep", [
+    { label: "From", value: f[0] ?? input.sweep?.fromHz ?? null, kind: "frequency" },
+    { label: "To", value: f.at(-1) ?? input.sweep?.toHz ?? null, kind: "frequency" },
+    { label: "Points", value: f.length, kind: "count" },
+  ]);
+  w.pairs(
+    "Methods",
+    [
+      { label: "Mass properties", value: "composite of boxes, voids and machines", note: "rigid block; mass matrix about O" },
+      { label: "Soil impedance", value: input.impedance.method, note: METHOD_NAMES[input.impedance.method] },
+      { label: "Dynamics", value: "six-degree-of-freedom rigid block", note: "undamped eigen-analysis; damped harmonic steady state (K - w^2 M + i w C) u = F" },
+      { label: "Loads", value: "rotating unbalance", note: "ISO 1940-1 balance grade: F = m_r e w^2, e = G / w_rated; or the vendor's force scaled with (w / w_rated)^2" },
+      { label: "Cross-check", value: "closed forms", note: result.crossCheck?.source ?? "single-degree-of-freedom oscillator (Chopra, Dynamics of Structures)" },
+    ],
+    "Reference",
+  );
+  w.widths([44, 22, 14, 14, 14, 14, 14, 14, 12, 10, 10, 10]);
+}
+
+function mass(w: SheetWriter, d: RevisionPackageData): void {
+  const mp = d.result.massProperties;
+  const L: PackageKind = "length";
+  w.title("Mass properties (block of boxes and voids plus machines)");
+  w.blank();
+  const pairs: Pair[] = [
+    { label: "Block mass", value: mp.blockMass, kind: "mass" },
+    { label: "Machine mass", value: mp.machineMass, kind: "mass" },
+    { label: "Total mass", value: mp.totalMass, kind: "mass" },
+    { label: "Combined cg x", value: mp.cg[0], kind: L },
+    { label: "Combined cg y", value: mp.cg[1], kind: L },
+    { label: "Combined cg z", value: mp.cg[2], kind: L },
+    { label: "Base contact area", value: mp.baseArea, kind: "area" },
+    { label: "Eccentricity x (fraction of base length)", value: mp.eccentricity[0], kind: "ratio" },
+    { label: "Eccentricity y (fraction of base width)", value: mp.eccentricity[1], kind: "ratio" },
+    { label: "Mass ratio (block over machines)", value: mp.massRatio, kind: "ratio" },
+    { label: "Static bearing pressure", value: mp.staticBearingPressure, kind: "pressure", note: "total weight over base area, g = 9.80665 m/s^2" },
+  ];
+  if (mp.origin) pairs.push({ label: "O x", value: mp.origin[0], kind: L }, { label: "O y", value: mp.origin[1], kind: L }, { label: "O z", value: mp.origin[2], kind: L });
+  if (mp.baseDimensions) pairs.push({ label: "Base length in x", value: mp.baseDimensions[0], kind: L }, { label: "Base width in y", value: mp.baseDimensions[1], kind: L });
+  if (mp.baseMomentOfArea) pairs.push({ label: "Second moment of base area about x", value: mp.baseMomentOfArea.aboutX, kind: "momentOfArea" }, { label: "Second moment of base area about y", value: mp.baseMomentOfArea.aboutY, kind: "momentOfArea" });
+  if (mp.baseThickness !== undefined) pairs.push({ label: "Thinnest solid on the soil", value: mp.baseThickness, kind: L });
+  w.pairs("Masses and centre of gravity", pairs);
+  const axes = ["x", "y", "z"];
+  w.table(
+    "Inertia tensor about the combined centre of gravity",
+    [{ header: "Row" }, { header: "about x", kind: "massInertia" }, { header: "about y", kind: "massInertia" }, { header: "about z", kind: "massInertia" }],
+    mp.inertiaAtCg.map((row, i) => [`I ${axes[i] ?? i}`, row[0], row[1], row[2]]),
+  );
+  if (mp.massMatrix) {
+    const diag = mp.massMatrix;
+    w.table(
+      "Mass matrix about O, diagonal (translations: total mass; rotations: inertia about the axes through O)",
+      [{ header: "Degree of freedom" }, { header: "Mass", kind: "mass" }, { header: "Inertia", kind: "massInertia" }],
+      DOF_KEYS.map((k, i) => [DOF_NAMES[k], translational(k) ? (diag[i]?.[i] ?? null) : null, translational(k) ? null : (diag[i]?.[i] ?? null)]),
+    );
+  }
+  w.widths([46, 18, 18, 18]);
+}
+
+function springs(w: SheetWriter, d: RevisionPackageData): void {
+  const imp = d.result.impedance;
+  w.title("Soil impedance: springs and dashpots at O");
+  w.note(METHOD_NAMES[imp.method]);
+  w.blank();
+  const pairs: Pair[] = [{ label: "Method", value: imp.method }];
+  if (imp.evaluatedAtHz !== undefined) pairs.push({ label: "Evaluated at (first rotor's rated speed)", value: imp.evaluatedAtHz, kind: "frequency" });
+  if (imp.materialDamping !== undefined) pairs.push({ label: "Material damping beta", value: imp.materialDamping, kind: "ratio" });
+  if (imp.shearModulus !== undefined) pairs.push({ label: "Shear modulus G", value: imp.shearModulus, kind: "modulus" });
+  if (imp.shearWaveVelocity !== undefined) pairs.push({ label: "Shear-wave velocity Vs", value: imp.shearWaveVelocity, kind: "waveSpeed" });
+  w.pairs("Basis", pairs);
+  const table = (title: string, keys: DofKey[], k: PackageKind, c: PackageKind) =>
+    w.table(
+      title,
+      [{ header: "Degree of freedom" }, { header: "Static stiffness", kind: k }, { header: "Stiffness used", kind: k }, { header: "Damping ratio", kind: "ratio" }, { header: "Dashpot", kind: c }],
+      keys.map((key) => [DOF_NAMES[key], imp.staticStiffness[key], imp.stiffness[key], imp.dampingRatio[key], imp.dashpot?.[key] ?? null]),
+    );
+  table("Translations", ["x", "y", "z"], "stiffness", "dashpot");
+  table("Rotations", ["rx", "ry", "rz"], "rotationalStiffness", "rotationalDashpot");
+  w.table(
+    "Intermediate values of the method (SI, as the engine reports them)",
+    [{ header: "Name" }, { header: "Value [SI]", numFmt: "0.0000E+00" }],
+    Object.entries(imp.details ?? {}).map(([k, v]) => [k, v]),
+  );
+  w.widths([40, 20, 20, 16, 20]);
+}
+
+function modes(w: SheetWriter, d: RevisionPackageData): void {
+  const r = d.result;
+  w.title("Natural frequencies and mode shapes of the rigid block (undamped)");
+  w.blank();
+  const share = (k: DofKey): Column => ({ header: `share ${k}`, kind: "ratio", numFmt: SHARE_FORMAT });
+  const shape = (k: DofKey): Column => ({ header: `shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]`, numFmt: SHAPE_FORMAT });
+  w.table(
+    "Modes",
+    [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Dominant" }, ...DOF_KEYS.map(share), ...DOF_KEYS.map(shape)],
+    r.modes.map((m, i) => [i + 1, m.frequencyHz, m.dominant, ...DOF_KEYS.map((k) => m.participation[k]), ...m.shape]),
+  );
+  w.table(
+    "Frequency ratios r = rated speed / natural frequency",
+    [{ header: "Machine" }, { header: "Rotor" }, { header: "Rated speed", kind: "speed" }, ...r.modes.map((_, i) => ({ header: `r mode ${i + 1}`, kind: "ratio" as const }))],
+    r.rotors.map((x) => [x.machine, x.rotor, x.speedRpm, ...x.frequencyRatios]),
+  );
+  w.table(
+    "Operating ranges",
+    [{ header: "Machine" }, { header: "Rotor" }, { header: "From", kind: "frequency" }, { header: "To", kind: "frequency" }, { header: "Rated", kind: "frequency" }],
+    (r.sweep.operatingRangesHz ?? []).map((o) => [o.machine, o.rotor, o.fromHz, o.toHz, o.ratedHz]),
+  );
+  w.table(
+    "Avoidance bands (natural frequency times 1 - s and 1 + s, s the separation criterion)",
+    [{ header: "Mode", kind: "count" }, { header: "From", kind: "frequency" }, { header: "To", kind: "frequency" }],
+    (r.sweep.avoidanceBandsHz ?? []).map((b) => [b.mode, b.fromHz, b.toHz]),
+  );
+  const cc = r.crossCheck;
+  if (cc) {
+    w.table(
+      "Closed-form cross-check",
+      [{ header: "Closed form" }, { header: "Closed-form frequency", kind: "frequency" }, { header: "Nearest mode", kind: "count" }, { header: "Nearest mode frequency", kind: "frequency" }],
+      [
+        ["vertical sqrt(k_z / m) / (2 pi)", cc.vertical.closedFormHz, cc.vertical.nearestMode, cc.vertical.nearestModeHz],
+        ["torsion sqrt(k_rz / I_z) / (2 pi)", cc.torsion.closedFormHz, cc.torsion.nearestMode, cc.torsion.nearestModeHz],
+        ["rocking-sliding x with ry, lower", cc.rockingSlidingXZ.low.closedFormHz, cc.rockingSlidingXZ.low.nearestMode, cc.rockingSlidingXZ.low.nearestModeHz],
+        ["rocking-sliding x with ry, upper", cc.rockingSlidingXZ.high.closedFormHz, cc.rockingSlidingXZ.high.nearestMode, cc.rockingSlidingXZ.high.nearestModeHz],
+        ["rocking-sliding y with rx, lower", cc.rockingSlidingYZ.low.closedFormHz, cc.rockingSlidingYZ.low.nearestMode, cc.rockingSlidingYZ.low.nearestModeHz],
+        ["rocking-sliding y with rx, upper", cc.rockingSlidingYZ.high.closedFormHz, cc.rockingSlidingYZ.high.nearestMode, cc.rockingSlidingYZ.high.nearestModeHz],
+      ],
+    );
+    w.note(cc.source);
+  }
+  w.widths([34, 14, 14, 12, 12, 12, 12, 12, 12, 16, 16, 16, 16, 16, 16]);
+}
+
+function response(w: SheetWriter, d: RevisionPackageData): void {
+  const r = d.result;
+  const L: PackageKind = "length";
+  w.title("Response at rated speed: harmonic steady state of the six-degree-of-freedom block");
+  w.note("Peak amplitudes per axis; velocity = w x amplitude. Each rotor is analysed on its own (different rotors run at unrelated phases).");
+  w.blank();
+  w.table(
+    "Rotors",
+    [{ header: "Machine" }, { header: "Rotor" }, { header: "Rated speed", kind: "speed" }, { header: "Range from", kind: "speed" }, { header: "Range to", kind: "speed" }, { header: "Force amplitude at rated speed", kind: "force" }],
+    r.rotors.map((x) => [x.machine, x.rotor, x.speedRpm, x.speedRangeRpm?.[0] ?? x.speedRpm, x.speedRangeRpm?.[1] ?? x.speedRpm, x.forceAmplitude]),
+  );
+  const cases = r.rotors.flatMap((x) => x.cases.map((c) => ({ x, c })));
+  w.table(
+    "Load cases",
+    [
+      { header: "Machine" },
+      { header: "Rotor" },
+      { header: "Case" },
+      { header: "Unbalance" },
+      { header: "Soil reaction x", kind: "force" },
+      { header: "Soil reaction y", kind: "force" },
+      { header: "Soil reaction z", kind: "force" },
+      { header: "Transmissibility", kind: "ratio" },
+      { header: "Largest displacement over speed range", kind: "displacement" },
+      { header: "at", kind: "speed" },
+      { header: "at point" },
+      { header: "Largest velocity over speed range", kind: "velocity" },
+      { header: "at", kind: "speed" },
+    ],
+    cases.map(({ x, c }) => [
+      x.machine,
+      x.rotor,
+      c.case,
+      c.unbalanceMode,
+      c.transmittedForce[0],
+      c.transmittedForce[1],
+      c.transmittedForce[2],
+      c.transmissibility,
+      c.maxOverSpeedRange.displacementPeak,
+      c.maxOverSpeedRange.atRpm,
+      c.maxOverSpeedRange.point ?? null,
+      c.maxOverSpeedRange.velocityPeak ?? null,
+      c.maxOverSpeedRange.velocityAtRpm ?? null,
+    ]),
+  );
+  w.table(
+    "Points: every bearing, then every check point",
+    [
+      { header: "Machine" },
+      { header: "Rotor" },
+      { header: "Case" },
+      { header: "Unbalance" },
+      { header: "Point" },
+      { header: "x", kind: L },
+      { header: "y", kind: L },
+      { header: "z", kind: L },
+      { header: "Displacement x", kind: "displacement" },
+      { header: "Displacement y", kind: "displacement" },
+      { header: "Displacement z", kind: "displacement" },
+      { header: "Velocity x", kind: "velocity" },
+      { header: "Velocity y", kind: "velocity" },
+      { header: "Velocity z", kind: "velocity" },
+      { header: "Largest displacement over speed range", kind: "displacement" },
+      { header: "Largest velocity over speed range", kind: "velocity" },
+    ],
+    cases.flatMap(({ x, c }) =>
+      c.points.map((p) => [
+        x.machine,
+        x.rotor,
+        c.case,
+        c.unbalanceMode,
+        p.name,
+        ...p.position,
+        ...p.displacementPeak,
+        ...p.velocityPeak,
+        p.overSpeedRange?.displacementPeak ?? null,
+        p.overSpeedRange?.velocityPeak ?? null,
+      ]),
+    ),
+  );
+  w.widths([22, 14, 12, 12, 30, 12, 12, 12, 14, 14, 14, 14, 14, 14, 16, 16]);
+}
+
+function band(w: SheetWriter, d: RevisionPackageData): void {
+  const b = d.result.bounds;
+  w.title("Soil band: the same analysis at a lower and an upper shear modulus");
+  if (!b) {
+    w.note("This revision's result holds no soil band.");
+    return;
+  }
+  w.note(b.source);
+  w.blank();
+  const n = Math.max(b.lower.frequenciesHz.length, b.upper.frequenciesHz.length);
+  const modesCols: Column[] = Array.from({ length: n }, (_, i) => ({ header: `f mode ${i + 1}`, kind: "frequency" }));
+  const nominal = d.result.modes.map((m) => m.frequencyHz);
+  w.table(
+    "Natural frequencies",
+    [{ header: "Soil" }, { header: "Factor on G", kind: "ratio" }, { header: "Shear modulus G", kind: "modulus" }, ...modesCols],
+    [
+      ["lower", b.lower.factor, b.lower.shearModulus ?? null, ...b.lower.frequenciesHz],
+      ["best estimate", 1, d.result.impedance.shearModulus ?? null, ...nominal],
+      ["upper", b.upper.factor, b.upper.shearModulus ?? null, ...b.upper.frequenciesHz],
+    ],
+  );
+  w.table(
+    "Governing amplitudes (largest component over all rotors, cases and points)",
+    [
+      { header: "Soil" },
+      { header: "Displacement at rated speed", kind: "displacement" },
+      { header: "Velocity at rated speed", kind: "velocity" },
+      { header: "Displacement over speed range", kind: "displacement" },
+      { header: "Velocity over speed range", kind: "velocity" },
+    ],
+    (["lower", "upper"] as const).map((k) => [k, b[k].governing.displacementPeak, b[k].governing.velocityPeak, b[k].governing.displacementPeakOverSpeedRange, b[k].governing.velocityPeakOverSpeedRange]),
+  );
+  w.table(
+    "Frequency ratios r = rated speed / natural frequency",
+    [{ header: "Soil" }, { header: "Machine" }, { header: "Rotor" }, ...Array.from({ length: n }, (_, i) => ({ header: `r mode ${i + 1}`, kind: "ratio" as const }))],
+    (["lower", "upper"] as const).flatMap((k) => b[k].frequencyRatios.map((fr) => [k, fr.machine, fr.rotor, ...fr.ratios])),
+  );
+  w.widths([16, 22, 22, 14, 14, 14, 14, 14, 14]);
+}
+
+function checkRows(checks: CheckResult[]): Cell[][] {
+  return checks.map((c) => [
+    c.label,
+    c.machine ?? null,
+    c.rotor ?? null,
+    c.case ?? null,
+    c.unbalanceMode ?? null,
+    c.point ?? null,
+    c.mode ?? null,
+    c.value,
+    c.limit,
+    c.comparison === "min" ? "at least" : "at most",
+    checkUtilisation(c),
+    c.pass,
+    c.source,
+  ]);
+}
+
+/** The quantity a check's value and limit carry, from the unit the engine gives it. */
+export function checkKind(c: CheckResult): PackageKind {
+  if (c.unit === "m") return "displacement";
+  if (c.unit === "m/s") return "velocity";
+  return "ratio";
+}
+
+function checks(w: SheetWriter, d: RevisionPackageData): void {
+  const all = d.result.checks;
+  const gov = governingCheck(d.result);
+  w.title("Checks: value, limit, verdict and source");
+  w.blank();
+  w.pairs("Summary", [
+    { label: "Checks", value: all.length, kind: "count" },
+    { label: "Failing", value: all.filter((c) => !c.pass).length, kind: "count" },
+    { label: "Governing check", value: gov?.label ?? "—", note: gov ? `uses ${(gov.utilisation * 100).toFixed(0)} % of its limit` : undefined },
+  ]);
+  const groups: { title: string; kind: PackageKind }[] = [
+    { title: "Frequency separation and block rules", kind: "ratio" },
+    { title: "Displacement at bearings and check points (enveloped over the speed range)", kind: "displacement" },
+    { title: "Velocity at bearings and check points (enveloped over the speed range)", kind: "velocity" },
+  ];
+  for (const g of groups) {
+    const mine = all.filter((c) => checkKind(c) === g.kind);
+    if (!mine.length) continue;
+    w.table(
+      g.title,
+      [
+        { header: "Check" },
+        { header: "Machine" },
+        { header: "Rotor" },
+        { header: "Case" },
+        { header: "Unbalance" },
+        { header: "Point" },
+        { header: "Mode", kind: "count" },
+        { header: "Value", kind: g.kind },
+        { header: "Limit", kind: g.kind },
+        { header: "Limit is" },
+        { header: "Use of limit", kind: "ratio" },
+        { header: "Verdict" },
+        { header: "Source" },
+      ],
+      checkRows(mine),
+    );
+  }
+  w.widths([36, 20, 12, 12, 10, 26, 8, 14, 14, 10, 12, 10, 80]);
+}
+
+function history(w: SheetWriter, d: RevisionPackageData): void {
+  w.title(`Revision history of ${d.foundation.tag}`);
+  w.blank();
+  w.table(
+    "Revisions",
+    [
+      { header: "Revision" },
+      { header: "Sequence", kind: "count" },
+      { header: `Issued${UTC}` },
+      { header: "Issued by" },
+      { header: "Status" },
+      { header: "Decision" },
+      { header: "Decided by" },
+      { header: `Decided${UTC}` },
+      { header: "Note" },
+      { header: "Open comments", kind: "count" },
+      { header: "Input SHA-256" },
+      { header: "Engine" },
+    ],
+    d.history.map((h) => [
+      h.label,
+      h.sequence,
+      h.issuedAt,
+      h.issuedByName,
+      revisionStatusLabels[h.status],
+      h.decision?.outcome ?? "none yet",
+      h.decision?.decidedByName ?? null,
+      h.decision?.decidedAt ?? null,
+      h.decision?.note || null,
+      h.openComments,
+      h.inputHash,
+      h.engineVersion,
+    ]),
+  );
+  w.table(
+    "Review trail (newest first)",
+    [{ header: `When${UTC}` }, { header: "Event" }, { header: "By" }, { header: "Revision" }],
+    d.trail.map((t) => [t.createdAt, t.action.replace(/^revision\./, ""), t.actorName ?? "—", t.label ?? "—"]),
+  );
+  w.widths([18, 10, 18, 22, 22, 12, 22, 18, 40, 10, 66, 10]);
+}
+
+/** The workbook of one revision. */
+export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook {
+  const wb = new ExcelJS.Workbook();
+  wb.creator = "Plinthwise";
+  wb.created = d.generatedAt;
+  wb.title = `${d.project.code} ${d.foundation.tag} revision ${d.revision.label}`;
+  const sys = d.project.units;
+  const sheet = (name: string) => new SheetWriter(wb.addWorksheet(name), sys);
+  cover(sheet(PACKAGE_SHEETS.cover), d);
+  inputs(sheet(PACKAGE_SHEETS.inputs), d);
+  mass(sheet(PACKAGE_SHEETS.mass), d);
+  springs(sheet(PACKAGE_SHEETS.springs), d);
+  modes(sheet(PACKAGE_SHEETS.modes), d);
+  response(sheet(PACKAGE_SHEETS.response), d);
+  band(sheet(PACKAGE_SHEETS.band), d);
+  checks(sheet(PACKAGE_SHEETS.checks), d);
+  history(sheet(PACKAGE_SHEETS.history), d);
+  addHandCheckSheet(wb.addWorksheet(PACKAGE_SHEETS.handCheck), d);
+  return wb;
+}
+
+/** The same as an .xlsx file. */
+export async function revisionWorkbookBytes(d: RevisionPackageData): Promise<Buffer> {
+  return Buffer.from(await buildRevisionWorkbook(d).xlsx.writeBuffer());
+}

@@ -1,0 +1,71 @@
+// What the builders take: plain data the route handlers read from the database, so the
+// builders stay pure (no next, react or db) and tests can feed them directly.
+import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
+import type { RevisionStatus } from "@/modules/revisions";
+import type { UnitSystemKey } from "@/modules/units";
+
+export interface PackageProject {
+  code: string;
+  name: string;
+  client: string;
+  site: string;
+  units: UnitSystemKey;
+}
+
+export interface PackageFoundation {
+  tag: string;
+  machineTrain: string;
+  location: string;
+}
+
+export interface PackageRevisionSummary {
+  label: string;
+  sequence: number;
+  status: RevisionStatus;
+  issuedAt: Date;
+  issuedByName: string;
+  decision: { outcome: "returned" | "approved"; note: string; decidedByName: string; decidedAt: Date } | null;
+  openComments: number;
+  inputHash: string;
+  engineVersion: string;
+  vendorSubmissionId: string | null;
+}
+
+export interface PackageTrailEntry {
+  action: string;
+  actorName: string | null;
+  label: string | null;
+  createdAt: Date;
+}
+
+export interface RevisionPackageData {
+  project: PackageProject;
+  foundation: PackageFoundation;
+  revision: PackageRevisionSummary;
+  input: AnalysisInput;
+  result: AnalysisResult;
+  /** Every revision of the foundation, oldest first. */
+  history: PackageRevisionSummary[];
+  /** The foundation's revision events, newest first. */
+  trail: PackageTrailEntry[];
+  generatedAt: Date;
+  generatedByName: string;
+}
+
+export interface RegisterRow {
+  tag: string;
+  machineTrain: string;
+  location: string;
+  /** Draft state when no revision has been issued ("draft v3", "not started"). */
+  draftState: string;
+  latest: (PackageRevisionSummary & { result: AnalysisResult }) | null;
+  revisionCount: number;
+  flags: string[];
+}
+
+export interface RegisterData {
+  project: PackageProject;
+  rows: RegisterRow[];
+  generatedAt: Date;
+  generatedByName: string;
+}

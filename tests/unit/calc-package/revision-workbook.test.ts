@@ -1,0 +1,112 @@
+import { describe, expect, it } from "vitest";
+import ExcelJS from "exceljs";
+import { packageFileName, registerFileName, revisionWorkbookBytes, PACKAGE_SHEETS, safeText } from "@/modules/calc-package";
+import { expectRevisionNumbers, expectUnitsEverywhere } from "./package-expectations";
+import { exampleInput, packageData, roundTrip } from "./fixtures";
+import { readTables, tableByTitle } from "./read-tables";
+
+const tableSheets = Object.values(PACKAGE_SHEETS).filter((s) => s !== PACKAGE_SHEETS.handCheck);
+
+describe("revision workbook", () => {
+  for (const units of ["si", "us"] as const) {
+    for (const example of ["raw-water-pump-train", "aeration-blower"] as const) {
+      it(`${example} in ${units}: every number read back equals the result's, through the unit in its header`, async () => {
+        const d = packageData(exampleInput(example), units);
+        const wb = await roundTrip(await revisionWorkbookBytes(d));
+        expect(wb.worksheets.map((w) => w.name)).toEqual(Object.values(PACKAGE_SHEETS));
+        expectRevisionNumbers(wb, d.input, d.result);
+        expect(expectUnitsEverywhere(wb, tableSheets)).toBeGreaterThan(200);
+      });
+    }
+  }
+
+  it("US headers name US units and SI headers SI ones", async () => {
+    const si = readTables((await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"), "si")))).getWorksheet("Response") as ExcelJS.Worksheet);
+    const us = readTables((await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"), "us")))).getWorksheet("Response") as ExcelJS.Worksheet);
+    expect(tableByTitle(si, "Points").headers).toContain("Displacement z [µm]");
+    expect(tableByTitle(si, "Points").headers).toContain("Velocity z [mm/s]");
+    expect(tableByTitle(us, "Points").headers).toContain("Displacement z [mil]");
+    expect(tableByTitle(us, "Points").headers).toContain("Velocity z [in/s]");
+    expect(tableByTitle(us, "Points").headers).toContain("x [ft]");
+  });
+
+  it("the cover carries the revision block with who issued, checked and approved", async () => {
+    const d = packageData(exampleInput("aeration-blower"));
+    const tables = readTables((await roundTrip(await revisionWorkbookBytes(d))).getWorksheet("Cover") as ExcelJS.Worksheet);
+    const block = tableByTitle(tables, "Revision block");
+    expect(block.headers).toEqual(["Revision", "Date (UTC)", "By", "Checked", "Approved", "Status"]);
+    expect(block.rows[0]?.[0]).toBe("B");
+    expect((block.rows[0]?.[1] as Date).toISOString()).toBe(d.revision.issuedAt.toISOString());
+    expect(block.rows[0]?.slice(2)).toEqual(["Priya Valcourt", "Henrik Osei-Barros", "Henrik Osei-Barros", "approved"]);
+    const history = tableByTitle(readTables((await roundTrip(await revisionWorkbookBytes(d))).getWorksheet("Revision trail") as ExcelJS.Worksheet), "Revisions");
+    expect(history.rows.map((r) => r[0])).toEqual(["A", "B"]);
+  });
+
+  it("has number formats on every number cell and formulas only on the hand-check sheet", async () => {
+    const wb = await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"))));
+    let numbers = 0;
+    let formulas = 0;
+    wb.eachSheet((ws) =>
+      ws.eachRow((row) =>
+        row.eachCell((cell) => {
+          if (cell.type === ExcelJS.ValueType.Formula) {
+            expect(ws.name).toBe(PACKAGE_SHEETS.handCheck);
+            formulas += 1;
+          }
+          if (typeof cell.value === "number") {
+            numbers += 1;
+            expect(cell.numFmt, `${ws.name}!${cell.address}`).toBeTruthy();
+          }
+        }),
+      ),
+    );
+    expect(numbers).toBeGreaterThan(300);
+    expect(formulas).toBeGreaterThan(20);
+  });
+});
+
+describe("formula injection", () => {
+  it("a box, machine, rotor or point named like a formula lands as text, never as a formula", async () => {
+    const input = exampleInput("raw-water-pump-train");
+    const hostile = ['=HYPERLINK("http://example.invalid","open me")', "+1", "-2+3", "@SUM(A1:A9)"] as const;
+    (input.block.solids[0] as { name: string }).name = hostile[0];
+    (input.machines[0] as { name: string }).name = hostile[1];
+    (input.machines[0]?.rotors[0] as { name: string }).name = hostile[2];
+    (input.checkPoints?.[0] as { name: string }).name = hostile[3];
+    const d = packageData(input);
+    d.foundation.machineTrain = "=1+1";
+    d.revision.issuedByName = "@evil";
+    const wb = await roundTrip(await revisionWorkbookBytes(d));
+    const found = new Map<string, number>();
+    wb.eachSheet((ws) =>
+      ws.eachRow((row) =>
+        row.eachCell((cell) => {
+          if (ws.name !== PACKAGE_SHEETS.handCheck) expect(cell.type, `${ws.name}!${cell.address}`).not.toBe(ExcelJS.ValueType.Formula);
+          if (typeof cell.value !== "string") return;
+          // No text cell starts with a formula character: the guard put an apostrophe first.
+          expect(/^[=+\-@]/.test(cell.value), `${ws.name}!${cell.address}: ${cell.value}`).toBe(false);
+          for (const h of [...hostile, "=1+1", "@evil"]) if (cell.value === `'${h}`) found.set(h, (found.get(h) ?? 0) + 1);
+        }),
+      ),
+    );
+    for (const h of [...hostile, "=1+1", "@evil"]) expect(found.get(h), h).toBeGreaterThan(0);
+  });
+
+  it("safeText leaves ordinary text alone and guards each formula lead", () => {
+    expect(safeText("PH1-P101 pump")).toBe("PH1-P101 pump");
+    expect(safeText("=A1")).toBe("'=A1");
+    expect(safeText("+1")).toBe("'+1");
+    expect(safeText("-1")).toBe("'-1");
+    expect(safeText("@x")).toBe("'@x");
+    expect(safeText("\tx")).toBe("'\tx");
+    expect(safeText(null)).toBe("");
+  });
+});
+
+describe("file names", () => {
+  it("carry the project code, foundation tag and revision label", () => {
+    expect(packageFileName("WRP-PH1", "PH1-P101", "B")).toBe("WRP-PH1_PH1-P101_rev-B.xlsx");
+    expect(packageFileName("A/B", 'x"; y', "0")).toBe("A-B_x-y_rev-0.xlsx");
+    expect(registerFileName("WRP-PH1", new Date("2026-05-01T12:00:00Z"))).toBe("WRP-PH1_register_2026-05-01.xlsx");
+  });
+});
