@@ -58,10 +58,10 @@ export async function checkWorkbookZip(bytes: Buffer): Promise<ZipVerdict> {
       if (linkParts.some((re) => re.test(name))) return refuse("The workbook contains links to other workbooks or external data connections. Paste the values instead of linking, then save again.");
       if (embeddedParts.some((re) => re.test(name))) return refuse("The workbook contains embedded objects. Remove them (attach drawings as PDF instead) and save again.");
       const declared = entry.uncompressedSize;
-      if (declared > zipLimits.maxEntryInflatedBytes) return refuse(`The workbook part ${name} declares ${mb(declared)} inflated; a machine data workbook is far smaller. It was refused unread.`);
       if (/^xl\/worksheets\/[^/]+\.xml$/i.test(name) && declared > zipLimits.maxWorksheetInflatedBytes) {
         return refuse(`A sheet of the workbook (${name}) holds ${mb(declared)} of cells: far more rows than the machine data layout has. Remove anything pasted below the layout; the workbook was refused unread.`);
       }
+      if (declared > zipLimits.maxEntryInflatedBytes) return refuse(`The workbook part ${name} declares ${mb(declared)} inflated; a machine data workbook is far smaller. It was refused unread.`);
       if (declared > zipLimits.ratioAppliesAboveBytes && declared > zipLimits.maxRatio * Math.max(1, entry.compressedSize)) {
         return refuse(`The workbook part ${name} inflates ${Math.round(declared / Math.max(1, entry.compressedSize))} times its stored size: refused as a possible zip bomb.`);
       }

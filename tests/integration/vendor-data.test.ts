@@ -28,10 +28,11 @@ let foundationId: string;
 let requestId: string;
 let otherVendorCookie: string;
 
-type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type UploadParams = { projectId: string; requestId: string };
+type Handler = (req: Request, ctx: { params: Promise<UploadParams> }) => Promise<Response>;
 
 /** A multipart upload as the browser's XMLHttpRequest sends it. */
-async function upload(handler: Handler, cookie: string | null, params: Record<string, string>, file: Buffer, fileName: string, fields: Record<string, string> = {}): Promise<Response> {
+async function upload(handler: Handler, cookie: string | null, params: UploadParams, file: Buffer, fileName: string, fields: Record<string, string> = {}): Promise<Response> {
   const form = new FormData();
   form.append("file", new Blob([new Uint8Array(file)]), fileName);
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
@@ -41,7 +42,7 @@ async function upload(handler: Handler, cookie: string | null, params: Record<st
 }
 
 const uploadData = (cookie: string | null, file: Buffer, name = "machine-data.xlsx", fields: Record<string, string> = {}) =>
-  upload(postSubmission as Handler, cookie, { projectId: fx.projectId, requestId }, file, name, fields);
+  upload(postSubmission, cookie, { projectId: fx.projectId, requestId }, file, name, fields);
 
 async function submissionCount(): Promise<number> {
   const rows = await getDb().select({ n: count() }).from(vendorSubmissions).where(eq(vendorSubmissions.requestId, requestId));
@@ -233,12 +234,12 @@ describe("refused uploads store nothing and name the problem", () => {
   it("accepts a PDF drawing, refuses anything else as a drawing, and attaches drawings to the next version", async () => {
     const params = { projectId: fx.projectId, requestId };
     const pdf = Buffer.from("%PDF-1.7\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n");
-    const ok = await upload(postDrawing as Handler, fx.cookies.vendor, params, pdf, "GA drawing.pdf");
+    const ok = await upload(postDrawing, fx.cookies.vendor, params, pdf, "GA drawing.pdf");
     expect(ok.status).toBe(201);
     const { drawing } = (await ok.json()) as { drawing: { id: string } };
-    const exe = await upload(postDrawing as Handler, fx.cookies.vendor, params, fakeExecutable(), "drawing.pdf");
+    const exe = await upload(postDrawing, fx.cookies.vendor, params, fakeExecutable(), "drawing.pdf");
     expect(exe.status).toBe(400);
-    const big = await upload(postDrawing as Handler, fx.cookies.vendor, params, Buffer.alloc(26 * 1024 * 1024), "huge.pdf");
+    const big = await upload(postDrawing, fx.cookies.vendor, params, Buffer.alloc(26 * 1024 * 1024), "huge.pdf");
     expect(big.status).toBe(413);
     const res = await uploadData(fx.cookies.vendor, await downloadWorkbook(fx.cookies.vendor), "again.xlsx", { drawingIds: drawing.id });
     expect(res.status).toBe(201);
