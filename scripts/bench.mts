@@ -1,17 +1,22 @@
 // `npm run bench`: a table of median and spread per section on the demo foundation.
 // `npm run --silent bench -- --json FILE`: {"fullAnalysisMs": {"median", "min", "max"}, "runs"}
-// for the input in FILE. Optional: --runs N.
+// for the input in FILE. Optional: --runs N; --no-http skips the HTTP section (which starts
+// the production build on loopback against the local database `npm start` set up).
 import { benchCalc, DEFAULT_BENCH_INPUT, type BenchSection } from "./bench-calc.mts";
+import { benchCalculateApi, formatHttpTable, startBenchServer } from "./bench-http.mts";
 
-function parseArgs(argv: string[]): { json?: string; runs: number } | string {
+function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean } | string {
   let json: string | undefined;
   let runs = 300;
+  let http = true;
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const next = argv[i + 1];
     if (arg === "--json" && next !== undefined) {
       json = next;
       i++;
+    } else if (arg === "--no-http") {
+      http = false;
     } else if (arg === "--runs" && next !== undefined && Number.isInteger(Number(next)) && Number(next) > 0) {
       runs = Number(next);
       i++;
@@ -19,7 +24,7 @@ function parseArgs(argv: string[]): { json?: string; runs: number } | string {
       return `unknown or incomplete argument: ${arg ?? ""}`;
     }
   }
-  return json === undefined ? { runs } : { json, runs };
+  return json === undefined ? { runs, http } : { json, runs, http };
 }
 
 function formatTable(description: string, sections: BenchSection[]): string {
@@ -34,10 +39,24 @@ function formatTable(description: string, sections: BenchSection[]): string {
   return [description, line(head), ...rows.map(line)].join("\n");
 }
 
-function main(argv: string[]): number {
+async function httpSection(): Promise<void> {
+  const server = await startBenchServer();
+  if (typeof server === "string") {
+    process.stdout.write(`\nHTTP section skipped: ${server}\n`);
+    return;
+  }
+  try {
+    const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, 10)];
+    process.stdout.write(`\nHTTP on the production build, loopback (${server.baseUrl})\n${formatHttpTable(rows)}\n`);
+  } finally {
+    await server.stop();
+  }
+}
+
+async function main(argv: string[]): Promise<number> {
   const args = parseArgs(argv);
   if (typeof args === "string") {
-    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N]\n`);
+    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N] [--no-http]\n`);
     return 2;
   }
   try {
@@ -48,6 +67,7 @@ function main(argv: string[]): number {
     } else {
       const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
       process.stdout.write(`${formatTable(description, sections)}\n`);
+      if (args.http) await httpSection();
     }
     return 0;
   } catch (e) {
@@ -56,4 +76,4 @@ function main(argv: string[]): number {
   }
 }
 
-process.exitCode = main(process.argv.slice(2));
+process.exitCode = await main(process.argv.slice(2));
