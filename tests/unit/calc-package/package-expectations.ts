@@ -2,7 +2,7 @@
 // result (the stored JSON, SI), through the unit each header names.
 import type ExcelJS from "exceljs";
 import { expect } from "vitest";
-import { DOF_KEYS, type AnalysisInput, type AnalysisResult, type CheckResult } from "@/modules/calc";
+import { CRITERIA_DEFAULTS, DOF_KEYS, type AnalysisInput, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { CAUTIONS } from "@/modules/platform/cautions";
 import { readTables, tableByTitle, toStored, unitIn, type ReadTable } from "./read-tables";
 
@@ -121,7 +121,10 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
   (input.checkPoints ?? []).forEach((p, i) => p.position.forEach((v, k) => expectNumber(points, i, "xyz"[k] as string, v, p.name)));
   const crit = tableByTitle(inp, "Acceptance criteria");
   expect(crit.rows).toHaveLength(Object.keys(result.criteria ?? {}).length);
-  Object.values(result.criteria ?? {}).forEach((c, i) => {
+  // In the order of the product's defaults (stored JSONB does not keep key order).
+  (Object.keys(CRITERIA_DEFAULTS) as (keyof typeof CRITERIA_DEFAULTS)[]).forEach((key, i) => {
+    const c = result.criteria?.[key];
+    if (!c) throw new Error(`criterion ${key} missing from the result`);
     expectClose(toStored(crit.rows[i]?.[1] as number, String(crit.rows[i]?.[0])), c.value, `criterion ${i}`);
     expect(crit.rows[i]?.[2]).toBe(c.source);
   });

@@ -46,6 +46,13 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
             .filter(Boolean)
             .join(" · ")}
         </p>
+        {roleAllows(role, "register.export") ? (
+          <p className="mt-2">
+            <a className="btn-quiet" href={`/api/v1/projects/${projectId}/register`} download data-testid="register-download">
+              Download the foundation register (.xlsx)
+            </a>
+          </p>
+        ) : null}
       </div>
       <section className="space-y-3">
         <h2>Foundations</h2>

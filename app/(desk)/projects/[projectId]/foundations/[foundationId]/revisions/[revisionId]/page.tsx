@@ -64,6 +64,13 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           </div>
         </dl>
         {revision.decision?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">“{revision.decision.note}”</p> : null}
+        {roleAllows(role, "package.export") ? (
+          <p className="mt-3">
+            <a className="btn-quiet" href={`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions/${revision.id}/package`} download data-testid="package-download">
+              Download the calculation package (.xlsx)
+            </a>
+          </p>
+        ) : null}
         {previous ? (
           <p className="mt-3">
             <Link className="btn-quiet" href={`${revisionPath(projectId, foundationId)}/compare?from=${previous.id}&to=${revision.id}`}>

@@ -1,0 +1,56 @@
+import { listFoundationsWithDrafts } from "@/db/queries/drafts";
+import { getProjectForMember } from "@/db/queries/projects";
+import { getRevision, getUserContact, listFoundationRevisionStates } from "@/db/queries/revisions";
+import { defineRoute } from "@/app/_lib/route";
+import { AppError } from "@/modules/platform/errors";
+import { canonicalInputHash, isApprovalStale } from "@/modules/revisions";
+import { attachmentDisposition, registerFileName, registerWorkbookBytes, XLSX_CONTENT_TYPE, type RegisterRow } from "@/modules/calc-package";
+
+export const dynamic = "force-dynamic";
+
+// The project register (an .xlsx download) for managers: every foundation, its latest
+// revision as issued, status, governing check and flags.
+export const GET = defineRoute({
+  access: { kind: "project", permission: "register.export" },
+  projectId: (p: { projectId: string }) => p.projectId,
+  handler: async ({ auth, params }) => {
+    const actor = auth!.actor;
+    const project = await getProjectForMember(actor, params.projectId);
+    if (!project) throw new AppError("not_found");
+    const [foundations, states, me] = await Promise.all([listFoundationsWithDrafts(actor, project.id), listFoundationRevisionStates(actor, project.id), getUserContact(actor.userId)]);
+    const stateOf = new Map(states.map((s) => [s.foundationId, s]));
+    const rows: RegisterRow[] = [];
+    for (const f of foundations) {
+      const state = stateOf.get(f.id);
+      const latest = state?.latest ? await getRevision(actor, project.id, f.id, state.latest.id) : undefined;
+      const flags: string[] = [];
+      if (state?.latest && isApprovalStale(state.latest, state.draftVendorSubmissionId)) flags.push("vendor data changed since approval");
+      if (latest && f.input && canonicalInputHash(f.input) !== latest.inputHash) flags.push("draft differs from the latest revision");
+      rows.push({
+        tag: f.tag,
+        machineTrain: f.machineTrain,
+        location: f.location,
+        draftState: f.input ? `draft v${f.draftVersion}, not issued` : "not started",
+        latest: latest ? { ...latest, result: latest.result } : null,
+        revisionCount: state?.revisionCount ?? 0,
+        flags,
+      });
+    }
+    const now = new Date();
+    const bytes = await registerWorkbookBytes({
+      project: { code: project.code, name: project.name, client: project.client, site: project.site, units: project.units },
+      rows,
+      generatedAt: now,
+      generatedByName: me?.name ?? "",
+    });
+    return new Response(new Uint8Array(bytes), {
+      headers: {
+        "content-type": XLSX_CONTENT_TYPE,
+        "content-length": String(bytes.length),
+        "content-disposition": attachmentDisposition(registerFileName(project.code, now)),
+        "cache-control": "private, no-store",
+        "x-content-type-options": "nosniff",
+      },
+    });
+  },
+});
