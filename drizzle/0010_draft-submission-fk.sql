@@ -1,0 +1,1 @@
+ALTER TABLE "foundation_drafts" ADD CONSTRAINT "foundation_drafts_vendor_submission_id_vendor_submissions_id_fk" FOREIGN KEY ("vendor_submission_id") REFERENCES "public"."vendor_submissions"("id") ON DELETE set null ON UPDATE no action;
