@@ -1,7 +1,17 @@
 import type { Metadata } from "next";
 import { roleAllows } from "@/modules/platform/permissions";
 import { analyse } from "@/modules/calc";
-import { governingCheck } from "@/modules/desk/foundation-summary";
+import { governingCheck, type GoverningSummary } from "@/modules/desk/foundation-summary";
+
+// One foundation the engine cannot analyse must not take the whole project page down.
+function safeGoverning(input: Parameters<typeof analyse>[0]): GoverningSummary | null {
+  try {
+    return governingCheck(analyse(input));
+  } catch (e) {
+    console.error("[project page] analysis failed:", e instanceof Error ? e.message : e);
+    return null;
+  }
+}
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
 import { listFoundationRevisionStates } from "@/db/queries/revisions";
 import { isApprovalStale, revisionStatusLabels } from "@/modules/revisions";
@@ -32,7 +42,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
       flags: latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
       // The engine is fast enough (a few ms) to give each row its governing check live.
-      governing: f.input ? governingCheck(analyse(f.input)) : null,
+      governing: f.input ? safeGoverning(f.input) : null,
       updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
     };
   });
