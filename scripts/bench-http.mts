@@ -170,3 +170,41 @@ export async function benchCalculateApi(server: BenchServer, inputFile: string, 
   const body = readFileSync(inputFile, "utf8");
   return runLoad(server.baseUrl, { name: "POST /api/v1/calculate", method: "POST", path: "/api/v1/calculate", body, headers: { cookie } }, 20, durationS);
 }
+
+/**
+ * The reliability figures: sign-in, the project page, the calculation API and a
+ * revision's workbook download, each under `connections` clients for `durationS`.
+ */
+export async function benchLoadSuite(server: BenchServer, inputFile: string, connections = 50, durationS = 30): Promise<HttpStats[]> {
+  const { DEMO_PASSWORD, DEMO_PROJECT_CODE } = await import("../modules/platform/demo");
+  const { getProjectByCode } = await import("../db/queries/projects");
+  const { getDb } = await import("../db/client");
+  const { revisions } = await import("../db/schema");
+  const { eq } = await import("drizzle-orm");
+  const project = await getProjectByCode(DEMO_PROJECT_CODE);
+  if (!project) throw new Error("the demo project is missing: run `npm start` once first");
+  const revision = (await getDb().select({ id: revisions.id, foundationId: revisions.foundationId }).from(revisions).where(eq(revisions.projectId, project.id)).limit(1))[0];
+  const manager = await server.cookieFor("manager@plinthwise.test");
+  const designer = await server.cookieFor("designer@plinthwise.test");
+  const targets: HttpTarget[] = [
+    {
+      name: "POST /api/v1/session (sign-in, bcrypt)",
+      method: "POST",
+      path: "/api/v1/session",
+      body: JSON.stringify({ email: "viewer@plinthwise.test", password: DEMO_PASSWORD }),
+    },
+    { name: "GET project page (HTML)", method: "GET", path: `/projects/${project.id}`, headers: { cookie: manager } },
+    { name: "POST /api/v1/calculate", method: "POST", path: "/api/v1/calculate", body: readFileSync(inputFile, "utf8"), headers: { cookie: designer } },
+  ];
+  if (revision) {
+    targets.push({
+      name: "GET revision workbook (.xlsx)",
+      method: "GET",
+      path: `/api/v1/projects/${project.id}/foundations/${revision.foundationId}/revisions/${revision.id}/package`,
+      headers: { cookie: manager },
+    });
+  }
+  const rows: HttpStats[] = [];
+  for (const t of targets) rows.push(await runLoad(server.baseUrl, t, connections, durationS));
+  return rows;
+}

@@ -1,14 +1,16 @@
 // `npm run bench`: a table of median and spread per section on the demo foundation.
 // `npm run --silent bench -- --json FILE`: {"fullAnalysisMs": {"median", "min", "max"}, "runs"}
 // for the input in FILE. Optional: --runs N; --no-http skips the HTTP section (which starts
-// the production build on loopback against the local database `npm start` set up).
+// the production build on loopback against the local database `npm start` set up); --quick
+// shortens the HTTP runs for a smoke check.
 import { benchCalc, DEFAULT_BENCH_INPUT, type BenchSection } from "./bench-calc.mts";
-import { benchCalculateApi, formatHttpTable, startBenchServer } from "./bench-http.mts";
+import { benchCalculateApi, benchLoadSuite, formatHttpTable, startBenchServer } from "./bench-http.mts";
 
-function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean } | string {
+function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean; quick: boolean } | string {
   let json: string | undefined;
   let runs = 300;
   let http = true;
+  let quick = false;
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const next = argv[i + 1];
@@ -17,6 +19,8 @@ function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean
       i++;
     } else if (arg === "--no-http") {
       http = false;
+    } else if (arg === "--quick") {
+      quick = true;
     } else if (arg === "--runs" && next !== undefined && Number.isInteger(Number(next)) && Number(next) > 0) {
       runs = Number(next);
       i++;
@@ -24,7 +28,7 @@ function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean
       return `unknown or incomplete argument: ${arg ?? ""}`;
     }
   }
-  return json === undefined ? { runs, http } : { json, runs, http };
+  return json === undefined ? { runs, http, quick } : { json, runs, http, quick };
 }
 
 function formatTable(description: string, sections: BenchSection[]): string {
@@ -39,15 +43,19 @@ function formatTable(description: string, sections: BenchSection[]): string {
   return [description, line(head), ...rows.map(line)].join("\n");
 }
 
-async function httpSection(): Promise<void> {
+async function httpSection(quick: boolean): Promise<void> {
   const server = await startBenchServer();
   if (typeof server === "string") {
     process.stdout.write(`\nHTTP section skipped: ${server}\n`);
     return;
   }
   try {
-    const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, 10)];
-    process.stdout.write(`\nHTTP on the production build, loopback (${server.baseUrl})\n${formatHttpTable(rows)}\n`);
+    const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, quick ? 3 : 10)];
+    process.stdout.write(`\nHTTP on the production build, loopback (${server.baseUrl}): the calculation API\n${formatHttpTable(rows)}\n`);
+    const clients = 50;
+    const seconds = quick ? 5 : 30;
+    const load = await benchLoadSuite(server, DEFAULT_BENCH_INPUT, clients, seconds);
+    process.stdout.write(`\nLoad: ${clients} concurrent clients, ${seconds} s per endpoint\n${formatHttpTable(load)}\n`);
   } finally {
     await server.stop();
   }
@@ -56,7 +64,7 @@ async function httpSection(): Promise<void> {
 async function main(argv: string[]): Promise<number> {
   const args = parseArgs(argv);
   if (typeof args === "string") {
-    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N] [--no-http]\n`);
+    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N] [--no-http] [--quick]\n`);
     return 2;
   }
   try {
@@ -67,7 +75,7 @@ async function main(argv: string[]): Promise<number> {
     } else {
       const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
       process.stdout.write(`${formatTable(description, sections)}\n`);
-      if (args.http) await httpSection();
+      if (args.http) await httpSection(args.quick);
     }
     return 0;
   } catch (e) {
