@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionComments, revisionDecisions, revisions, users, type RevisionRow } from "../schema";
+import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionComments, revisionDecisions, revisions, users, vendorSubmissions, type RevisionRow } from "../schema";
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
 import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
@@ -115,7 +115,7 @@ export async function getRevision(actor: Actor, projectId: string, foundationId:
 
 export interface FoundationRevisionState {
   foundationId: string;
-  latest: { id: string; label: string; status: RevisionStatus; vendorSubmissionId: string | null; issuedAt: Date } | null;
+  latest: { id: string; label: string; status: RevisionStatus; vendorSubmissionId: string | null; supersededByNewerVersion: boolean; issuedAt: Date } | null;
   revisionCount: number;
   openComments: number;
   draftVendorSubmissionId: string | null;
@@ -143,12 +143,33 @@ export async function listFoundationRevisionStates(actor: Actor, projectId: stri
     .where(and(eq(revisions.projectId, projectId), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
     .groupBy(revisions.foundationId);
   const openBy = new Map(open.map((o) => [o.foundationId, o.n]));
+  // Submissions behind revisions for which the vendor has since sent a newer version.
+  const used = [...new Set(revs.map((r) => r.vendorSubmissionId).filter((v): v is string => v !== null))];
+  const superseded = new Set<string>();
+  if (used.length) {
+    const newer = alias(vendorSubmissions, "newer");
+    const rows = await db
+      .selectDistinct({ id: vendorSubmissions.id })
+      .from(vendorSubmissions)
+      .innerJoin(newer, and(eq(newer.requestId, vendorSubmissions.requestId), sql`${newer.version} > ${vendorSubmissions.version}`))
+      .where(inArray(vendorSubmissions.id, used));
+    for (const r of rows) superseded.add(r.id);
+  }
   return fs.map((f) => {
     const mine = revs.filter((r) => r.foundationId === f.id);
     const top = mine[0];
     return {
       foundationId: f.id,
-      latest: top ? { id: top.id, label: top.label, status: revisionStatus(top.outcome, false), vendorSubmissionId: top.vendorSubmissionId, issuedAt: top.issuedAt } : null,
+      latest: top
+        ? {
+            id: top.id,
+            label: top.label,
+            status: revisionStatus(top.outcome, false),
+            vendorSubmissionId: top.vendorSubmissionId,
+            supersededByNewerVersion: top.vendorSubmissionId !== null && superseded.has(top.vendorSubmissionId),
+            issuedAt: top.issuedAt,
+          }
+        : null,
       revisionCount: mine.length,
       openComments: openBy.get(f.id) ?? 0,
       draftVendorSubmissionId: f.draftVendorSubmissionId ?? null,

@@ -16,10 +16,15 @@ export function revisionStatus(decision: "returned" | "approved" | null | undefi
 }
 
 /**
- * An approved foundation whose draft now uses another vendor submission than the one
- * the approval was based on: the vendor data behind the approval has been replaced,
- * so the foundation is flagged until a new revision is issued.
+ * An approved foundation whose vendor data has moved on: the draft now uses another
+ * vendor submission than the one the approval was based on, or the vendor has sent a
+ * newer version of that submission (taken into the draft or not). Flagged until a
+ * new revision is issued.
  */
-export function isApprovalStale(latest: { status: RevisionStatus; vendorSubmissionId: string | null }, draftVendorSubmissionId: string | null): boolean {
-  return latest.status === "approved" && (draftVendorSubmissionId ?? null) !== (latest.vendorSubmissionId ?? null);
+export function isApprovalStale(
+  latest: { status: RevisionStatus; vendorSubmissionId: string | null; supersededByNewerVersion?: boolean },
+  draftVendorSubmissionId: string | null,
+): boolean {
+  if (latest.status !== "approved") return false;
+  return Boolean(latest.supersededByNewerVersion) || (draftVendorSubmissionId ?? null) !== (latest.vendorSubmissionId ?? null);
 }
