@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { AppError, formatIssuePath, isAppError } from "@/modules/platform/errors";
 import type { Membership } from "@/db/queries/projects";
+import { isDataException } from "@/db/queries/errors";
 import { requireAdmin, requireProjectPermission, requireUser, type Access, type AuthContext } from "./guard";
 import { getRequestPort } from "./next-port";
 import type { RequestPort } from "./request-context";
@@ -36,6 +37,8 @@ export type ServerAction<R> = ((prev: ActionState<R>, formData: FormData) => Pro
   actionName: string;
   access: Access;
 };
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export const actionRegistry = new Map<string, Access>();
 
@@ -77,7 +80,8 @@ export function defineAction<S extends z.ZodType, R>(def: ActionDefinition<S, R>
         // A non-member learns nothing, not even which fields were wrong.
         if (def.access.kind === "project" && auth) {
           const pid = formData.get("projectId");
-          if (typeof pid === "string") await requireProjectPermission(auth, pid, def.access.permission);
+          // Only a well-formed id can name a project (anything else would be a database error).
+          if (typeof pid === "string" && uuidPattern.test(pid)) await requireProjectPermission(auth, pid, def.access.permission);
         }
         return { ok: false, code: "invalid_input", message: "Some fields need attention.", fieldErrors: zodFieldErrors(parsed.error) };
       }
@@ -99,6 +103,7 @@ export function defineAction<S extends z.ZodType, R>(def: ActionDefinition<S, R>
           ...(e.issues.length ? { fieldErrors: Object.fromEntries(e.issues.map((i) => [i.path, [i.message]])) } : {}),
         };
       }
+      if (isDataException(e)) return { ok: false, code: "invalid_input", message: "A field holds a value that cannot be stored (for example a NUL character)." };
       console.error(`[action ${def.name}]`, e);
       return { ok: false, code: "internal", message: "Something went wrong on our side." };
     }

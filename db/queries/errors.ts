@@ -8,3 +8,18 @@ export function isUniqueViolation(e: unknown, constraint?: string): boolean {
   }
   return false;
 }
+
+/**
+ * True when PostgreSQL refused a value itself (SQLSTATE class 22, data exception: a NUL
+ * byte in text, a malformed uuid, a number out of range): the caller sent something the
+ * database cannot hold, which is the caller's mistake, not a server fault.
+ */
+export function isDataException(e: unknown): boolean {
+  let cur: unknown = e;
+  for (let depth = 0; depth < 4 && cur; depth += 1) {
+    const c = cur as { code?: unknown; cause?: unknown };
+    if (typeof c.code === "string" && /^22[0-9A-Z]{3}$/.test(c.code)) return true;
+    cur = c.cause;
+  }
+  return false;
+}

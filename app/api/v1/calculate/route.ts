@@ -17,6 +17,15 @@ export const POST = defineRoute({
   handler: async (_ctx, body) => {
     const parsed = parseAnalysisInput(body);
     if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
-    return analyse(parsed.input);
+    try {
+      return analyse(parsed.input);
+    } catch (e) {
+      // An input the contract accepts can still be numerically impossible (a density of
+      // 1e308, a block 1e300 m tall): the engine then refuses (no NaN or Infinity ever leaves
+      // it, or a factorisation fails). That is the caller's input, so a 400, logged so an
+      // engine fault on ordinary input is still seen.
+      console.error("[calculate] analysis refused an input that passed the contract:", e instanceof Error ? e.message : e);
+      throw new AppError("invalid_input", "These values cannot be analysed: check the input's units and magnitudes.", [{ path: "(root)", message: "values too large or too small to analyse" }]);
+    }
   },
 });
