@@ -3,10 +3,19 @@ import { roleAllows } from "@/modules/platform/permissions";
 import { analyse } from "@/modules/calc";
 import { governingCheck, type GoverningSummary } from "@/modules/desk/foundation-summary";
 
+// The governing check depends on the input alone, so it is remembered per input
+// (a bounded map per server process): the page then costs no analysis per view.
+const governingByInput = new Map<string, GoverningSummary | null>();
+
 // One foundation the engine cannot analyse must not take the whole project page down.
 function safeGoverning(input: Parameters<typeof analyse>[0]): GoverningSummary | null {
+  const key = JSON.stringify(input);
+  if (governingByInput.has(key)) return governingByInput.get(key) ?? null;
   try {
-    return governingCheck(analyse(input));
+    const g = governingCheck(analyse(input));
+    if (governingByInput.size >= 500) governingByInput.delete(governingByInput.keys().next().value as string);
+    governingByInput.set(key, g);
+    return g;
   } catch (e) {
     console.error("[project page] analysis failed:", e instanceof Error ? e.message : e);
     return null;
