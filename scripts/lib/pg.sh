@@ -1,9 +1,16 @@
 #!/usr/bin/env bash
 # Local PostgreSQL cluster for development and tests.
 # Usage: scripts/lib/pg.sh ensure DBNAME [--fresh]
+#        scripts/lib/pg.sh restart   (fast restart of the running cluster: the fault tests use it)
 # Runs its own cluster on 127.0.0.1:${PLINTH_PG_PORT:-54329} with its own socket folder.
 # initdb refuses to run as root, so as root the cluster belongs to the postgres user.
 set -euo pipefail
+
+CMD="${1:-ensure}"
+case "$CMD" in
+  ensure|restart) ;;
+  *) echo "usage: $0 ensure DBNAME [--fresh] | $0 restart" >&2; exit 2 ;;
+esac
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
 PORT="${PLINTH_PG_PORT:-54329}"
@@ -55,10 +62,19 @@ if [ ! -f "$DATA/PG_VERSION" ]; then
   "${AS[@]}" "$BIN/initdb" -D "$DATA" -U postgres --auth=trust --encoding=UTF8 --locale=C.UTF-8 >/dev/null
 fi
 
+PG_OPTS="-c listen_addresses=127.0.0.1 -p $PORT -k $SOCK -c fsync=off -c max_connections=200"
+
+if [ "$CMD" = "restart" ]; then
+  # Fast shutdown (open sessions are disconnected, as in a real server restart), then
+  # start again with the same options; waits until the cluster accepts connections.
+  echo "[pg] restarting PostgreSQL on 127.0.0.1:$PORT" >&2
+  "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" -l "$LOG" -w -t 60 -m fast -o "$PG_OPTS" restart >/dev/null
+  exit 0
+fi
+
 if ! "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
   echo "[pg] starting PostgreSQL on 127.0.0.1:$PORT" >&2
-  "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" -l "$LOG" -w -t 60 \
-    -o "-c listen_addresses=127.0.0.1 -p $PORT -k $SOCK -c fsync=off -c max_connections=200" start >/dev/null
+  "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" -l "$LOG" -w -t 60 -o "$PG_OPTS" start >/dev/null
 fi
 
 export PGOPTIONS="--client-min-messages=warning"
