@@ -3,7 +3,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { AppError, formatIssuePath, isAppError } from "@/modules/platform/errors";
 import type { Membership } from "@/db/queries/projects";
-import { isDataException } from "@/db/queries/errors";
+import { isDatabaseUnavailable, isDataException } from "@/db/queries/errors";
 import { requireAdmin, requireProjectPermission, requireUser, type Access, type AuthContext } from "./guard";
 import { getRequestPort } from "./next-port";
 import type { RequestPort } from "./request-context";
@@ -103,6 +103,7 @@ export function defineAction<S extends z.ZodType, R>(def: ActionDefinition<S, R>
           ...(e.issues.length ? { fieldErrors: Object.fromEntries(e.issues.map((i) => [i.path, [i.message]])) } : {}),
         };
       }
+      if (isDatabaseUnavailable(e)) return { ok: false, code: "unavailable", message: "The database is briefly unavailable. Please try again in a moment." };
       if (isDataException(e)) return { ok: false, code: "invalid_input", message: "A field holds a value that cannot be stored (for example a NUL character)." };
       console.error(`[action ${def.name}]`, e);
       return { ok: false, code: "internal", message: "Something went wrong on our side." };

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { AppError, errorCodes, formatIssuePath, isAppError } from "@/modules/platform/errors";
 import type { Membership } from "@/db/queries/projects";
-import { isDataException } from "@/db/queries/errors";
+import { isDatabaseUnavailable, isDataException } from "@/db/queries/errors";
 import { requireAdmin, requireProjectPermission, requireUser, type Access, type AuthContext } from "./guard";
 import { portFromRequest, type RequestPort } from "./request-context";
 
@@ -102,6 +102,7 @@ export function defineRoute<P extends Record<string, string>, B extends z.ZodTyp
       return response;
     } catch (e) {
       if (isAppError(e)) return jsonError(e);
+      if (isDatabaseUnavailable(e)) return jsonError(new AppError("unavailable"));
       if (isDataException(e)) return jsonError(new AppError("invalid_input", "A field holds a value that cannot be stored (for example a NUL character)."));
       console.error(`[route ${request.method} ${new URL(request.url).pathname}]`, e);
       return Response.json({ error: { code: "internal", message: errorCodes.internal.message } }, { status: 500 });

@@ -23,3 +23,18 @@ export function isDataException(e: unknown): boolean {
   }
   return false;
 }
+
+/**
+ * True when the database could not be reached or dropped the connection (a restart,
+ * a failover): the request may be retried, so it answers 503 rather than 500.
+ */
+export function isDatabaseUnavailable(e: unknown): boolean {
+  let cur: unknown = e;
+  for (let depth = 0; depth < 4 && cur; depth += 1) {
+    const c = cur as { code?: unknown; message?: unknown; cause?: unknown };
+    if (typeof c.code === "string" && (/^(08|57P0)/.test(c.code) || ["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT"].includes(c.code))) return true;
+    if (typeof c.message === "string" && /Connection terminated|connection timeout|the database system is (starting up|shutting down)/i.test(c.message)) return true;
+    cur = c.cause;
+  }
+  return false;
+}
