@@ -1,0 +1,20 @@
+// Block-sizing assistant: proposes base-mat dimensions that pass every check of the
+// calculation core, smallest concrete volume first (see README.md beside this file).
+export { proposeBlockSizes, type SizingResult, type SizingProposal, type SizingOutcome, type SizingIssue, type FailureCount, type CheckSummary, type NearestCandidate } from "./search";
+export { applySizingProposal, type ApplyOutcome, type ProposalToApply } from "./apply";
+export {
+  sizingOptionsSchema,
+  parseSizingOptions,
+  gridValues,
+  DEFAULT_STEP_M,
+  DEFAULT_MAX_ANALYSES,
+  DEFAULT_PROPOSALS,
+  type SizingOptions,
+  type SizingOptionsDocument,
+  type DimensionRange,
+  type CentreMode,
+  type OptionIssue,
+} from "./options";
+export { readBaseMat, concreteVolume, minimumFit, type BaseMat, type MatDimensions } from "./base-mat";
+export { SOIL_BAND_SEPARATION_ID, soilBandSeparationChecks } from "./evaluate";
+export type { Placement } from "./resize";
