@@ -1,5 +1,6 @@
 // The whole analysis of one input: model, nominal soil case, sweep, soil band, checks,
-// cross-check and warnings, assembled into the contract's result.
+// cross-check, warnings and (when asked) start-up and coast-down runs, assembled into the
+// contract's result.
 import { analysisWarnings } from "./analysis-warnings";
 import { buildChecks, resolveCriteria } from "./checks";
 import { buildCrossCheck } from "./closed-form";
@@ -11,6 +12,7 @@ import { soilBand } from "./soil-band";
 import { runSoilCase } from "./soil-case";
 import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
+import { transientResults } from "./transient";
 
 export const ENGINE_VERSION = "1.0.0";
 
@@ -29,7 +31,14 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   const sweep = frequencySweep(model, nominal.solver, sweepSettings, modesHz, criteria.frequencySeparation.value);
   const crossCheck = buildCrossCheck(model, nominal);
   const checks = buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure);
-  const warnings = [...model.warnings, ...nominal.impedance.warnings, ...analysisWarnings(model, nominal, sweepSettings)];
+  // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
+  const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;
+  const warnings = [
+    ...model.warnings,
+    ...nominal.impedance.warnings,
+    ...analysisWarnings(model, nominal, sweepSettings),
+    ...(transient ?? []).flatMap((t) => t.warnings),
+  ];
   const result: AnalysisResult = {
     schemaVersion: 1,
     engineVersion: ENGINE_VERSION,
@@ -43,6 +52,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     ...(options.soilBand === false ? {} : { bounds: soilBand(model) }),
     crossCheck,
     criteria,
+    ...(transient ? { transient } : {}),
   };
   // the sweep's series are checked in the sweep loop itself
   assertFinite(result, new Set<object>([sweep.series, sweep.transmissibility ?? []]));

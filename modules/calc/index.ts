@@ -6,7 +6,16 @@ import type { AnalysisResult } from "./result-types";
 
 export { analyse, ENGINE_VERSION, type AnalyseOptions } from "./analyse";
 export { parseAnalysisInput, parseAnalysisInputText, formatPath, type InputIssue, type ParseResult } from "./parse";
-export { analysisInputSchema, type AnalysisInput, type AnalysisInputDocument } from "./schema";
+export {
+  analysisInputSchema,
+  transientRequestSchema,
+  type AnalysisInput,
+  type AnalysisInputDocument,
+  type TransientRequest,
+  type TransientRequestDocument,
+} from "./schema";
+export { analyseTransient, TransientRequestError } from "./transient";
+export { TRANSIENT_LIMITS } from "./transient-settings";
 export type * from "./result-types";
 export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";
 export { DOF_KEYS, type DofKey, type Dof6 } from "./dof";

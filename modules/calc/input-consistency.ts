@@ -1,6 +1,7 @@
 // Physical consistency rules that a field-by-field schema cannot express. Each problem is
 // reported with the JSON path of the field to fix.
-import type { AnalysisInput } from "./schema";
+import type { AnalysisInput, TransientRequest } from "./schema";
+import { resolveTransientSpeeds } from "./transient-settings";
 import { resolveSweep } from "./sweep-grid";
 import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
 
@@ -121,9 +122,46 @@ function checkSweep(input: AnalysisInput, add: AddIssue): void {
   }
 }
 
+/**
+ * A start-up or coast-down request against the input: the machine and rotor must exist, the
+ * speeds must run in the direction of `kind`, and an unbalance mode must be one the rotor has.
+ * `path` is the request's own path (e.g. ["transient", 0]).
+ */
+export function checkTransientRequest(input: AnalysisInput, request: TransientRequest, path: PathPart[], add: AddIssue): void {
+  const machine = input.machines.find((m) => m.name === request.machine);
+  if (!machine) {
+    add([...path, "machine"], `no machine is named "${request.machine}"`);
+    return;
+  }
+  const rotor = machine.rotors.find((r) => r.name === request.rotor);
+  if (!rotor) {
+    add([...path, "rotor"], `machine "${machine.name}" has no rotor named "${request.rotor}"`);
+    return;
+  }
+  const { fromRpm, toRpm } = resolveTransientSpeeds(request, rotor.speedRpm);
+  const at = [...path, request.toRpm !== undefined ? "toRpm" : "fromRpm"];
+  if (request.kind === "run-up" && !(toRpm > fromRpm)) {
+    add(at, `a run-up needs toRpm (${toRpm} rpm) greater than fromRpm (${fromRpm} rpm)`);
+  }
+  if (request.kind === "coast-down" && !(fromRpm > toRpm)) {
+    add(at, `a coast-down needs fromRpm (${fromRpm} rpm) greater than toRpm (${toRpm} rpm)`);
+  }
+  if (request.unbalanceMode !== undefined && rotor.unbalanceMode !== "both" && request.unbalanceMode !== rotor.unbalanceMode) {
+    add(
+      [...path, "unbalanceMode"],
+      `the rotor's unbalanceMode is "${rotor.unbalanceMode}"; a run can use only that one (or either when the rotor has "both")`,
+    );
+  }
+}
+
+function checkTransient(input: AnalysisInput, add: AddIssue): void {
+  input.transient?.forEach((request, i) => checkTransientRequest(input, request, ["transient", i], add));
+}
+
 export function checkInputConsistency(input: AnalysisInput, add: AddIssue): void {
   checkBlock(input, add);
   checkSoil(input, add);
   checkMachines(input, add);
   checkSweep(input, add);
+  checkTransient(input, add);
 }

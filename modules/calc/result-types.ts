@@ -184,6 +184,66 @@ export interface ResolvedCriterion {
   source: string;
 }
 
+export interface TransientPeak {
+  /** Largest displacement (m) or velocity (m/s) component at any of the rotor's bearings over the run. */
+  value: number;
+  atTimeS: number;
+  /** Instantaneous speed when it occurs. */
+  atRpm: number;
+  point: string;
+  /**
+   * For comparison: the harmonic steady state (largest component at the same point) of the
+   * frequency-domain analysis at the same speed, held constant.
+   */
+  steadyStateAtSameSpeed: number;
+}
+
+/** Start-up or coast-down through resonance by Newmark time integration (transient.ts). */
+export interface TransientResult {
+  machine: string;
+  rotor: string;
+  kind: "run-up" | "coast-down";
+  case: LoadCaseName;
+  unbalanceMode: UnbalanceModeName;
+  fromRpm: number;
+  toRpm: number;
+  durationS: number;
+  /** Constant angular acceleration (rad/s^2; negative for a coast-down). */
+  angularAcceleration: number;
+  timeStepS: number;
+  steps: number;
+  /** Time steps per period of the highest frequency of the run (natural or excitation). */
+  stepsPerShortestPeriod: number;
+  /** The frequency-independent springs and dashpots of the time-domain model. */
+  model: {
+    /** Frequency at which K and C are frozen and material damping is made viscous: the rotor's rated speed. */
+    referenceHz: number;
+    stiffness: Dof6;
+    /** The engine's dashpots at the reference frequency plus the equivalent viscous material damping 2 beta K / w_ref. */
+    dashpot: Dof6;
+    /** Undamped natural frequencies of the block with these springs, ascending. */
+    naturalFrequenciesHz: number[];
+  };
+  /** The rotor's bearings, in the input's coordinates. */
+  points: { name: string; position: Vec3 }[];
+  /** Decimated time history: one entry per output interval. */
+  series: {
+    /** Middle of each output interval (s). */
+    timeS: number[];
+    /** Instantaneous speed at that time. */
+    speedRpm: number[];
+    /** Per point of `points`: largest displacement component reached within each interval (m). */
+    displacementPeak: number[][];
+    /** Per point: largest velocity component reached within each interval (m/s). */
+    velocityPeak: number[][];
+  };
+  peakDisplacement: TransientPeak;
+  peakVelocity: TransientPeak;
+  /** Largest harmonic steady-state components over the run's speed interval (frequency-domain analysis). */
+  steadyStateMax: { displacementPeak: number; atRpm: number; velocityPeak: number; velocityAtRpm: number };
+  warnings: string[];
+}
+
 export interface AnalysisResult {
   schemaVersion: 1;
   engineVersion: string;
@@ -198,4 +258,6 @@ export interface AnalysisResult {
   crossCheck?: CrossCheckResult;
   /** The criteria used, defaults filled in, each with its source. */
   criteria?: Record<string, ResolvedCriterion>;
+  /** Start-up and coast-down runs, present only when the input asks for them (input.transient). */
+  transient?: TransientResult[];
 }

@@ -3,6 +3,7 @@
 // be finite, and the physical consistency rules of input-consistency.ts run on top.
 import { z } from "zod";
 import { checkInputConsistency } from "./input-consistency";
+import { TRANSIENT_LIMITS } from "./transient-settings";
 
 const finite = () => z.number({ error: "must be a finite number" });
 const positive = () => finite().gt(0, { error: "must be greater than 0" });
@@ -125,6 +126,27 @@ const soilBandSchema = z.strictObject({
   upperFactor: finite().min(1, { error: "must be 1 or more" }).optional(),
 });
 
+/**
+ * One start-up or coast-down run through resonance (transient.ts). Speeds default to standstill
+ * and the rated speed; the consistency rules check the names and the direction of the run.
+ */
+export const transientRequestSchema = z.strictObject({
+  machine: name(),
+  rotor: name(),
+  kind: z.enum(["run-up", "coast-down"], { error: 'must be "run-up" or "coast-down"' }),
+  fromRpm: nonNegative().optional(),
+  toRpm: nonNegative().optional(),
+  durationS: positive().max(TRANSIENT_LIMITS.maxDurationS, { error: `must be at most ${TRANSIENT_LIMITS.maxDurationS} s` }),
+  case: z.enum(["vertical", "horizontal", "rotating"], { error: 'must be "vertical", "horizontal" or "rotating"' }).default("rotating"),
+  unbalanceMode: z.enum(["static", "couple"], { error: 'must be "static" or "couple"' }).optional(),
+  outputPoints: z
+    .number({ error: "must be a whole number" })
+    .int({ error: "must be a whole number" })
+    .min(TRANSIENT_LIMITS.minOutputPoints, { error: `must be at least ${TRANSIENT_LIMITS.minOutputPoints}` })
+    .max(TRANSIENT_LIMITS.maxOutputPoints, { error: `must be at most ${TRANSIENT_LIMITS.maxOutputPoints}` })
+    .default(TRANSIENT_LIMITS.defaultOutputPoints),
+});
+
 export const analysisInputBaseSchema = z.strictObject({
   schemaVersion: z.literal(1, { error: "must be 1" }),
   block: blockSchema,
@@ -135,6 +157,11 @@ export const analysisInputBaseSchema = z.strictObject({
   criteria: criteriaSchema.optional(),
   sweep: sweepSchema.optional(),
   soilBand: soilBandSchema.optional(),
+  transient: z
+    .array(transientRequestSchema, { error: "must be a list of runs" })
+    .min(1, { error: "give at least one run, or leave the field out" })
+    .max(TRANSIENT_LIMITS.maxRuns, { error: `at most ${TRANSIENT_LIMITS.maxRuns} runs` })
+    .optional(),
 });
 
 /** The analysis input schema (contract v1) with its physical consistency rules. */
@@ -151,5 +178,9 @@ export type MachineInput = AnalysisInput["machines"][number];
 export type RotorInput = MachineInput["rotors"][number];
 export type SoilInput = AnalysisInput["soil"];
 export type ImpedanceInput = AnalysisInput["impedance"];
+/** A parsed start-up or coast-down request (defaults applied). */
+export type TransientRequest = z.output<typeof transientRequestSchema>;
+/** The request as written. */
+export type TransientRequestDocument = z.input<typeof transientRequestSchema>;
 
 export type { AnalysisResult } from "./result-types";
