@@ -54,9 +54,24 @@ const issuer = alias(users, "issuer");
 const decider = alias(users, "decider");
 
 /** Summaries of the given foundation's revisions (or of one), oldest first. */
-async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<(RevisionSummary & { row: RevisionRow })[]> {
+// The summary columns only: input and result (the result holds the sweep series, about a
+// megabyte) are read for the one revision that needs them, never for a whole list.
+const summaryColumns = {
+  id: revisions.id,
+  foundationId: revisions.foundationId,
+  projectId: revisions.projectId,
+  sequence: revisions.sequence,
+  label: revisions.label,
+  engineVersion: revisions.engineVersion,
+  inputHash: revisions.inputHash,
+  vendorSubmissionId: revisions.vendorSubmissionId,
+  issuedById: revisions.issuedById,
+  issuedAt: revisions.issuedAt,
+};
+
+async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
   const rows = await db
-    .select({ r: revisions, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name })
+    .select({ r: summaryColumns, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name })
     .from(revisions)
     .innerJoin(issuer, eq(issuer.id, revisions.issuedById))
     .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
@@ -76,7 +91,6 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
   return rows
     .filter((x) => !where.revisionId || x.r.id === where.revisionId)
     .map(({ r, issuerName, d, deciderName }) => ({
-      row: r,
       id: r.id,
       foundationId: r.foundationId,
       projectId: r.projectId,
@@ -94,15 +108,16 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
     }));
 }
 
-function strip({ row: _row, ...summary }: RevisionSummary & { row: RevisionRow }): RevisionSummary {
-  void _row;
-  return summary;
+/** The stored input and result of one revision. */
+async function selectRevisionBody(db: ReturnType<typeof getDb> | Tx, revisionId: string): Promise<Pick<RevisionRow, "input" | "result"> | undefined> {
+  const [row] = await db.select({ input: revisions.input, result: revisions.result }).from(revisions).where(eq(revisions.id, revisionId));
+  return row;
 }
 
 /** The foundation's revisions, oldest first; [] when the actor may not read revisions. */
 export async function listRevisions(actor: Actor, projectId: string, foundationId: string): Promise<RevisionSummary[]> {
   if (!(await allowed(actor, projectId, "revision.read"))) return [];
-  return (await selectSummaries(getDb(), { projectId, foundationId })).map(strip);
+  return selectSummaries(getDb(), { projectId, foundationId });
 }
 
 /** One revision with its input and result; undefined when absent or not readable by the actor. */
@@ -110,7 +125,9 @@ export async function getRevision(actor: Actor, projectId: string, foundationId:
   if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
   const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId });
   if (!hit) return undefined;
-  return { ...strip(hit), input: hit.row.input as AnalysisInput, result: hit.row.result as AnalysisResult };
+  const body = await selectRevisionBody(getDb(), hit.id);
+  if (!body) return undefined;
+  return { ...hit, input: body.input as AnalysisInput, result: body.result as AnalysisResult };
 }
 
 export interface FoundationRevisionState {
@@ -235,7 +252,7 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
     if (!summary) throw new Error("issued revision not readable");
-    return { ok: true, revision: strip(summary) } as const;
+    return { ok: true, revision: summary } as const;
   });
 }
 
@@ -284,7 +301,7 @@ export async function decideRevision(
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId });
     if (!summary) throw new Error("decided revision not readable");
-    return { ok: true, revision: strip(summary) } as const;
+    return { ok: true, revision: summary } as const;
   });
 }
 
@@ -336,8 +353,9 @@ export async function createRevisionComment(
       const [parent] = await tx.select().from(revisionComments).where(and(eq(revisionComments.id, comment.parentId), eq(revisionComments.revisionId, revisionId)));
       if (!parent) return { ok: false, reason: "parent-not-found" } as const;
       fieldPath = parent.fieldPath;
-    } else if (fieldPath && !revisionFieldPaths(hit.row).has(fieldPath)) {
-      return { ok: false, reason: "unknown-field" } as const;
+    } else if (fieldPath) {
+      const body = await selectRevisionBody(tx, hit.id);
+      if (!body || !revisionFieldPaths(body).has(fieldPath)) return { ok: false, reason: "unknown-field" } as const;
     }
     const [row] = await tx
       .insert(revisionComments)
@@ -353,14 +371,14 @@ export async function createRevisionComment(
     const [author] = await tx.select({ name: users.name }).from(users).where(eq(users.id, actor.userId));
     return {
       ok: true,
-      revision: strip(hit),
+      revision: hit,
       comment: { id: row.id, revisionId, parentId: row.parentId, fieldPath: row.fieldPath, body: row.body, resolved: row.resolved, authorId: row.authorId, authorName: author?.name ?? "", createdAt: row.createdAt },
     } as const;
   });
 }
 
 /** Every field path of a revision a comment may name: its input's and its result's (sweep aside). */
-function revisionFieldPaths(row: RevisionRow): Set<string> {
+function revisionFieldPaths(row: Pick<RevisionRow, "input" | "result">): Set<string> {
   const { sweep: _sweep, ...result } = row.result as AnalysisResult;
   void _sweep;
   return new Set([...listLeafPaths(row.input), ...listLeafPaths(result)].map((p) => p.path));
