@@ -1,7 +1,7 @@
 /** Plinthwise theme: a concrete-and-basalt palette of our own, a compact type
  *  scale for dense engineering tables, and a 4 px spacing rhythm. */
 /** @type {import('tailwindcss').Config} */
-export default {
+const config = {
   content: ["./app/**/*.{ts,tsx}"],
   theme: {
     extend: {
@@ -32,3 +32,5 @@ export default {
   },
   plugins: [],
 };
+
+export default config;
