@@ -1,6 +1,6 @@
 // Block-sizing assistant: proposes base-mat dimensions that pass every check of the
 // calculation core, smallest concrete volume first (see README.md beside this file).
-export { proposeBlockSizes, type SizingResult, type SizingProposal, type SizingOutcome, type SizingIssue, type FailureCount, type CheckSummary, type NearestCandidate } from "./search";
+export { proposeBlockSizes, proposeBlockSizesAsync, type SizingResult, type SizingProposal, type SizingOutcome, type SizingIssue, type FailureCount, type CheckSummary, type NearestCandidate } from "./search";
 export { applySizingProposal, type ApplyOutcome, type ProposalToApply } from "./apply";
 export {
   sizingOptionsSchema,

@@ -56,7 +56,11 @@ const dimensionRangeSchema = z
       return;
     }
     const n = countGridValues(r.min, r.max, r.step);
-    if (n === 0) {
+    // A step tiny against the bounds (or bounds near the float limit) makes the count NaN or
+    // Infinity; it must be refused like any other too-fine grid, never searched.
+    if (!Number.isFinite(n)) {
+      ctx.addIssue({ code: "custom", path: ["step"], message: `is too fine for bounds ${r.min} m to ${r.max} m: use a coarser step or narrower bounds` });
+    } else if (n === 0) {
       ctx.addIssue({ code: "custom", path: [], message: `no multiple of the step ${r.step} m lies between ${r.min} m and ${r.max} m` });
     } else if (n > MAX_VALUES_PER_DIMENSION) {
       ctx.addIssue({

@@ -249,10 +249,38 @@ export function proposeBlockSizes(document: unknown, options: unknown): SizingOu
   if (!parsedOptions.ok || !parsedInput.ok) return { ok: false, issues };
   const read = readBaseMat(parsedInput.input);
   if (!read.ok) return { ok: false, issues: read.issues.map((i) => ({ in: "input", ...i })) };
-  return { ok: true, result: search(parsedInput.input, read.mat, parsedOptions.options) };
+  const steps = search(parsedInput.input, read.mat, parsedOptions.options);
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return { ok: true, result: step.value };
+  }
 }
 
-function search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): SizingResult {
+/**
+ * The same search, handing the thread back between slices of analyses, so that a server
+ * answering a sizing request keeps answering its other requests meanwhile (a search may run
+ * several hundred analyses of a few milliseconds each).
+ */
+export async function proposeBlockSizesAsync(document: unknown, options: unknown, sliceMs = 20): Promise<SizingOutcome> {
+  const parsedOptions = parseSizingOptions(options);
+  const parsedInput = parseAnalysisInput(document);
+  if (!parsedOptions.ok || !parsedInput.ok) return proposeBlockSizes(document, options);
+  const read = readBaseMat(parsedInput.input);
+  if (!read.ok) return { ok: false, issues: read.issues.map((i) => ({ in: "input", ...i })) };
+  const steps = search(parsedInput.input, read.mat, parsedOptions.options);
+  let sliceStart = Date.now();
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return { ok: true, result: step.value };
+    if (Date.now() - sliceStart >= sliceMs) {
+      await new Promise<void>((resolve) => setTimeout(resolve, 0));
+      sliceStart = Date.now();
+    }
+  }
+}
+
+/** The search itself; it yields after every analysis so a driver may pause between them. */
+function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Generator<void, SizingResult, void> {
   const mode = options.centre;
   const need = minimumFit(mat, matCentre(mat, mode));
   const { fit, total } = enumerate(mat, options, need);
@@ -290,6 +318,7 @@ function search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Siz
     const e = analyseCandidate(c);
     analysesRun++;
     examined++;
+    yield;
     if (e.pass) {
       proposals.push(proposalFrom(proposals.length + 1, c, e, mat, mode));
       continue;

@@ -52,6 +52,7 @@ export function defineQuantityKind<U extends Unit<SIUnitSystem>>(def: {
 export const quantityKinds = {
   length: defineQuantityKind({ label: "Length", base: u.metre, si: u.metre, us: u.foot, accepts: [u.millimetre, u.inch], decimals: { si: 3, us: 3 } }),
   area: defineQuantityKind({ label: "Area", base: u.squareMetre, si: u.squareMetre, us: u.squareFoot, decimals: { si: 2, us: 1 } }),
+  volume: defineQuantityKind({ label: "Volume", base: u.cubicMetre, si: u.cubicMetre, us: u.cubicYard, accepts: [u.cubicFoot], decimals: { si: 2, us: 2 } }),
   displacement: defineQuantityKind({ label: "Displacement", base: u.metre, si: u.micrometre, us: u.mil, accepts: [u.millimetre, u.inch], decimals: { si: 1, us: 2 } }),
   velocity: defineQuantityKind({ label: "Velocity", base: u.metrePerSecond, si: u.millimetrePerSecond, us: u.inchPerSecond, decimals: { si: 2, us: 3 } }),
   waveSpeed: defineQuantityKind({ label: "Wave speed", base: u.metrePerSecond, si: u.metrePerSecond, us: u.footPerSecond, decimals: { si: 0, us: 0 } }),

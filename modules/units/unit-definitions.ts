@@ -42,6 +42,11 @@ export const mil = named(Measure.of(0.001, inch), "mil");
 export const squareMetre = named(meters.squared(), "m²");
 export const squareFoot = named(foot.squared(), "ft²");
 
+// ---- volume: 1 yd = 3 ft = 0.9144 m exactly; US concrete is ordered by the cubic yard ----
+export const cubicMetre = named(meters.cubed(), "m³");
+export const cubicFoot = named(foot.cubed(), "ft³");
+export const cubicYard = named(Measure.of(27, foot.cubed()), "yd³");
+
 // ---- mass: 1 lb = 0.45359237 kg exactly; "kip" as a weight is 1000 lb ----
 export const kilogram = named(kilograms, "kg");
 export const tonne = named(Measure.of(1000, kilograms), "t");

@@ -4,7 +4,7 @@ import { analyse } from "@/modules/calc";
 import { asDemo, sharedBrowser } from "./support/fixtures";
 import { artifactsDir, screenshot } from "./support/browser";
 import { DEMO_FOUNDATION_TAGS, projectIdOf, textOf } from "./support/desk";
-import { WorkspacePage, example, getDraft } from "./support/workspace";
+import { WorkspacePage, example, getDraft, seededFoundation } from "./support/workspace";
 
 const browser = sharedBrowser();
 
@@ -193,6 +193,49 @@ describe("designer in the foundation workspace", () => {
       await screenshot(page, "designer-new-passing");
       await page.getByTestId("panel-plots").screenshot({ path: `${artifactsDir}/designer-new-plots.png` });
       await page.getByTestId("panel-block").screenshot({ path: `${artifactsDir}/designer-new-drawings.png` });
+    });
+  });
+  it("sizes the failing pump train's mat with the sizing panel, loads the first size and sees every check pass", async () => {
+    await asDemo(browser(), "designer", async ({ context, page }) => {
+      const projectId = projectIdOf(page.url());
+      // A copy of the demo's failing foundation: the first journey above enlarges PH1-P101 itself.
+      const { id } = await seededFoundation(context.request, projectId, "E2E-SIZE", example("raw-water-pump-train.json"));
+      const ws = new WorkspacePage(page);
+      await ws.open(projectId, id);
+      await ws.waitForState("fresh");
+      expect(await ws.checks()).toMatchObject({ failing: 1 });
+
+      const panel = ws.panel("sizing");
+      await ws.setNumber(panel.getByLabel("Length along x from (m)", { exact: true }), "7");
+      await ws.setNumber(panel.getByLabel("Length along x to (m)", { exact: true }), "9");
+      await panel.getByRole("button", { name: "Find passing sizes" }).click();
+      await panel.locator('[data-testid="sizing-state"][data-state="done"]').waitFor({ state: "attached", timeout: 30_000 });
+      expect(await textOf(panel.getByTestId("sizing-summary"))).toMatch(/^\d+ passing sizes? \d+ analys[ie]s of 400 allowed;/);
+      expect(await panel.getByTestId("cautions").isVisible()).toBe(true);
+      const first = panel.getByTestId("sizing-proposal").first();
+      // The second cell: L × W × T in the display units (SI here).
+      const m = /^([\d.]+) × ([\d.]+) × ([\d.]+) m$/.exec(await textOf(first.locator("td").nth(1)));
+      if (!m) throw new Error("no dimensions in the first proposal");
+      const [length, width, thickness] = [Number(m[1]), Number(m[2]), Number(m[3])];
+      expect(length).toBeGreaterThanOrEqual(7);
+      expect(length).toBeLessThanOrEqual(9);
+
+      await first.getByRole("button", { name: "Load size 1 into the draft" }).click();
+      expect(await ws.box(1, "x", "to", "m").inputValue()).toBe(String(length / 2));
+      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      await panel.getByTestId("sizing-loaded").waitFor({ state: "visible" });
+      await ws.waitForState("fresh");
+      const after = await ws.checks();
+      expect(after.failing).toBe(0);
+      expect(await textOf(ws.summary)).toBe(`all ${after.total} checks pass`);
+      await screenshot(page, "designer-sized-mat");
+
+      // Saved through the same path as typing; what is stored passes every check in the core.
+      expect(await ws.save()).toBe(2);
+      const stored = await getDraft(context.request, projectId, id);
+      const mat = stored.input!.block.solids[0]!;
+      expect([mat.x[1] - mat.x[0], mat.y[1] - mat.y[0], mat.z[1] - mat.z[0]].map((v) => Number(v.toFixed(6)))).toEqual([length, width, thickness]);
+      expect(analyse(stored.input!).checks.filter((c) => !c.pass)).toEqual([]);
     });
   });
 });

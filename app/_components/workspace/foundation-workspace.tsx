@@ -10,6 +10,7 @@ import { Cautions } from "../cautions";
 import { BlockDrawing } from "./block-drawing";
 import { BlockSection } from "./block-section";
 import { MachinesSection } from "./machines-section";
+import { MatSizingSection } from "./mat-sizing-section";
 import { MethodSection } from "./method-section";
 import { ResponsePlots } from "./response-plots";
 import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
@@ -71,7 +72,8 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   const { values, setStatus, isValid, resetForm } = useFormikContext<DraftForm>();
   const units = useUnits();
   // Blank criteria take the project's defaults, so the result and the saved draft record what was used.
-  const document = useMemo(() => withProjectDefaults(toInputDocument(values), props.projectDefaults), [values, props.projectDefaults]);
+  const toDocument = useCallback((form: DraftForm) => withProjectDefaults(toInputDocument(form), props.projectDefaults), [props.projectDefaults]);
+  const document = useMemo(() => toDocument(values), [values, toDocument]);
   const { result, error, stale, pending } = useCalculation(document, true);
   const [save, setSave] = useState<SaveState>({ kind: "idle" });
   const [savedBody, setSavedBody] = useState(() => (props.initialInput ? JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)) : ""));
@@ -190,6 +192,9 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           </Panel>
           <Panel title="Method and acceptance limits" id="method">
             <MethodSection readOnly={props.readOnly} projectCriteria={props.projectDefaults.criteriaDefaults} />
+          </Panel>
+          <Panel title="Size the base mat" id="sizing" aside={<span className="text-2xs text-basalt-400">smallest passing block first</span>}>
+            <MatSizingSection readOnly={props.readOnly} document={document} toDocument={toDocument} />
           </Panel>
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">

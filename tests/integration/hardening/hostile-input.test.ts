@@ -201,6 +201,28 @@ describe("route handlers under hostile bodies", () => {
     expect(tally.keys()).toEqual(expect.arrayContaining(["400", "413"]));
   }, 90_000);
 
+  it("POST /api/v1/sizing answers 200, 400 or 413, never 500", async () => {
+    const tally = new Tally();
+    // A short search (a handful of analyses), so 80 cases stay within the file's minute.
+    const envelope = () => ({
+      input: sampleAnalysisInput(),
+      options: { dimensions: { length: { min: 6, max: 6.4, step: 0.1 }, width: { min: 4, max: 4.4, step: 0.2 }, thickness: { min: 1.4, max: 1.6, step: 0.1 } }, centre: "load", requireSoilBand: true, maxAnalyses: 4, proposals: 2 },
+    });
+    const valid = await callRouteAt("v1/sizing", "POST", {}, { cookie: fx.cookies.designer, body: JSON.stringify(envelope()) });
+    await expectClean(valid, [200], tally, "sizing, the untouched envelope");
+    await fc.assert(
+      fc.asyncProperty(bodyOf(envelope), async (body) => {
+        const res = await callRouteAt("v1/sizing", "POST", {}, { cookie: fx.cookies.designer, body });
+        await expectClean(res, [200, 400, 413], tally, `sizing ${body.slice(0, 120)}`);
+      }),
+      runs,
+    );
+    const big = await callRouteAt("v1/sizing", "POST", {}, { cookie: fx.cookies.designer, body: JSON.stringify({ input: { schemaVersion: 1, note: TEN_MB }, options: {} }) });
+    await expectClean(big, [413], tally, "sizing 10 MB");
+    figures.push(`POST /api/v1/sizing: ${tally.total} cases, statuses ${tally}`);
+    expect(tally.keys()).toEqual(expect.arrayContaining(["200", "400", "413"]));
+  }, 120_000);
+
   it("PUT .../draft answers 200, 400, 409 or 413, and what it saves is a finite, valid input", async () => {
     const tally = new Tally();
     const params = { projectId: hx.projectId, foundationId: hx.foundationId };

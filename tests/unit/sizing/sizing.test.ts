@@ -6,7 +6,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput, type AnalysisInputDocument, type AnalysisResult } from "@/modules/calc";
-import { applySizingProposal, parseSizingOptions, proposeBlockSizes, type SizingProposal, type SizingResult } from "@/modules/sizing";
+import { applySizingProposal, parseSizingOptions, proposeBlockSizes, proposeBlockSizesAsync, type SizingProposal, type SizingResult } from "@/modules/sizing";
 
 const dir = path.resolve(import.meta.dirname, "../../../examples");
 const load = (file: string): AnalysisInputDocument => JSON.parse(readFileSync(path.join(dir, file), "utf8"));
@@ -56,6 +56,18 @@ describe("sizing the failing demo pump train", () => {
   let result: SizingResult;
   beforeAll(() => {
     result = found(proposeBlockSizes(start, { dimensions: BOUNDS }));
+  });
+
+  it("gives the same answer when run in slices that hand the thread back (the API's way)", async () => {
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 0);
+    // a slice of 0 ms hands the thread back after every analysis
+    const sliced = await proposeBlockSizesAsync(start, { dimensions: BOUNDS, requireSoilBand: true }, 0);
+    clearInterval(timer);
+    const whole = proposeBlockSizes(start, { dimensions: BOUNDS, requireSoilBand: true });
+    expect(sliced).toEqual(whole);
+    // the other work (the timer) ran while the search was going on
+    expect(ticks).toBeGreaterThan(0);
   });
 
   it("starts from a block that fails only the mass ratio", () => {
@@ -294,6 +306,9 @@ describe("validation", () => {
     expectIssue({ dimensions: { width: { min: 3, max: 4, step: 0 } } }, "dimensions.width.step", /greater than 0/);
     expectIssue({ dimensions: { thickness: { min: 1.01, max: 1.09, step: 0.1 } } }, "dimensions.thickness", /no multiple of the step/);
     expectIssue({ dimensions: { length: { min: 1, max: 500, step: 0.01 } } }, "dimensions.length.step", /at most 1000/);
+    // a step so fine (or bounds so large) that the count of values is not even a finite number
+    expectIssue({ dimensions: { length: { min: 1, max: 2, step: 5e-324 } } }, "dimensions.length.step", /too fine/);
+    expectIssue({ dimensions: { width: { min: 1, max: 1e308, step: 1e-10 } } }, "dimensions.width.step", /too fine/);
     expectIssue({ dimensions: { height: { min: 1, max: 2 } } }, "dimensions.height", /unknown field/);
     expectIssue({ dimensions: {} }, "dimensions", /at least one of length, width and thickness/);
     expectIssue({}, "dimensions", /is required/);

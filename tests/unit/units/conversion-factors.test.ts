@@ -20,6 +20,7 @@ describe("exact definitions (to the last bits of a double)", () => {
   it.each([
     ["1 ft = 0.3048 m", "length", FT],
     ["1 ft² = 9.290304E-02 m²", "area", FT * FT],
+    ["1 yd³ = 7.645549E-01 m³ (27 ft³)", "volume", 27 * FT * FT * FT],
     ["1 mil = 2.54E-05 m", "displacement", 0.001 * IN],
     ["1 in/s = 2.54E-02 m/s", "velocity", IN],
     ["1 ft/s = 0.3048 m/s", "waveSpeed", FT],
