@@ -227,7 +227,15 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
     const earlier = await tx.select({ label: revisions.label, sequence: revisions.sequence, inputHash: revisions.inputHash }).from(revisions).where(eq(revisions.foundationId, foundationId)).orderBy(desc(revisions.sequence));
     const latest = earlier[0];
     if (latest && latest.inputHash === inputHash) return { ok: false, reason: "identical", label: latest.label } as const;
-    const result = analyse(parsed.input);
+    let result: AnalysisResult;
+    try {
+      result = analyse(parsed.input);
+    } catch (e) {
+      // A draft the contract accepts can still be numerically impossible (a density of 1e308):
+      // the engine refuses it, and nothing is issued. Logged, so an engine fault is still seen.
+      console.error("[issue] the engine refused a draft that passed the contract:", e instanceof Error ? e.message : e);
+      return { ok: false, reason: "invalid-draft", issues: [{ path: "(root)", message: "values too large or too small to analyse: check the input's units and magnitudes" }] } as const;
+    }
     const [row] = await tx
       .insert(revisions)
       .values({

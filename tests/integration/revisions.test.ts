@@ -122,6 +122,19 @@ describe("issue for check", () => {
     expect(bad.body.error.issues[0].path).toBe("draftVersion");
   });
 
+  it("refuses cleanly to issue a draft the contract accepts but the engine cannot analyse, and stores nothing", async () => {
+    // A concrete density of 1e-300 kg/m3 passes the contract (positive, finite) but leaves
+    // the block without rotational inertia: the mass matrix is not positive definite.
+    const p = await foundationWithDraft((input) => {
+      (input as Loose).block.concreteDensity = 1e-300;
+    });
+    const refused = await issue(p, "designer", { draftVersion: await draftVersionOf(p) });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.code).toBe("invalid_input");
+    expect(refused.body.error.issues[0].message).toMatch(/too large or too small to analyse/);
+    expect(await listRevisions({ userId: fx.userIds.manager, isAdmin: false }, p.projectId, p.foundationId)).toHaveLength(0);
+  });
+
   it("labels by the project's scheme at the time of issue", async () => {
     const p = await foundationWithDraft();
     const first = await issue(p);
