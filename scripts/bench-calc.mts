@@ -3,9 +3,10 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
-import { analyse, parseAnalysisInputText } from "../modules/calc/index";
+import { analyse, parseAnalysisInputText, type AnalysisInput } from "../modules/calc/index";
 import { buildModel } from "../modules/calc/model";
 import { soilBand } from "../modules/calc/soil-band";
+import { proposeBlockSizes } from "../modules/sizing/index";
 
 export interface TimingStats {
   median: number;
@@ -76,6 +77,51 @@ export function benchCalc(inputPath: string, runs: number): { description: strin
     sections: [
       { name: "full analysis", stats: timeRuns(() => analyse(input), runs) },
       { name: "soil band (2 soil cases)", stats: timeRuns(() => soilBand(model), runs) },
+      ...extraSections(input, runs),
     ],
   };
 }
+
+/**
+ * The beyond-the-hand-calculation tools on the same foundation: a 10 s run-up of its first
+ * rotor through resonance (Newmark), and a sizing search of its base mat (the demo's bounds).
+ */
+function extraSections(input: AnalysisInput, runs: number): BenchSection[] {
+  const machine = input.machines.find((m) => m.rotors.length > 0);
+  const rotor = machine?.rotors[0];
+  const out: BenchSection[] = [];
+  if (machine && rotor) {
+    const withRun = { ...input, transient: [{ machine: machine.name, rotor: rotor.name, kind: "run-up" as const, durationS: 10, case: "rotating" as const, outputPoints: 500 }] };
+    const reparsed = parseAnalysisInputText(JSON.stringify(withRun));
+    if (reparsed.ok) {
+      const steps = analyse(reparsed.input).transient?.[0];
+      out.push({
+        name: `run-up 0 to ${rotor.speedRpm} rpm in 10 s (${steps?.steps ?? "?"} Newmark steps)`,
+        stats: timeRuns(() => analyse({ ...reparsed.input, sweep: { fromHz: 1, toHz: 2, points: 2 } }), Math.max(5, Math.floor(runs / 20)), 2),
+      });
+    }
+  }
+  const mat = input.block.solids.find((s) => !s.void && s.z[0] === 0);
+  if (mat) {
+    const [x0, x1] = mat.x;
+    const [y0, y1] = mat.y;
+    const [z0, z1] = mat.z;
+    const options = {
+      dimensions: {
+        length: { min: round1((x1 - x0) * 0.9), max: round1((x1 - x0) * 1.2) },
+        width: { min: round1((y1 - y0) * 0.9), max: round1((y1 - y0) * 1.2) },
+        thickness: { min: round1(z1 - z0), max: round1(z1 - z0 + 0.4) },
+      },
+      requireSoilBand: true,
+    };
+    const probe = proposeBlockSizes(input, options);
+    const analyses = probe.ok ? probe.result.analysesRun : 0;
+    out.push({ name: `sizing search, soil band required (${analyses} analyses)`, stats: timeRuns(() => proposeBlockSizes(input, options), Math.max(3, Math.floor(runs / 100)), 1) });
+  }
+  return out;
+}
+
+function round1(v: number): number {
+  return Math.round(v * 10) / 10;
+}
+
