@@ -3,7 +3,7 @@ import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionComments, revisionDecisions, revisions, users, vendorSubmissions, type RevisionRow } from "../schema";
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
-import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, type RevisionStatus } from "@/modules/revisions";
+import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { getMembership, type Actor } from "./projects";
 
@@ -387,8 +387,8 @@ export async function createRevisionComment(
 
 /** Every field path of a revision a comment may name: its input's and its result's (sweep aside). */
 function revisionFieldPaths(row: Pick<RevisionRow, "input" | "result">): Set<string> {
-  const { sweep: _sweep, ...result } = row.result as AnalysisResult;
-  void _sweep;
+  // the plotted series (sweep, run envelopes) are not fields one comments on
+  const result = withoutLongSeries(row.result as AnalysisResult);
   return new Set([...listLeafPaths(row.input), ...listLeafPaths(result)].map((p) => p.path));
 }
 

@@ -5,5 +5,6 @@ export { buildRegisterWorkbook, registerWorkbookBytes, REGISTER_SHEETS } from ".
 export { addHandCheckSheet, handCheckValues, HAND_CHECK_COLUMNS, HAND_CHECK_FIRST_ROW, type HandCheckSymbol } from "./hand-check-sheet";
 export { packageFileName, registerFileName, attachmentDisposition, XLSX_CONTENT_TYPE } from "./file-names";
 export { safeText, looksLikeFormula } from "./safe-text";
+export { SPEED_RAMPS_SHEET, SPEED_RAMP_MAX_ROWS } from "./speed-ramps-sheet";
 export { packageUnit, toPackageUnit, factorToStored, type PackageKind } from "./package-units";
 export type * from "./types";

@@ -3,7 +3,7 @@
 // lacks (dashpots, second moments of area, unbalance) are defined here from the same sizes.
 import { convertValue, quantityKinds, type QuantityKindKey, type UnitInfo, type UnitSystemKey } from "@/modules/units";
 
-type ExtraKind = "dashpot" | "rotationalDashpot" | "momentOfArea" | "unbalance" | "angularFrequency" | "count";
+type ExtraKind = "dashpot" | "rotationalDashpot" | "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "time" | "count";
 export type PackageKind = QuantityKindKey | ExtraKind;
 
 // Sizes taken from the quantity table, so that one foot or one pound-force is the same here.
@@ -19,6 +19,9 @@ const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo; dec
   momentOfArea: { base: { symbol: "m⁴", siValue: 1 }, si: { symbol: "m⁴", siValue: 1 }, us: { symbol: "ft⁴", siValue: foot ** 4 }, decimals: { si: 3, us: 1 } },
   unbalance: { base: { symbol: "kg·m", siValue: 1 }, si: { symbol: "g·mm", siValue: 1e-6 }, us: { symbol: "lb·in", siValue: pound * inch }, decimals: { si: 1, us: 4 } },
   angularFrequency: { base: { symbol: "rad/s", siValue: 1 }, si: { symbol: "rad/s", siValue: 1 }, us: { symbol: "rad/s", siValue: 1 }, decimals: { si: 3, us: 3 } },
+  // Speed ramps (start-up and coast-down): time and the rate of change of the shaft speed.
+  angularAcceleration: { base: { symbol: "rad/s²", siValue: 1 }, si: { symbol: "rad/s²", siValue: 1 }, us: { symbol: "rad/s²", siValue: 1 }, decimals: { si: 3, us: 3 } },
+  time: { base: { symbol: "s", siValue: 1 }, si: { symbol: "s", siValue: 1 }, us: { symbol: "s", siValue: 1 }, decimals: { si: 3, us: 3 } },
   count: { base: { symbol: "", siValue: 1 }, si: { symbol: "", siValue: 1 }, us: { symbol: "", siValue: 1 }, decimals: { si: 0, us: 0 } },
 };
 

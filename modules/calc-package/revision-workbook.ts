@@ -10,6 +10,7 @@ import { revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
 import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
+import { SPEED_RAMPS_SHEET, writeSpeedRampsSheet } from "./speed-ramps-sheet";
 import type { PackageRevisionSummary, RevisionPackageData } from "./types";
 
 export const PACKAGE_SHEETS = {
@@ -99,6 +100,9 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.springs, "soil springs, damping ratios and dashpots per degree of freedom"],
       [PACKAGE_SHEETS.modes, "six natural frequencies, participation, mode shapes, frequency ratios, avoidance bands, closed-form cross-check"],
       [PACKAGE_SHEETS.response, "amplitude and velocity at every bearing and check point for every load case"],
+      ...(d.result.transient?.length
+        ? [[SPEED_RAMPS_SHEET, "start-up and coast-down runs through resonance (time integration): settings, peaks beside the harmonic steady state, envelope series"]]
+        : []),
       [PACKAGE_SHEETS.band, "the same analysis at the lower and the upper shear modulus"],
       [PACKAGE_SHEETS.checks, "every check with value, limit, verdict and source"],
       [PACKAGE_SHEETS.history, "every revision of this foundation and its review trail"],
@@ -221,6 +225,9 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
       { label: "Dynamics", value: "six-degree-of-freedom rigid block", note: "undamped eigen-analysis; damped harmonic steady state (K - w^2 M + i w C) u = F" },
       { label: "Loads", value: "rotating unbalance", note: "ISO 1940-1 balance grade: F = m_r e w^2, e = G / w_rated; or the vendor's force scaled with (w / w_rated)^2" },
       { label: "Cross-check", value: "closed forms", note: result.crossCheck?.source ?? "single-degree-of-freedom oscillator (Chopra, Dynamics of Structures)" },
+      ...(result.transient?.length
+        ? [{ label: "Speed ramps", value: `${result.transient.length} start-up or coast-down run${result.transient.length === 1 ? "" : "s"}`, note: `Newmark time integration; see the ${SPEED_RAMPS_SHEET} sheet` }]
+        : []),
     ],
     "Reference",
   );
@@ -584,6 +591,8 @@ export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook 
   springs(sheet(PACKAGE_SHEETS.springs), d);
   modes(sheet(PACKAGE_SHEETS.modes), d);
   response(sheet(PACKAGE_SHEETS.response), d);
+  // Only a revision with start-up or coast-down runs has this sheet (after the harmonic response it compares with).
+  if (d.result.transient?.length) writeSpeedRampsSheet(sheet(SPEED_RAMPS_SHEET), d);
   band(sheet(PACKAGE_SHEETS.band), d);
   checks(sheet(PACKAGE_SHEETS.checks), d);
   history(sheet(PACKAGE_SHEETS.history), d);

@@ -3,7 +3,7 @@
 // turns the form into the contract's JSON (blank optional fields dropped) and the
 // contract's zod schema then has the last word on the server.
 import * as yup from "yup";
-import type { AnalysisInputDocument } from "@/modules/calc";
+import { TRANSIENT_LIMITS, type AnalysisInputDocument } from "@/modules/calc";
 
 export type Num = number | null;
 export type Vec3Form = [Num, Num, Num];
@@ -42,6 +42,24 @@ export interface MachineForm {
 
 export type Dof6Form = { x: Num; y: Num; z: Num; rx: Num; ry: Num; rz: Num };
 
+/**
+ * One start-up or coast-down run of a rotor (the contract's `transient[i]`). The rotor is named
+ * by machine and rotor name, as in the contract; blank speeds take the core's defaults
+ * (standstill and the rated speed), a blank unbalance mode the rotor's own.
+ */
+export interface TransientRunForm {
+  machine: string;
+  rotor: string;
+  kind: "run-up" | "coast-down";
+  fromRpm: Num;
+  toRpm: Num;
+  durationS: Num;
+  case: "vertical" | "horizontal" | "rotating";
+  unbalanceMode: "static" | "couple" | null;
+  /** Output intervals of the envelope series; blank takes the core's default. */
+  outputPoints: Num;
+}
+
 export interface DraftForm {
   block: { concreteDensity: Num; solids: SolidForm[] };
   soil: {
@@ -68,6 +86,8 @@ export interface DraftForm {
   };
   soilBand: { lowerFactor: Num; upperFactor: Num };
   sweep: { fromHz: Num; toHz: Num; points: Num };
+  /** Start-up and coast-down runs through resonance; none by default. */
+  transient: TransientRunForm[];
 }
 
 const emptyDof = (): Dof6Form => ({ x: null, y: null, z: null, rx: null, ry: null, rz: null });
@@ -117,7 +137,60 @@ export function emptyDraftForm(): DraftForm {
     criteria: { frequencySeparation: null, maxDisplacementPeak: null, maxVelocityPeak: null, minMassRatio: null, maxEccentricity: null, maxBearingRatio: null },
     soilBand: { lowerFactor: null, upperFactor: null },
     sweep: { fromHz: null, toHz: null, points: null },
+    transient: [],
   };
+}
+
+/**
+ * Placeholder run durations for a new run (s): a direct-on-line start takes seconds, a free
+ * coast-down of a pump or fan a minute or more (orders of magnitude recalled from memory, not
+ * from a source); the designer replaces them with the drive vendor's figures.
+ */
+export const NEW_RUN_DURATION_S = { "run-up": 10, "coast-down": 60 } as const;
+
+/** A new run of a rotor with the core's default speeds (standstill and the rated speed). */
+export function newTransientRun(machine: string, rotor: string, kind: TransientRunForm["kind"]): TransientRunForm {
+  return { machine, rotor, kind, fromRpm: null, toRpm: null, durationS: NEW_RUN_DURATION_S[kind], case: "rotating", unbalanceMode: null, outputPoints: null };
+}
+
+/** A rotor a run can name: the form's machines and rotors as they stand. */
+export interface RunRotorChoice {
+  machine: string;
+  rotor: string;
+  speedRpm: Num;
+  unbalanceMode: RotorForm["unbalanceMode"];
+}
+
+export function runRotorChoices(form: Pick<DraftForm, "machines">): RunRotorChoice[] {
+  return form.machines.flatMap((m) => m.rotors.map((r) => ({ machine: m.name, rotor: r.name, speedRpm: r.speedRpm, unbalanceMode: r.unbalanceMode })));
+}
+
+/** Start and end speed of a run as the core resolves them (blank: standstill and rated). */
+export function runSpeeds(run: Pick<TransientRunForm, "kind" | "fromRpm" | "toRpm">, ratedRpm: Num): { fromRpm: Num; toRpm: Num } {
+  const runUp = run.kind === "run-up";
+  return { fromRpm: run.fromRpm ?? (runUp ? 0 : ratedRpm), toRpm: run.toRpm ?? (runUp ? ratedRpm : 0) };
+}
+
+/**
+ * What the core's consistency rules would say about a run, checked against the form's own
+ * machines (modules/calc/input-consistency.ts, checkTransientRequest): the rotor exists, the
+ * speeds go the run's way, the unbalance mode is one the rotor has. Null when none applies.
+ */
+export function transientRunIssue(form: Pick<DraftForm, "machines">, run: TransientRunForm): { field: keyof TransientRunForm; message: string } | null {
+  const machine = form.machines.find((m) => m.name === run.machine);
+  if (!machine) return { field: "machine", message: `No machine is named "${run.machine}": pick the rotor again` };
+  const rotor = machine.rotors.find((r) => r.name === run.rotor);
+  if (!rotor) return { field: "rotor", message: `"${run.machine}" has no rotor named "${run.rotor}": pick the rotor again` };
+  const { fromRpm, toRpm } = runSpeeds(run, rotor.speedRpm);
+  const field = run.toRpm !== null ? "toRpm" : "fromRpm";
+  if (fromRpm !== null && toRpm !== null && Number.isFinite(fromRpm) && Number.isFinite(toRpm)) {
+    if (run.kind === "run-up" && !(toRpm > fromRpm)) return { field, message: `A run-up must end faster than it starts (${fromRpm} to ${toRpm} rpm)` };
+    if (run.kind === "coast-down" && !(fromRpm > toRpm)) return { field, message: `A coast-down must end slower than it starts (${fromRpm} to ${toRpm} rpm)` };
+  }
+  if (run.unbalanceMode !== null && rotor.unbalanceMode !== "both" && run.unbalanceMode !== rotor.unbalanceMode) {
+    return { field: "unbalanceMode", message: `The rotor's unbalance is ${rotor.unbalanceMode}; a run can use only that one` };
+  }
+  return null;
 }
 
 const v3 = (v: readonly number[] | undefined): Vec3Form => [v?.[0] ?? null, v?.[1] ?? null, v?.[2] ?? null];
@@ -178,6 +251,17 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
     },
     soilBand: { lowerFactor: input.soilBand?.lowerFactor ?? null, upperFactor: input.soilBand?.upperFactor ?? null },
     sweep: { fromHz: input.sweep?.fromHz ?? null, toHz: input.sweep?.toHz ?? null, points: input.sweep?.points ?? null },
+    transient: (input.transient ?? []).map((t) => ({
+      machine: t.machine,
+      rotor: t.rotor,
+      kind: t.kind,
+      fromRpm: t.fromRpm ?? null,
+      toRpm: t.toRpm ?? null,
+      durationS: t.durationS,
+      case: t.case ?? "rotating",
+      unbalanceMode: t.unbalanceMode ?? null,
+      outputPoints: t.outputPoints ?? null,
+    })),
   };
 }
 
@@ -230,6 +314,21 @@ export function toInputDocument(f: DraftForm): unknown {
     ...(Object.keys(criteria).length ? { criteria } : {}),
     ...(Object.keys(band).length ? { soilBand: band } : {}),
     ...(Object.keys(sweep).length ? { sweep } : {}),
+    ...(f.transient.length
+      ? {
+          transient: f.transient.map((t) => ({
+            machine: t.machine,
+            rotor: t.rotor,
+            kind: t.kind,
+            ...(t.fromRpm !== null ? { fromRpm: t.fromRpm } : {}),
+            ...(t.toRpm !== null ? { toRpm: t.toRpm } : {}),
+            durationS: t.durationS,
+            case: t.case,
+            ...(t.unbalanceMode !== null ? { unbalanceMode: t.unbalanceMode } : {}),
+            ...(t.outputPoints !== null ? { outputPoints: t.outputPoints } : {}),
+          })),
+        }
+      : {}),
   };
 }
 
@@ -247,6 +346,35 @@ const range = (label: string) =>
     .test("ordered", `${label}: 'from' must be below 'to'`, (v) => !v || v[0] == null || v[1] == null || Number(v[1]) > Number(v[0]));
 const optionalRatio = (label: string, max: number) =>
   yup.number().typeError(`${label} must be a number`).nullable().min(0, `${label} must be 0 or more`).lessThan(max, `${label} must be below ${max}`);
+
+const L = TRANSIENT_LIMITS;
+const optionalSpeed = yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more");
+
+const transientRunSchema = yup
+  .object({
+    machine: yup.string().trim().required("Pick the rotor of the run"),
+    rotor: yup.string().trim().required("Pick the rotor of the run"),
+    kind: yup.string().oneOf(["run-up", "coast-down"]),
+    fromRpm: optionalSpeed,
+    toRpm: optionalSpeed,
+    durationS: positive("run duration").max(L.maxDurationS, `The run duration must be at most ${L.maxDurationS} s`),
+    case: yup.string().oneOf(["vertical", "horizontal", "rotating"]),
+    unbalanceMode: yup.string().nullable().oneOf(["static", "couple", null]),
+    outputPoints: yup
+      .number()
+      .typeError("Must be a number")
+      .nullable()
+      .integer("Must be a whole number")
+      .min(L.minOutputPoints, `Must be at least ${L.minOutputPoints}`)
+      .max(L.maxOutputPoints, `Must be at most ${L.maxOutputPoints}`),
+  })
+  .test("consistent-with-rotor", "The run does not fit its rotor", function (run) {
+    // The form's root is the last ancestor: the run is checked against the machines as typed.
+    const root = this.from?.[this.from.length - 1]?.value as Pick<DraftForm, "machines"> | undefined;
+    if (!root?.machines || !run) return true;
+    const issue = transientRunIssue(root, run as TransientRunForm);
+    return issue ? this.createError({ path: `${this.path}.${issue.field}`, message: issue.message }) : true;
+  });
 
 export const draftFormSchema = yup.object({
   block: yup.object({
@@ -305,4 +433,5 @@ export const draftFormSchema = yup.object({
       }),
     )
     .min(1, "At least one machine is needed"),
+  transient: yup.array().of(transientRunSchema).max(L.maxRuns, `At most ${L.maxRuns} runs`),
 });

@@ -4,7 +4,7 @@
 // and per-cent change. Array members that carry a unique name (boxes, machines,
 // rotors, result points, checks) are matched by that name, so reordering them is not
 // a change; other arrays (coordinates, bearings, modes) are compared position by position.
-import type { AnalysisResult, CheckResult } from "@/modules/calc";
+import type { AnalysisResult, CheckResult, TransientResult } from "@/modules/calc";
 
 export type LeafValue = number | string | boolean | null;
 
@@ -65,8 +65,20 @@ interface Ctx {
 }
 
 // Identity of array members, tried in order; the first that every member on both
-// sides has (as a string) and that is unique on each side wins.
-const identities: readonly (readonly string[])[] = [["key"], ["name"], ["machine", "rotor", "case", "unbalanceMode", "point"], ["machine", "rotor", "case", "unbalanceMode"], ["machine", "rotor"], ["case", "unbalanceMode"], ["id"]];
+// sides has (as a string) and that is unique on each side wins. Start-up and coast-down
+// runs (`transient`) carry a `kind`: a run's result by rotor, kind, case and unbalance, its
+// input by rotor, kind and case (the unbalance mode may be left to the rotor's own).
+const identities: readonly (readonly string[])[] = [
+  ["key"],
+  ["name"],
+  ["machine", "rotor", "case", "unbalanceMode", "point"],
+  ["machine", "rotor", "kind", "case", "unbalanceMode"],
+  ["machine", "rotor", "kind", "case"],
+  ["machine", "rotor", "case", "unbalanceMode"],
+  ["machine", "rotor"],
+  ["case", "unbalanceMode"],
+  ["id"],
+];
 
 function isObject(v: unknown): v is Record<string, unknown> {
   return v !== null && typeof v === "object" && !Array.isArray(v);
@@ -230,12 +242,24 @@ export function flippedChecks(oldChecks: readonly CheckResult[], newChecks: read
   return flips.sort((x, y) => Number(x.newPass) - Number(y.newPass) || x.label.localeCompare(y.label));
 }
 
-// The frequency sweep is hundreds of numbers per curve: it is compared as overlaid
-// plots, not line by line.
-function withoutSweep(result: AnalysisResult): Omit<AnalysisResult, "sweep"> {
-  const { sweep: _sweep, ...rest } = result;
+// The frequency sweep and the envelope series of the start-up and coast-down runs are
+// hundreds of numbers per curve: they are compared as plots, not line by line, and are no
+// fields to list or comment on. Everything else of a run (settings, peaks, model, warnings)
+// stays.
+export type ResultWithoutSeries = Omit<AnalysisResult, "sweep" | "transient"> & { transient?: Omit<TransientResult, "series">[] };
+
+export function withoutLongSeries(result: AnalysisResult): ResultWithoutSeries {
+  const { sweep: _sweep, transient, ...rest } = result;
   void _sweep;
-  return rest;
+  if (!transient) return rest;
+  return {
+    ...rest,
+    transient: transient.map((run) => {
+      const { series: _series, ...kept } = run;
+      void _series;
+      return kept;
+    }),
+  };
 }
 
 /** Inputs and results of two revisions compared; the older one first. */
@@ -247,6 +271,6 @@ export function diffRevisions(
   return {
     flippedChecks: flippedChecks(older.result.checks, newer.result.checks),
     input: diffDocuments(older.input, newer.input, options),
-    result: diffDocuments(withoutSweep(older.result), withoutSweep(newer.result), options),
+    result: diffDocuments(withoutLongSeries(older.result), withoutLongSeries(newer.result), options),
   };
 }

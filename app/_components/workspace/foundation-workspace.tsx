@@ -15,6 +15,7 @@ import { MethodSection } from "./method-section";
 import { ResponsePlots } from "./response-plots";
 import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
 import { SoilSection } from "./soil-section";
+import { SpeedRampsSection } from "./speed-ramps-section";
 import { useCalculation, type CalcIssue } from "./use-calculation";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
 
@@ -196,6 +197,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           <Panel title="Size the base mat" id="sizing" aside={<span className="text-2xs text-basalt-400">smallest passing block first</span>}>
             <MatSizingSection readOnly={props.readOnly} document={document} toDocument={toDocument} />
           </Panel>
+          <SpeedRampsSection readOnly={props.readOnly} result={result} stale={stale} />
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
           <Cautions />

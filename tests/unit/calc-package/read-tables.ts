@@ -59,6 +59,8 @@ const extra: Record<string, number> = {
   "g·mm": 1e-6,
   "lb·in": 0.45359237 * 0.0254,
   "rad/s": 1,
+  "rad/s²": 1,
+  s: 1,
   "-": 1,
 };
 

@@ -7,6 +7,7 @@ import { getRevision, listRevisions } from "@/db/queries/revisions";
 import { requireProjectPage } from "@/app/_lib/page-guard";
 import { Cautions } from "@/app/_components/cautions";
 import { ComparePlots } from "../compare-plots";
+import { CompareSpeedRamps } from "../compare-speed-ramps";
 import { RevisionCrumbs, RevisionStatusTag } from "../revision-parts";
 import { revisionPath } from "../revision-service";
 
@@ -49,6 +50,12 @@ function ChangeRows({ entries }: { entries: DiffEntry[] }) {
   );
 }
 
+// A word on the groups whose paths need one: a run is named by rotor, ramp, load case (and, in
+// the results, unbalance); its envelope series are compared as plots below, not listed.
+const groupNotes: Record<string, string> = {
+  transient: "speed ramps: runs named machine / rotor / ramp / load case (/ unbalance); SI (m, m/s, s, rpm); envelope series in the plots below",
+};
+
 /** Changes grouped by top-level member; groups without a change fold into one line each. */
 function Section({ title, diff, testId }: { title: string; diff: SectionDiff; testId: string }) {
   const groups = [...new Set([...diff.entries.map((e) => e.group), ...Object.keys(diff.unchanged)])];
@@ -63,6 +70,7 @@ function Section({ title, diff, testId }: { title: string; diff: SectionDiff; te
         <details key={g} open className="slab overflow-x-auto p-3">
           <summary className="cursor-pointer text-sm font-semibold">
             <span className="font-mono">{g}</span> · {diff.entries.filter((e) => e.group === g).length} changed, {diff.unchanged[g] ?? 0} unchanged
+            {groupNotes[g] ? <span className="ml-2 text-xs font-normal text-basalt-500">({groupNotes[g]})</span> : null}
           </summary>
           <ChangeRows entries={diff.entries.filter((e) => e.group === g)} />
         </details>
@@ -161,6 +169,13 @@ export default async function ComparePage({
         <h2>Frequency response, both revisions</h2>
         <ComparePlots older={{ label: older.label, result: older.result }} newer={{ label: newer.label, result: newer.result }} units={user.unitsPreference ?? project.units} />
       </section>
+
+      {older.result.transient?.length || newer.result.transient?.length ? (
+        <section className="slab space-y-2 p-4" data-testid="compare-speed-ramps">
+          <h2>Speed ramps, both revisions</h2>
+          <CompareSpeedRamps older={{ label: older.label, result: older.result }} newer={{ label: newer.label, result: newer.result }} units={user.unitsPreference ?? project.units} />
+        </section>
+      ) : null}
 
       <Cautions />
     </div>
