@@ -5,7 +5,7 @@ import { parseAnalysisInput, parseAnalysisInputText, type InputIssue } from "./p
 import type { AnalysisResult } from "./result-types";
 
 export { analyse, ENGINE_VERSION, type AnalyseOptions } from "./analyse";
-export { parseAnalysisInput, parseAnalysisInputText, formatPath, type InputIssue, type ParseResult } from "./parse";
+export { parseAnalysisInput, parseAnalysisInputText, formatPath, valueAt, type InputIssue, type ParseResult } from "./parse";
 export {
   analysisInputSchema,
   transientRequestSchema,

@@ -23,7 +23,7 @@ export function formatPath(path: readonly PropertyKey[]): string {
 }
 
 /** The value at a path of the submitted document (undefined when absent). */
-function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
+export function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
   let v: unknown = json;
   for (const part of path) {
     if (v === null || typeof v !== "object") return undefined;

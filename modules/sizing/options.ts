@@ -2,7 +2,7 @@
 // step), where the mat is centred, whether the soil-uncertainty band must also clear the
 // operating speeds, and how many analyses the search may spend. zod 4, strict.
 import { z } from "zod";
-import { formatPath } from "@/modules/calc";
+import { formatPath, valueAt } from "@/modules/calc";
 
 /**
  * Default step of a dimension: whole 100 mm. Common practice in detailing (formwork and
@@ -133,15 +133,6 @@ export interface OptionIssue {
 }
 
 export type ParseOptionsResult = { ok: true; options: SizingOptions } | { ok: false; issues: OptionIssue[] };
-
-function valueAt(json: unknown, path: readonly PropertyKey[]): unknown {
-  let v: unknown = json;
-  for (const part of path) {
-    if (v === null || typeof v !== "object") return undefined;
-    v = (v as Record<PropertyKey, unknown>)[part];
-  }
-  return v;
-}
 
 /** Validates the options; each problem carries its path, e.g. `dimensions.length.max`. */
 export function parseSizingOptions(json: unknown): ParseOptionsResult {
