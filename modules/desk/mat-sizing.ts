@@ -2,7 +2,7 @@
 // on a search, the request envelope both ends share, the bounds the panel starts from, and how
 // a proposal is loaded into the design form.
 import { z } from "zod";
-import { applySizingProposal, DEFAULT_STEP_M, type ProposalToApply, type SizingIssue } from "@/modules/sizing";
+import { applySizingProposal, DEFAULT_STEP_M, type ProposalToApply, type SizingIssue, type SizingLimits } from "@/modules/sizing";
 import { toInputDocument, type DraftForm, type Num, type RangeForm } from "./draft-form";
 
 /**
@@ -12,6 +12,8 @@ import { toInputDocument, type DraftForm, type Num, type RangeForm } from "./dra
  */
 export const SIZING_API_MAX_ANALYSES = 600;
 export const SIZING_API_DEFAULT_ANALYSES = 400;
+/** The same, as the assistant's option schema takes them. */
+export const SIZING_API_LIMITS: SizingLimits = { maxAnalyses: SIZING_API_MAX_ANALYSES, defaultAnalyses: SIZING_API_DEFAULT_ANALYSES };
 
 /** The body of POST /api/v1/sizing. The route validates the two documents with their own parsers. */
 export const sizingRequestSchema = z.strictObject(

@@ -4,7 +4,9 @@ export { proposeBlockSizes, proposeBlockSizesAsync, type SizingResult, type Sizi
 export { applySizingProposal, type ApplyOutcome, type ProposalToApply } from "./apply";
 export {
   sizingOptionsSchema,
+  makeSizingOptionsSchema,
   parseSizingOptions,
+  MODULE_SIZING_LIMITS,
   gridValues,
   DEFAULT_STEP_M,
   DEFAULT_MAX_ANALYSES,
@@ -14,6 +16,7 @@ export {
   type DimensionRange,
   type CentreMode,
   type OptionIssue,
+  type SizingLimits,
 } from "./options";
 export { readBaseMat, concreteVolume, minimumFit, type BaseMat, type MatDimensions } from "./base-mat";
 export { SOIL_BAND_SEPARATION_ID, soilBandSeparationChecks } from "./evaluate";

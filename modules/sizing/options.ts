@@ -96,29 +96,45 @@ const dimensionsSchema = z
     }
   });
 
-export const sizingOptionsSchema = z.strictObject({
-  dimensions: dimensionsSchema,
-  /**
-   * "current": the mat grows and shrinks about its current plan centre.
-   * "load": the mat is centred on the plan centre of gravity of everything it carries
-   * (machines, plinths, voids), which makes the eccentricity of the combined cg vanish.
-   */
-  centre: z.enum(["current", "load"], { error: 'must be "current" or "load"' }).default("current"),
-  /** Also require the soil band's lower and upper frequencies to clear every operating range. */
-  requireSoilBand: z.boolean({ error: "must be true or false" }).default(false),
-  maxAnalyses: z
-    .number({ error: "must be a whole number" })
-    .int({ error: "must be a whole number" })
-    .min(1, { error: "must be at least 1" })
-    .max(MAX_ANALYSES_LIMIT, { error: `must be at most ${MAX_ANALYSES_LIMIT}` })
-    .default(DEFAULT_MAX_ANALYSES),
-  proposals: z
-    .number({ error: "must be a whole number" })
-    .int({ error: "must be a whole number" })
-    .min(1, { error: "must be at least 1" })
-    .max(MAX_PROPOSALS, { error: `must be at most ${MAX_PROPOSALS}` })
-    .default(DEFAULT_PROPOSALS),
-});
+/**
+ * How many analyses a caller may spend on one search, and how many when it does not say: the
+ * module's own limits by default; a server answering requests passes lower ones.
+ */
+export interface SizingLimits {
+  maxAnalyses: number;
+  defaultAnalyses: number;
+}
+
+export const MODULE_SIZING_LIMITS: SizingLimits = { maxAnalyses: MAX_ANALYSES_LIMIT, defaultAnalyses: DEFAULT_MAX_ANALYSES };
+
+/** The options schema under the given limits on the analyses. */
+export function makeSizingOptionsSchema(limits: SizingLimits) {
+  return z.strictObject({
+    dimensions: dimensionsSchema,
+    /**
+     * "current": the mat grows and shrinks about its current plan centre.
+     * "load": the mat is centred on the plan centre of gravity of everything it carries
+     * (machines, plinths, voids), which makes the eccentricity of the combined cg vanish.
+     */
+    centre: z.enum(["current", "load"], { error: 'must be "current" or "load"' }).default("current"),
+    /** Also require the soil band's lower and upper frequencies to clear every operating range. */
+    requireSoilBand: z.boolean({ error: "must be true or false" }).default(false),
+    maxAnalyses: z
+      .number({ error: "must be a whole number" })
+      .int({ error: "must be a whole number" })
+      .min(1, { error: "must be at least 1" })
+      .max(limits.maxAnalyses, { error: `must be at most ${limits.maxAnalyses} (each analysis takes a few milliseconds)` })
+      .default(limits.defaultAnalyses),
+    proposals: z
+      .number({ error: "must be a whole number" })
+      .int({ error: "must be a whole number" })
+      .min(1, { error: "must be at least 1" })
+      .max(MAX_PROPOSALS, { error: `must be at most ${MAX_PROPOSALS}` })
+      .default(DEFAULT_PROPOSALS),
+  });
+}
+
+export const sizingOptionsSchema = makeSizingOptionsSchema(MODULE_SIZING_LIMITS);
 
 /** Valid options, defaults applied. */
 export type SizingOptions = z.output<typeof sizingOptionsSchema>;
@@ -135,8 +151,8 @@ export interface OptionIssue {
 export type ParseOptionsResult = { ok: true; options: SizingOptions } | { ok: false; issues: OptionIssue[] };
 
 /** Validates the options; each problem carries its path, e.g. `dimensions.length.max`. */
-export function parseSizingOptions(json: unknown): ParseOptionsResult {
-  const parsed = sizingOptionsSchema.safeParse(json);
+export function parseSizingOptions(json: unknown, limits: SizingLimits = MODULE_SIZING_LIMITS): ParseOptionsResult {
+  const parsed = (limits === MODULE_SIZING_LIMITS ? sizingOptionsSchema : makeSizingOptionsSchema(limits)).safeParse(json);
   if (parsed.success) return { ok: true, options: parsed.data };
   const issues = parsed.error.issues.flatMap((issue): OptionIssue[] => {
     if (issue.code === "unrecognized_keys") {

@@ -14,7 +14,7 @@ import { STANDARD_GRAVITY } from "@/modules/calc/criteria-defaults";
 import { checkUtilisation } from "@/modules/desk/foundation-summary";
 import { concreteVolume, minimumFit, readBaseMat, LENGTH_TOLERANCE_M, type BaseMat, type MatDimensions } from "./base-mat";
 import { checkMargin, evaluateCandidate, SOIL_BAND_SEPARATION_ID, type Evaluation } from "./evaluate";
-import { gridValues, parseSizingOptions, roundLength, type CentreMode, type SizingOptions } from "./options";
+import { gridValues, MODULE_SIZING_LIMITS, parseSizingOptions, roundLength, type CentreMode, type SizingLimits, type SizingOptions } from "./options";
 import { matCentre, placementFor, resizeDocument, type Placement } from "./resize";
 
 /** Relative miss below which a closed-form pre-check leaves the candidate to the core. */
@@ -239,8 +239,8 @@ const dims = (d: MatDimensions) => `${fmt(d.length)} m x ${fmt(d.width)} m x ${f
  * Proposes base-mat dimensions that pass every check of the analysis, smallest concrete volume
  * first. `document` is an analysis input (contract v1); `options` see sizingOptionsSchema.
  */
-export function proposeBlockSizes(document: unknown, options: unknown): SizingOutcome {
-  const parsedOptions = parseSizingOptions(options);
+export function proposeBlockSizes(document: unknown, options: unknown, limits: SizingLimits = MODULE_SIZING_LIMITS): SizingOutcome {
+  const parsedOptions = parseSizingOptions(options, limits);
   const parsedInput = parseAnalysisInput(document);
   const issues: SizingIssue[] = [
     ...(parsedOptions.ok ? [] : parsedOptions.issues.map((i) => ({ in: "options" as const, ...i }))),
@@ -261,10 +261,14 @@ export function proposeBlockSizes(document: unknown, options: unknown): SizingOu
  * answering a sizing request keeps answering its other requests meanwhile (a search may run
  * several hundred analyses of a few milliseconds each).
  */
-export async function proposeBlockSizesAsync(document: unknown, options: unknown, sliceMs = 20): Promise<SizingOutcome> {
-  const parsedOptions = parseSizingOptions(options);
+export async function proposeBlockSizesAsync(
+  document: unknown,
+  options: unknown,
+  { sliceMs = 20, limits = MODULE_SIZING_LIMITS }: { sliceMs?: number; limits?: SizingLimits } = {},
+): Promise<SizingOutcome> {
+  const parsedOptions = parseSizingOptions(options, limits);
   const parsedInput = parseAnalysisInput(document);
-  if (!parsedOptions.ok || !parsedInput.ok) return proposeBlockSizes(document, options);
+  if (!parsedOptions.ok || !parsedInput.ok) return proposeBlockSizes(document, options, limits);
   const read = readBaseMat(parsedInput.input);
   if (!read.ok) return { ok: false, issues: read.issues.map((i) => ({ in: "input", ...i })) };
   const steps = search(parsedInput.input, read.mat, parsedOptions.options);

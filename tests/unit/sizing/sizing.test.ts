@@ -62,7 +62,7 @@ describe("sizing the failing demo pump train", () => {
     let ticks = 0;
     const timer = setInterval(() => ticks++, 0);
     // a slice of 0 ms hands the thread back after every analysis
-    const sliced = await proposeBlockSizesAsync(start, { dimensions: BOUNDS, requireSoilBand: true }, 0);
+    const sliced = await proposeBlockSizesAsync(start, { dimensions: BOUNDS, requireSoilBand: true }, { sliceMs: 0 });
     clearInterval(timer);
     const whole = proposeBlockSizes(start, { dimensions: BOUNDS, requireSoilBand: true });
     expect(sliced).toEqual(whole);

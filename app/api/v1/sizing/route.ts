@@ -1,6 +1,5 @@
-import { parseAnalysisInput } from "@/modules/calc";
-import { parseSizingOptions, proposeBlockSizesAsync, type SizingIssue } from "@/modules/sizing";
-import { SIZING_API_DEFAULT_ANALYSES, SIZING_API_MAX_ANALYSES, sizingRequestSchema } from "@/modules/desk/mat-sizing";
+import { proposeBlockSizesAsync, type SizingIssue } from "@/modules/sizing";
+import { SIZING_API_LIMITS, sizingRequestSchema } from "@/modules/desk/mat-sizing";
 import { AppError, type FieldIssue } from "@/modules/platform/errors";
 import { defineRoute } from "@/app/_lib/route";
 
@@ -15,23 +14,6 @@ function prefixed(issue: SizingIssue): FieldIssue {
   return { path: issue.path === ROOT ? issue.in : `${issue.in}.${issue.path}`, message: issue.message };
 }
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && !Array.isArray(v);
-
-/** The API's default cap, written in when the caller gives none (the module's own default may differ). */
-function withApiDefault(options: unknown): unknown {
-  return isPlainObject(options) && !Object.hasOwn(options, "maxAnalyses") ? { ...options, maxAnalyses: SIZING_API_DEFAULT_ANALYSES } : options;
-}
-
-/** What the API refuses before the module sees it: more analyses than the API's cap. */
-function apiLimitIssues(options: unknown): FieldIssue[] {
-  if (!isPlainObject(options)) return [];
-  const requested = options.maxAnalyses;
-  if (typeof requested === "number" && requested > SIZING_API_MAX_ANALYSES) {
-    return [{ path: "options.maxAnalyses", message: `must be at most ${SIZING_API_MAX_ANALYSES} through the API (each analysis takes a few milliseconds of the server)` }];
-  }
-  return [];
-}
-
 function invalid(issues: FieldIssue[]): AppError {
   return new AppError("invalid_input", "The sizing request has problems.", issues);
 }
@@ -43,24 +25,12 @@ export const POST = defineRoute({
   body: sizingRequestSchema,
   maxBodyBytes: MAX_BODY_BYTES,
   handler: async (_ctx, body) => {
-    const options = withApiDefault(body.options);
-    const limits = apiLimitIssues(options);
-    if (limits.length > 0) {
-      // Refused before any analysis; the other problems are named too, so one round trip
-      // shows them all (the API's message wins where both speak of one field).
-      const taken = new Set(limits.map((i) => i.path));
-      const parsedOptions = parseSizingOptions(options);
-      const parsedInput = parseAnalysisInput(body.input);
-      throw invalid([
-        ...limits,
-        ...(parsedOptions.ok ? [] : parsedOptions.issues.map((i) => prefixed({ in: "options", ...i })).filter((i) => !taken.has(i.path))),
-        ...(parsedInput.ok ? [] : parsedInput.issues.map((i) => prefixed({ in: "input", ...i }))),
-      ]);
-    }
     let outcome: Awaited<ReturnType<typeof proposeBlockSizesAsync>>;
     try {
-      // In slices of ~20 ms: the server keeps answering other requests during a long search.
-      outcome = await proposeBlockSizesAsync(body.input, options);
+      // Under the API's cap on analyses, and in slices of ~20 ms, so the server keeps
+      // answering other requests during a long search. Every problem of both documents comes
+      // back in one answer.
+      outcome = await proposeBlockSizesAsync(body.input, body.options, { limits: SIZING_API_LIMITS });
     } catch (e) {
       // As in /calculate: an input the contract accepts can still be numerically impossible
       // (a density of 1e308), and the engine then refuses it. That is the caller's input, so
