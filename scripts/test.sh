@@ -34,11 +34,24 @@ export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
 export PLINTH_TEST_SMTP_PORT="$SMTP_PORT"
 export PLINTH_TEST_APP_URL="$APP_URL"
 
+# Another checkout's test run on the same machine would want the same ports: say so in one line.
+for p in "$APP_PORT:PLINTH_TEST_APP_PORT" "$SMTP_PORT:PLINTH_TEST_SMTP_PORT"; do
+  if (echo >"/dev/tcp/127.0.0.1/${p%%:*}") >/dev/null 2>&1; then
+    log "port ${p%%:*} on 127.0.0.1 is taken (another checkout's test run?): set ${p#*:} to a free port"
+    exit 1
+  fi
+done
+
+# Stop at the end what this run started: the servers, and the local cluster unless it was
+# already up before (a developer's own) or PLINTH_KEEP_PG=1 asks to keep it.
+PG_STARTED_HERE=0
+if [ -z "${TEST_DATABASE_URL:-}" ] && ! bash scripts/lib/pg.sh running; then PG_STARTED_HERE=1; fi
 FAKE_SMTP_PID=""
 SERVER_PID=""
 cleanup() {
   [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null || true
   [ -n "$FAKE_SMTP_PID" ] && kill "$FAKE_SMTP_PID" 2>/dev/null || true
+  if [ "$PG_STARTED_HERE" = 1 ] && [ "${PLINTH_KEEP_PG:-0}" != 1 ]; then bash scripts/lib/pg.sh stop || true; fi
 }
 trap cleanup EXIT INT TERM
 

@@ -2,14 +2,16 @@
 # Local PostgreSQL cluster for development and tests.
 # Usage: scripts/lib/pg.sh ensure DBNAME [--fresh]
 #        scripts/lib/pg.sh restart   (fast restart of the running cluster: the fault tests use it)
+#        scripts/lib/pg.sh running   (exit 0 when this checkout's cluster is up)
+#        scripts/lib/pg.sh stop      (stop this checkout's cluster if it is up)
 # Runs its own cluster on 127.0.0.1:${PLINTH_PG_PORT:-54329} with its own socket folder.
 # initdb refuses to run as root, so as root the cluster belongs to the postgres user.
 set -euo pipefail
 
 CMD="${1:-ensure}"
 case "$CMD" in
-  ensure|restart) ;;
-  *) echo "usage: $0 ensure DBNAME [--fresh] | $0 restart" >&2; exit 2 ;;
+  ensure|restart|running|stop) ;;
+  *) echo "usage: $0 ensure DBNAME [--fresh] | $0 restart | $0 running | $0 stop" >&2; exit 2 ;;
 esac
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
@@ -64,6 +66,18 @@ fi
 
 PG_OPTS="-c listen_addresses=127.0.0.1 -p $PORT -k $SOCK -c fsync=off -c max_connections=200"
 
+is_up() { "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; }
+port_taken() { (echo >"/dev/tcp/127.0.0.1/$PORT") >/dev/null 2>&1; }
+
+if [ "$CMD" = "running" ]; then is_up; exit $?; fi
+if [ "$CMD" = "stop" ]; then
+  if is_up; then
+    echo "[pg] stopping PostgreSQL on 127.0.0.1:$PORT" >&2
+    "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" -w -t 60 -m fast stop >/dev/null
+  fi
+  exit 0
+fi
+
 if [ "$CMD" = "restart" ]; then
   # Fast shutdown (open sessions are disconnected, as in a real server restart), then
   # start again with the same options; waits until the cluster accepts connections.
@@ -72,7 +86,12 @@ if [ "$CMD" = "restart" ]; then
   exit 0
 fi
 
-if ! "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" status >/dev/null 2>&1; then
+if ! is_up; then
+  if port_taken; then
+    # Another checkout's cluster (or another program) holds the port: say so once, clearly.
+    echo "[pg] port $PORT on 127.0.0.1 is taken by another program (another checkout's cluster?): set PLINTH_PG_PORT to a free port" >&2
+    exit 1
+  fi
   echo "[pg] starting PostgreSQL on 127.0.0.1:$PORT" >&2
   "${AS[@]}" "$BIN/pg_ctl" -D "$DATA" -l "$LOG" -w -t 60 -o "$PG_OPTS" start >/dev/null
 fi
