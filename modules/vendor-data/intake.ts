@@ -59,5 +59,27 @@ export async function checkDrawingUpload(bytes: Buffer): Promise<DrawingIntake> 
   }
   const kind = await sniff(bytes);
   if (kind.kind !== "pdf") return { ok: false, reason: "wrong_type", message: `Drawings are accepted as PDF; the file's content is ${kind.description}.` };
+  // A file that merely begins with "%PDF" is not a drawing a checker can open: parse it.
+  const readable = await readPdfPageCount(bytes);
+  if (typeof readable === "string") return { ok: false, reason: "wrong_type", message: readable };
   return { ok: true, contentType: "application/pdf" };
+}
+
+/** The page count of a readable PDF (Mozilla's pdf.js parser), or why it cannot be read. */
+async function readPdfPageCount(bytes: Buffer): Promise<number | string> {
+  const pdfjs = await import("pdfjs-dist/legacy/build/pdf.mjs");
+  // A copy: pdf.js takes ownership of (detaches) the buffer it is given.
+  const task = pdfjs.getDocument({ data: new Uint8Array(bytes), isEvalSupported: false, disableFontFace: true, useSystemFonts: false, stopAtErrors: true, verbosity: 0 });
+  try {
+    const doc = await task.promise;
+    const pages = doc.numPages;
+    await doc.destroy();
+    return pages > 0 ? pages : "The PDF has no pages.";
+  } catch (e) {
+    const name = e instanceof Error ? e.name : "";
+    if (name === "PasswordException") return "The PDF is password-protected; upload it without a password so that every reviewer can open it.";
+    return "The file begins like a PDF but is not a readable PDF document (it may be damaged or truncated).";
+  } finally {
+    await task.destroy().catch(() => undefined);
+  }
 }

@@ -19,6 +19,7 @@ import { POST as postDrawing } from "@/app/api/v1/projects/[projectId]/requests/
 import { callAction, callRoute, cookieFor, demoEmail, getFixture, linkToken, waitForEmail, type Fixture } from "./support/fixture";
 import { sampleAnalysisInput } from "./analysis-input-sample";
 import { fakeExecutable, truncatedZip, zipBomb } from "../unit/vendor-data/zip-fixtures";
+import { onePagePdf } from "../support/pdf-fixture";
 
 const REQUEST = "v1/projects/[projectId]/requests/[requestId]";
 const stamp = Date.now().toString(36);
@@ -233,7 +234,7 @@ describe("refused uploads store nothing and name the problem", () => {
 
   it("accepts a PDF drawing, refuses anything else as a drawing, and attaches drawings to the next version", async () => {
     const params = { projectId: fx.projectId, requestId };
-    const pdf = Buffer.from("%PDF-1.7\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n");
+    const pdf = onePagePdf();
     const ok = await upload(postDrawing, fx.cookies.vendor, params, pdf, "GA drawing.pdf");
     expect(ok.status).toBe(201);
     const { drawing } = (await ok.json()) as { drawing: { id: string } };

@@ -15,6 +15,7 @@ import { callAction, getFixture, type ActionFn, type Fixture, type MatrixRole } 
 import { callRouteAt, Tally, uploadRequest } from "../support/hardening-helpers";
 import { createHardeningProject, type HardeningProject } from "../support/hardening-project";
 import { sampleAnalysisInput } from "../analysis-input-sample";
+import { onePagePdf } from "../../support/pdf-fixture";
 
 let fx: Fixture;
 let other: HardeningProject;
@@ -125,7 +126,7 @@ describe("another project's ids under this project's path", () => {
         await expectRefused(res, `${role} ${c.method} ${c.route} (demo path, other ids)`, tally);
       }
       for (const handler of [postSubmission, postDrawing]) {
-        const pdf = Buffer.from("%PDF-1.7\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n");
+        const pdf = onePagePdf();
         const res = await handler(uploadRequest(fx.cookies[role], pdf, "probe.pdf"), { params: Promise.resolve({ projectId: fx.projectId, requestId: other.requestId }) });
         await expectRefused(res, `${role} upload (demo path, other request)`, tally);
       }
@@ -145,7 +146,7 @@ describe("the other project's own routes", () => {
         await expectRefused(res, `${role} ${c.method} ${c.route} (other project)`, tally);
       }
       for (const handler of [postSubmission, postDrawing]) {
-        const pdf = Buffer.from("%PDF-1.7\n%%EOF\n");
+        const pdf = onePagePdf();
         const res = await handler(uploadRequest(fx.cookies[role], pdf, "probe.pdf"), { params: Promise.resolve({ projectId: other.projectId, requestId: other.requestId }) });
         await expectRefused(res, `${role} upload (other project)`, tally);
       }

@@ -12,6 +12,7 @@ import { validateMachines } from "@/modules/vendor-data/validate";
 import { sendDataRequest, submitMachineData } from "@/app/(desk)/projects/[projectId]/requests/vendor-service";
 import { sampleAnalysisInput } from "../analysis-input-sample";
 import { cookieFor } from "./fixture";
+import { onePagePdf } from "../../support/pdf-fixture";
 
 export interface HardeningProject {
   projectId: string;
@@ -60,7 +61,7 @@ export async function createHardeningProject(owner: Actor, label: string): Promi
   const { requestId } = await sendDataRequest(owner, project.id, { foundationId: foundation.id, contact: { kind: "member", userId: vendor.id }, machineNames, message: "hardening", dueOn: null });
   const checked = validateMachines(sampleAnalysisInput().machines);
   if (!checked.ok) throw new Error("the sample machines are not valid vendor data");
-  const pdf = Buffer.from("%PDF-1.7\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n");
+  const pdf = onePagePdf();
   const drawing = await createRequestDrawing(vendorActor, project.id, requestId, { fileName: "ga.pdf", bytes: pdf });
   const { submissionId } = await submitMachineData(vendorActor, project.id, requestId, { source: "form", machines: checked.machines, file: null, drawingIds: [drawing.id], note: "" });
 
