@@ -2,6 +2,7 @@
 // line of its own), the machine's columns on its first line and blank or equal on the
 // next ones, columns named in the header (any order). Problems are named by CSV cell in
 // A1 notation (column letter, line number), as a spreadsheet shows the file.
+import { CsvError, parse } from "csv-parse/sync";
 import type { MachineInput } from "@/modules/calc/schema";
 import { assembleMachines, type AssembleResult } from "./assemble";
 import { CSV_SHEET, MAX_BEARINGS, bearingCsvColumn, columnLetter, csvColumns, machineFields, rotorFields } from "./layout";
@@ -10,40 +11,31 @@ import type { CellValue, Problem, RawCell, RawMachine, RawRotor } from "./types"
 /** Lines a CSV may have; a few machines with four rotors each need a dozen. */
 export const MAX_CSV_LINES = 500;
 
-/** RFC 4180 fields: commas (or semicolons, as some locales save), double quotes, CRLF or LF. */
+/**
+ * RFC 4180 fields: commas (or semicolons, as some locales save), double quotes, CRLF or LF,
+ * read by csv-parse (the node-csv project). Records keep their line numbers: blank lines stay
+ * as empty records, and a stray quote inside an unquoted field is taken as text, as
+ * spreadsheets write it. Throws CsvSyntaxError naming the line on an unclosed quote.
+ */
 export function parseCsv(text: string): string[][] {
   const firstLine = text.slice(0, text.search(/\r?\n|$/));
-  const sep = firstLine.split(";").length > firstLine.split(",").length ? ";" : ",";
-  const rows: string[][] = [];
-  let row: string[] = [];
-  let field = "";
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const ch = text[i];
-    if (quoted) {
-      if (ch === '"') {
-        if (text[i + 1] === '"') {
-          field += '"';
-          i++;
-        } else quoted = false;
-      } else field += ch;
-    } else if (ch === '"' && field === "") quoted = true;
-    else if (ch === sep) {
-      row.push(field);
-      field = "";
-    } else if (ch === "\n" || ch === "\r") {
-      if (ch === "\r" && text[i + 1] === "\n") i++;
-      row.push(field);
-      rows.push(row);
-      row = [];
-      field = "";
-    } else field += ch;
+  const delimiter = firstLine.split(";").length > firstLine.split(",").length ? ";" : ",";
+  try {
+    return parse(text, { delimiter, record_delimiter: ["\r\n", "\n", "\r"], relax_column_count: true, relax_quotes: true, skip_empty_lines: false, bom: true }) as string[][];
+  } catch (e) {
+    const line = e instanceof CsvError && typeof (e as CsvError & { lines?: number }).lines === "number" ? (e as CsvError & { lines: number }).lines : null;
+    throw new CsvSyntaxError(line, e instanceof Error ? e.message : String(e));
   }
-  if (field !== "" || row.length) {
-    row.push(field);
-    rows.push(row);
+}
+
+export class CsvSyntaxError extends Error {
+  constructor(
+    readonly line: number | null,
+    detail: string,
+  ) {
+    super(detail);
+    this.name = "CsvSyntaxError";
   }
-  return rows;
 }
 
 function csvValue(text: string | undefined): CellValue {
@@ -59,7 +51,14 @@ export function readMachineCsv(bytes: Buffer, expect: { machineCount: number }):
   if (lineCount > MAX_CSV_LINES) {
     return { ok: false, problems: [{ sheet: CSV_SHEET, cell: null, message: `The CSV has ${lineCount} lines; machine data needs a few dozen at most (one per rotor). Refused unread.` }] };
   }
-  const rows = parseCsv(text);
+  let rows: string[][];
+  try {
+    rows = parseCsv(text);
+  } catch (e) {
+    if (!(e instanceof CsvSyntaxError)) throw e;
+    const where = e.line === null ? "" : ` near line ${e.line}`;
+    return { ok: false, problems: [{ sheet: CSV_SHEET, cell: e.line === null ? null : `A${e.line}`, message: `The CSV cannot be read${where}: a quoted field is not closed (check for a stray double quote).` }] };
+  }
   const header = rows[0]?.map((h) => h.trim().toLowerCase()) ?? [];
   const problems: Problem[] = [];
   header.forEach((h, i) => {
