@@ -117,7 +117,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
                   const dir = h.column.getIsSorted();
                   return (
                     <th key={h.id} aria-sort={dir === "asc" ? "ascending" : dir === "desc" ? "descending" : "none"}>
-                      <button type="button" className="uppercase tracking-wide" onClick={h.column.getToggleSortingHandler()}>
+                      <button type="button" className="tracking-wide" onClick={h.column.getToggleSortingHandler()}>
                         {flexRender(h.column.columnDef.header, h.getContext())} {dir === "asc" ? "▲" : dir === "desc" ? "▼" : ""}
                       </button>
                     </th>

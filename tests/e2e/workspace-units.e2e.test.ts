@@ -86,4 +86,24 @@ describe("display units in the foundation workspace", () => {
       expect(await ws.numberField("Allowable bearing pressure", "kPa").inputValue()).toBe("200");
     });
   });
+
+  it("unit symbols keep their case as the browser renders them (headers, labels, badges)", async () => {
+    await asDemo(browser(), "designer", async ({ context, page }) => {
+      const projectId = projectIdOf(page.url());
+      const { id: foundationId } = await seededFoundation(context.request, projectId, "E2E-CASE", example("raw-water-pump-train.json"));
+      const ws = new WorkspacePage(page);
+      await ws.open(projectId, foundationId);
+      await ws.waitForState("fresh");
+      // innerText is the text as rendered, after CSS text-transform: a capitalised header turned
+      // "µm" into "ΜM" (a Greek capital mu, read as "MM": a factor of 1000 off).
+      const rendered = await page.evaluate(() => document.body.innerText);
+      expect(rendered).toContain("µm");
+      expect(rendered).toContain("kPa");
+      for (const wrong of ["ΜM", "MM/S", "KPA", "KN/M", "MN/M", "(KG)"]) expect(rendered, wrong).not.toContain(wrong);
+      const transformed = await page.evaluate(() =>
+        [...document.querySelectorAll("th, label, .tag, .field-label")].filter((el) => getComputedStyle(el).textTransform === "uppercase").map((el) => (el as HTMLElement).innerText),
+      );
+      expect(transformed).toEqual([]);
+    });
+  });
 });
