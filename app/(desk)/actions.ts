@@ -6,12 +6,15 @@ import { setUnitsPreference } from "@/db/queries/accounts";
 import {
   createFoundationSchema,
   createProjectSchema,
+  restoreFoundationSchema,
+  withdrawFoundationSchema,
   inviteMemberSchema,
   removeMemberSchema,
 } from "@/modules/platform/account-schemas";
 import { projectSettingsFormSchema, settingsFromForm } from "@/modules/desk/project-settings";
 import { createFoundation, createProject, countManagers, deleteMember, getMemberById, getProjectByCode, updateProjectSettings } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
+import { setFoundationWithdrawn } from "@/db/queries/foundations";
 import { isUniqueViolation } from "@/db/queries/errors";
 import { defineAction } from "../_lib/action";
 import { inviteMember } from "../_lib/accounts-service";
@@ -107,5 +110,32 @@ export const setUnitsPreferenceAction = defineAction({
     if (!ctx.auth) throw new AppError("unauthenticated");
     await setUnitsPreference(ctx.auth.user.id, input.units);
     return { units: input.units };
+  },
+});
+
+export const withdrawFoundationAction = defineAction({
+  name: "foundation.withdraw",
+  access: { kind: "project", permission: "foundation.withdraw" },
+  schema: withdrawFoundationSchema,
+  projectId: (i) => i.projectId,
+  revalidate: (_d, i) => [`/projects/${i.projectId}`],
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const f = await setFoundationWithdrawn(ctx.auth.actor, input.projectId, input.foundationId, { withdrawn: true, reason: input.reason });
+    return { foundationId: f.id, projectId: input.projectId, message: `${f.tag} is withdrawn.` };
+  },
+  redirectTo: (d: { projectId: string }) => `/projects/${d.projectId}`,
+});
+
+export const restoreFoundationAction = defineAction({
+  name: "foundation.restore",
+  access: { kind: "project", permission: "foundation.withdraw" },
+  schema: restoreFoundationSchema,
+  projectId: (i) => i.projectId,
+  revalidate: (_d, i) => [`/projects/${i.projectId}`],
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const f = await setFoundationWithdrawn(ctx.auth.actor, input.projectId, input.foundationId, { withdrawn: false, reason: "" });
+    return { foundationId: f.id, message: `${f.tag} is restored.` };
   },
 });

@@ -1,9 +1,9 @@
-import { and, asc, eq, sql } from "drizzle-orm";
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
 import type { AnalysisInput } from "@/modules/calc";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
-import { getFoundation } from "./foundations";
+import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor } from "./projects";
 
 /**
@@ -74,6 +74,7 @@ export async function saveDraft(
 ): Promise<SaveDraftResult | undefined> {
   const foundation = await findFoundationFor(actor, projectId, foundationId, "draft.edit");
   if (!foundation) return undefined;
+  assertFoundationActive(foundation);
   const db = getDb();
   const rows =
     change.expectedVersion === 0
@@ -129,7 +130,7 @@ export async function listFoundationsWithDrafts(actor: Actor, projectId: string)
     })
     .from(foundations)
     .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
-    .where(eq(foundations.projectId, projectId))
+    .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)))
     .orderBy(asc(foundations.tag));
   return rows.map((r) => ({ ...r, draftVersion: r.draftVersion ?? 0, input: (r.input as AnalysisInput | null) ?? null }));
 }

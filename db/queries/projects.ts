@@ -1,4 +1,4 @@
-import { and, asc, count, eq } from "drizzle-orm";
+import { and, asc, count, eq, isNull } from "drizzle-orm";
 import { getDb } from "../client";
 import { companies, foundations, projectMembers, projects, users, type FoundationRow, type ProjectRow } from "../schema";
 import type { ProjectRole } from "@/modules/platform/permissions";
@@ -165,12 +165,16 @@ export async function listFoundations(actor: Actor, projectId: string): Promise<
       tag: foundations.tag,
       machineTrain: foundations.machineTrain,
       location: foundations.location,
+      withdrawnAt: foundations.withdrawnAt,
+      withdrawnById: foundations.withdrawnById,
+      withdrawalReason: foundations.withdrawalReason,
       createdAt: foundations.createdAt,
       updatedAt: foundations.updatedAt,
     })
     .from(foundations)
     .innerJoin(projectMembers, and(eq(projectMembers.projectId, foundations.projectId), eq(projectMembers.userId, actor.userId)))
-    .where(eq(foundations.projectId, projectId))
+    // Withdrawn foundations leave the list (managers find them on the project page's own list).
+    .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)))
     .orderBy(asc(foundations.tag));
 }
 

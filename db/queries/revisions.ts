@@ -6,6 +6,7 @@ import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type A
 import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { getMembership, type Actor } from "./projects";
+import { assertFoundationActive } from "./foundations";
 
 type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
 
@@ -146,7 +147,7 @@ export async function listFoundationRevisionStates(actor: Actor, projectId: stri
     .select({ id: foundations.id, draftVendorSubmissionId: foundationDrafts.vendorSubmissionId })
     .from(foundations)
     .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
-    .where(eq(foundations.projectId, projectId));
+    .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)));
   const revs = await db
     .select({ id: revisions.id, foundationId: revisions.foundationId, sequence: revisions.sequence, label: revisions.label, vendorSubmissionId: revisions.vendorSubmissionId, issuedAt: revisions.issuedAt, outcome: revisionDecisions.outcome })
     .from(revisions)
@@ -212,12 +213,13 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
   if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
   return getDb().transaction(async (tx) => {
     const [foundation] = await tx
-      .select({ id: foundations.id, tag: foundations.tag, scheme: projects.revisionScheme })
+      .select({ id: foundations.id, tag: foundations.tag, scheme: projects.revisionScheme, withdrawnAt: foundations.withdrawnAt })
       .from(foundations)
       .innerJoin(projects, eq(projects.id, foundations.projectId))
       .where(and(eq(foundations.id, foundationId), eq(foundations.projectId, projectId)))
       .for("update", { of: foundations });
     if (!foundation) return { ok: false, reason: "not-found" } as const;
+    assertFoundationActive(foundation);
     const [draft] = await tx.select().from(foundationDrafts).where(eq(foundationDrafts.foundationId, foundationId)).for("update");
     if (!draft) return { ok: false, reason: "no-draft" } as const;
     if (opts.expectedDraftVersion !== undefined && opts.expectedDraftVersion !== draft.version) return { ok: false, reason: "stale-draft", currentVersion: draft.version } as const;

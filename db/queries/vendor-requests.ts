@@ -17,7 +17,7 @@ import type { MachineInput } from "@/modules/calc/schema";
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { MAX_BEARINGS, MAX_ROTORS } from "@/modules/vendor-data/layout";
-import { getFoundation } from "./foundations";
+import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor, type Membership } from "./projects";
 import { recordAuditEvent } from "./audit";
 
@@ -288,6 +288,7 @@ export async function createVendorRequest(actor: Actor, projectId: string, input
   if (!membership || !roleAllows(membership.role, "vendorRequest.create")) throw new AppError("forbidden");
   const foundation = await getFoundation(actor, projectId, input.foundationId);
   if (!foundation) throw new AppError("invalid_input", "That foundation is not in this project.", [{ path: "foundationId", message: "not a foundation of this project" }]);
+  assertFoundationActive(foundation);
   const contactRows = await getDb()
     .select({ companyId: projectMembers.companyId, role: projectMembers.role })
     .from(projectMembers)

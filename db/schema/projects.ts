@@ -50,6 +50,11 @@ export const foundations = pgTable(
     tag: text("tag").notNull(),
     machineTrain: text("machine_train").notNull().default(""),
     location: text("location").notNull().default(""),
+    // Withdrawn (archived) by a manager: off the project table and the register, its
+    // revisions and audit trail kept and readable by managers, and restorable.
+    withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
+    withdrawnById: uuid("withdrawn_by_id").references(() => users.id, { onDelete: "set null" }),
+    withdrawalReason: text("withdrawal_reason").notNull().default(""),
     ...stamps,
   },
   (t) => [unique("foundations_project_tag_uq").on(t.projectId, t.tag)],

@@ -60,6 +60,14 @@ export const createProjectSchema = z.object({
   units: z.enum(["si", "us"], "Pick SI or US customary").default("si"),
 });
 
+/** Withdrawing a foundation says why (kept in the audit log); restoring needs no reason. */
+export const withdrawFoundationSchema = z.object({
+  projectId: z.uuid(),
+  foundationId: z.uuid(),
+  reason: z.string().trim().min(3, "Say why it is withdrawn (at least 3 characters)").max(500, "At most 500 characters"),
+});
+export const restoreFoundationSchema = z.object({ projectId: z.uuid(), foundationId: z.uuid() });
+
 export const createFoundationSchema = z.object({
   projectId: z.uuid(),
   tag: z.string().trim().min(1, "Enter a tag").max(40),

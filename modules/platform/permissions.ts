@@ -10,6 +10,8 @@ export const permissionMap = {
   "members.manage": ["manager"],
   "foundation.read": ["manager", "designer", "checker", "viewer"],
   "foundation.create": ["manager", "designer"],
+  // Withdrawing a foundation created by mistake (and restoring it); a withdrawn one is read by managers only.
+  "foundation.withdraw": ["manager"],
   "draft.edit": ["manager", "designer"],
   "calc.run": ["manager", "designer", "checker", "viewer"],
   // Revisions: issued ones are read by everyone but vendors; a checker or manager

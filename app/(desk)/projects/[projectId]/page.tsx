@@ -28,13 +28,20 @@ import { FoundationTable, type FoundationRowView } from "../../../_components/fo
 import { requireProjectPage } from "../../../_lib/page-guard";
 import { EmptyState } from "../../../_components/brand";
 import { NewFoundationForm } from "./new-foundation-form";
+import { RestoreFoundationButton } from "./foundation-withdrawal";
+import { listWithdrawnFoundations } from "@/db/queries/foundations";
 
 export const metadata: Metadata = { title: "Foundations" };
 
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const { actor, project, role } = await requireProjectPage(projectId, "project.read");
-  const [foundations, revisionStates] = await Promise.all([listFoundationsWithDrafts(actor, projectId), listFoundationRevisionStates(actor, projectId)]);
+  const mayWithdraw = roleAllows(role, "foundation.withdraw");
+  const [foundations, revisionStates, withdrawn] = await Promise.all([
+    listFoundationsWithDrafts(actor, projectId),
+    listFoundationRevisionStates(actor, projectId),
+    mayWithdraw ? listWithdrawnFoundations(actor, projectId) : Promise.resolve([]),
+  ]);
   const stateOf = new Map(revisionStates.map((s) => [s.foundationId, s]));
   const rows: FoundationRowView[] = foundations.map((f) => {
     const rev = stateOf.get(f.id);
@@ -83,6 +90,40 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
           <FoundationTable projectId={projectId} rows={rows} />
         )}
       </section>
+      {withdrawn.length > 0 ? (
+        <section className="space-y-2" data-testid="withdrawn-foundations">
+          <h2>Withdrawn foundations</h2>
+          <p className="text-sm text-basalt-500">Off the table and the register; their revisions and audit trail are kept. Only managers see this list.</p>
+          <table>
+            <thead>
+              <tr>
+                <th scope="col">Tag</th>
+                <th scope="col">Withdrawn on</th>
+                <th scope="col">Why</th>
+                <th scope="col">Revisions</th>
+                <th scope="col">
+                  <span className="sr-only">Restore</span>
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {withdrawn.map((f) => (
+                <tr key={f.id}>
+                  <td className="font-mono">{f.tag}</td>
+                  <td>{f.withdrawnAt?.toISOString().slice(0, 10)}</td>
+                  <td>{f.withdrawalReason}</td>
+                  <td>
+                    <a href={`/projects/${projectId}/foundations/${f.id}/revisions`}>Issued revisions</a>
+                  </td>
+                  <td>
+                    <RestoreFoundationButton projectId={projectId} foundationId={f.id} tag={f.tag} />
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      ) : null}
       {roleAllows(role, "foundation.create") ? (
         <section className="slab max-w-2xl p-5">
           <h3>Add a foundation</h3>

@@ -9,6 +9,7 @@ import { listRevisions } from "@/db/queries/revisions";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
 import { FoundationWorkspace } from "../../../../../_components/workspace/foundation-workspace";
 import { RevisionBar } from "./revisions/revision-bar";
+import { RestoreFoundationButton, WithdrawFoundationForm } from "../../foundation-withdrawal";
 
 export const metadata: Metadata = { title: "Foundation workspace" };
 
@@ -26,18 +27,25 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         <Link href={`/projects/${projectId}`}>{project.code}</Link> / {foundation.tag} · {foundation.machineTrain}
         {foundation.location ? ` · ${foundation.location}` : ""}
       </p>
-      <RevisionBar projectId={projectId} foundationId={foundationId} revisions={revisions} mayIssue={roleAllows(role, "revision.issue")} />
+      {foundation.withdrawnAt ? (
+        <div role="status" className="slab border-ochre-500 bg-ochre-100 p-3 text-sm" data-testid="withdrawn-banner">
+          Withdrawn on {foundation.withdrawnAt.toISOString().slice(0, 10)}: {foundation.withdrawalReason}. Nothing on it can change until it is restored.{" "}
+          <RestoreFoundationButton projectId={projectId} foundationId={foundationId} tag={foundation.tag} />
+        </div>
+      ) : null}
+      <RevisionBar projectId={projectId} foundationId={foundationId} revisions={revisions} mayIssue={roleAllows(role, "revision.issue") && !foundation.withdrawnAt} />
       <FoundationWorkspace
         projectId={projectId}
         foundationId={foundationId}
         tag={foundation.tag}
-        readOnly={!roleAllows(role, "draft.edit")}
+        readOnly={!roleAllows(role, "draft.edit") || Boolean(foundation.withdrawnAt)}
         initialVersion={draft.version}
         initialInput={draft.input}
         initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
         units={user.unitsPreference ?? project.units}
         projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
       />
+      {roleAllows(role, "foundation.withdraw") && !foundation.withdrawnAt ? <WithdrawFoundationForm projectId={projectId} foundationId={foundationId} tag={foundation.tag} /> : null}
     </div>
   );
 }
