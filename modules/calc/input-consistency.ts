@@ -2,6 +2,7 @@
 // reported with the JSON path of the field to fix.
 import type { AnalysisInput, TransientRequest } from "./schema";
 import { resolveTransientSpeeds } from "./transient-settings";
+import { loadCasesFor } from "./unbalance";
 import { resolveSweep } from "./sweep-grid";
 import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
 
@@ -98,7 +99,7 @@ function checkMachines(input: AnalysisInput, add: AddIssue): void {
         add([...path, "speedRangeRpm"], "the rated speed speedRpm must lie inside speedRangeRpm");
       }
       if (rotor.unbalanceMode !== "static") {
-        const axisIndex = rotor.axis === "x" ? 0 : 1;
+        const axisIndex = rotor.axis === "x" ? 0 : rotor.axis === "y" ? 1 : 2;
         const along = rotor.bearings.map((b) => b[axisIndex]);
         if (rotor.bearings.length < 2 || Math.max(...along) - Math.min(...along) <= 1e-6) {
           add(
@@ -145,6 +146,10 @@ export function checkTransientRequest(input: AnalysisInput, request: TransientRe
   }
   if (request.kind === "coast-down" && !(fromRpm > toRpm)) {
     add(at, `a coast-down needs fromRpm (${fromRpm} rpm) greater than toRpm (${toRpm} rpm)`);
+  }
+  const cases = loadCasesFor(rotor.axis);
+  if (!cases.includes(request.case)) {
+    add([...path, "case"], `a ${rotor.axis === "z" ? "vertical" : "horizontal"} shaft has the load cases ${cases.map((c) => `"${c}"`).join(", ")}`);
   }
   if (request.unbalanceMode !== undefined && rotor.unbalanceMode !== "both" && request.unbalanceMode !== rotor.unbalanceMode) {
     add(

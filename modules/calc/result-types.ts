@@ -3,7 +3,8 @@
 import type { Dof6, DofKey } from "./dof";
 import type { Vec3 } from "./vec3";
 
-export type LoadCaseName = "vertical" | "horizontal" | "rotating";
+/** Horizontal shafts (x, y): vertical, horizontal, rotating. Vertical shafts (z): horizontal-x, horizontal-y, rotating. */
+export type LoadCaseName = "vertical" | "horizontal" | "rotating" | "horizontal-x" | "horizontal-y";
 export type UnbalanceModeName = "static" | "couple";
 
 export interface MassPropertiesResult {

@@ -80,7 +80,8 @@ const rotorSchema = z.strictObject({
   balanceGrade: positive().optional(),
   unbalanceForce: positive().optional(),
   serviceFactor: positive().default(1),
-  axis: z.enum(["x", "y"], { error: 'must be "x" or "y" (horizontal shaft)' }),
+  // "z": a vertical shaft (vertical pumps); its load cases are horizontal along x and y and rotating in the plan.
+  axis: z.enum(["x", "y", "z"], { error: 'must be "x" or "y" (horizontal shaft) or "z" (vertical shaft)' }),
   unbalanceMode: z.enum(["static", "couple", "both"], { error: 'must be "static", "couple" or "both"' }).default("static"),
   bearings: z.array(vec3Schema, { error: "must be a list of [x, y, z]" }).min(1, { error: "a rotor needs at least one bearing" }),
 });
@@ -137,7 +138,11 @@ export const transientRequestSchema = z.strictObject({
   fromRpm: nonNegative().optional(),
   toRpm: nonNegative().optional(),
   durationS: positive().max(TRANSIENT_LIMITS.maxDurationS, { error: `must be at most ${TRANSIENT_LIMITS.maxDurationS} s` }),
-  case: z.enum(["vertical", "horizontal", "rotating"], { error: 'must be "vertical", "horizontal" or "rotating"' }).default("rotating"),
+  case: z
+    .enum(["vertical", "horizontal", "rotating", "horizontal-x", "horizontal-y"], {
+      error: 'must be "vertical", "horizontal" or "rotating" (horizontal shaft), or "horizontal-x", "horizontal-y" or "rotating" (vertical shaft)',
+    })
+    .default("rotating"),
   unbalanceMode: z.enum(["static", "couple"], { error: 'must be "static" or "couple"' }).optional(),
   outputPoints: z
     .number({ error: "must be a whole number" })

@@ -6,7 +6,15 @@ import type { LoadCaseName, UnbalanceModeName } from "./result-types";
 import type { RotorInput } from "./schema";
 import { cross3, type Vec3 } from "./vec3";
 
-export const LOAD_CASES: LoadCaseName[] = ["vertical", "horizontal", "rotating"];
+export type ShaftAxis = "x" | "y" | "z";
+
+/** The load cases of a rotor: a horizontal shaft's force has a vertical and a horizontal part; a vertical shaft's lies in the plan. */
+export function loadCasesFor(axis: ShaftAxis): LoadCaseName[] {
+  return axis === "z" ? ["horizontal-x", "horizontal-y", "rotating"] : ["vertical", "horizontal", "rotating"];
+}
+
+/** The load cases of horizontal shafts (the contract's three). */
+export const LOAD_CASES: LoadCaseName[] = loadCasesFor("x");
 
 export const rpmToRadPerSec = (rpm: number) => (rpm * 2 * Math.PI) / 60;
 
@@ -24,9 +32,16 @@ export function forceAtRatedSpeed(rotor: RotorInput): number {
  * Unit force phasor (real and imaginary parts) of a load case. Vertical: z. Horizontal: the
  * horizontal axis normal to the shaft. Rotating: both, 90 degrees apart, turning by the
  * right-hand rule about the positive shaft axis: shaft x, F = [0, cos wt, sin wt] -> [0, 1, -i];
- * shaft y, F = [sin wt, 0, cos wt] -> [-i, 0, 1].
+ * shaft y, F = [sin wt, 0, cos wt] -> [-i, 0, 1]; vertical shaft z, F = [cos wt, sin wt, 0] -> [1, -i, 0].
  */
-export function forceDirection(axis: "x" | "y", loadCase: LoadCaseName): { re: Vec3; im: Vec3 } {
+export function forceDirection(axis: ShaftAxis, loadCase: LoadCaseName): { re: Vec3; im: Vec3 } {
+  if (axis === "z") {
+    if (loadCase === "horizontal-x") return { re: [1, 0, 0], im: [0, 0, 0] };
+    if (loadCase === "horizontal-y") return { re: [0, 1, 0], im: [0, 0, 0] };
+    if (loadCase === "rotating") return { re: [1, 0, 0], im: [0, -1, 0] };
+    throw new Error(`internal error: a vertical shaft has no ${loadCase} load case`);
+  }
+  if (loadCase === "horizontal-x" || loadCase === "horizontal-y") throw new Error(`internal error: a horizontal shaft has no ${loadCase} load case`);
   if (loadCase === "vertical") return { re: [0, 0, 1], im: [0, 0, 0] };
   if (loadCase === "horizontal") return { re: axis === "x" ? [0, 1, 0] : [1, 0, 0], im: [0, 0, 0] };
   return axis === "x" ? { re: [0, 1, 0], im: [0, 0, -1] } : { re: [0, 0, 1], im: [-1, 0, 0] };
@@ -48,9 +63,9 @@ export interface UnitLoad {
 }
 
 /** Weights of the bearings: static, 1/n each in phase; couple, +1/2 and -1/2 at the two end bearings. */
-export function bearingWeights(bearings: Vec3[], axis: "x" | "y", mode: UnbalanceModeName): number[] {
+export function bearingWeights(bearings: Vec3[], axis: ShaftAxis, mode: UnbalanceModeName): number[] {
   if (mode === "static") return bearings.map(() => 1 / bearings.length);
-  const k = axis === "x" ? 0 : 1;
+  const k = axis === "x" ? 0 : axis === "y" ? 1 : 2;
   let lo = 0;
   let hi = 0;
   bearings.forEach((b, i) => {
@@ -66,7 +81,7 @@ export function unitLoads(rotor: RotorInput, bearings: Vec3[]): UnitLoad[] {
   const loads: UnitLoad[] = [];
   for (const mode of modes) {
     const weights = bearingWeights(bearings, rotor.axis, mode);
-    for (const loadCase of LOAD_CASES) {
+    for (const loadCase of loadCasesFor(rotor.axis)) {
       const dir = forceDirection(rotor.axis, loadCase);
       const re = new Float64Array(6);
       const im = new Float64Array(6);
@@ -86,10 +101,11 @@ export function unitLoads(rotor: RotorInput, bearings: Vec3[]): UnitLoad[] {
       });
       const load: UnitLoad = { case: loadCase, unbalanceMode: mode, re, im, realOnly: im.every((v) => v === 0) };
       if (loadCase === "rotating") {
-        // shaft x: [0, 1, -i] = horizontal - i vertical; shaft y: [-i, 0, 1] = vertical - i horizontal
-        const vertical = loads.length - 2;
-        const horizontal = loads.length - 1;
-        load.combine = rotor.axis === "x" ? { a: horizontal, b: vertical } : { a: vertical, b: horizontal };
+        // shaft x: [0, 1, -i] = horizontal - i vertical; shaft y: [-i, 0, 1] = vertical - i horizontal;
+        // shaft z: [1, -i, 0] = horizontal-x - i horizontal-y (the two cases before this one, in order)
+        const first = loads.length - 2;
+        const second = loads.length - 1;
+        load.combine = rotor.axis === "x" ? { a: second, b: first } : { a: first, b: second };
       }
       loads.push(load);
     }

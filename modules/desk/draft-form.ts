@@ -26,7 +26,7 @@ export interface RotorForm {
   balanceGrade: Num;
   unbalanceForce: Num;
   serviceFactor: Num;
-  axis: "x" | "y";
+  axis: "x" | "y" | "z";
   unbalanceMode: "static" | "couple" | "both";
   bearings: Vec3Form[];
 }
@@ -54,7 +54,7 @@ export interface TransientRunForm {
   fromRpm: Num;
   toRpm: Num;
   durationS: Num;
-  case: "vertical" | "horizontal" | "rotating";
+  case: "vertical" | "horizontal" | "rotating" | "horizontal-x" | "horizontal-y";
   unbalanceMode: "static" | "couple" | null;
   /** Output intervals of the envelope series; blank takes the core's default. */
   outputPoints: Num;
@@ -159,10 +159,11 @@ export interface RunRotorChoice {
   rotor: string;
   speedRpm: Num;
   unbalanceMode: RotorForm["unbalanceMode"];
+  axis: RotorForm["axis"];
 }
 
 export function runRotorChoices(form: Pick<DraftForm, "machines">): RunRotorChoice[] {
-  return form.machines.flatMap((m) => m.rotors.map((r) => ({ machine: m.name, rotor: r.name, speedRpm: r.speedRpm, unbalanceMode: r.unbalanceMode })));
+  return form.machines.flatMap((m) => m.rotors.map((r) => ({ machine: m.name, rotor: r.name, speedRpm: r.speedRpm, unbalanceMode: r.unbalanceMode, axis: r.axis })));
 }
 
 /** Start and end speed of a run as the core resolves them (blank: standstill and rated). */
@@ -358,7 +359,7 @@ const transientRunSchema = yup
     fromRpm: optionalSpeed,
     toRpm: optionalSpeed,
     durationS: positive("run duration").max(L.maxDurationS, `The run duration must be at most ${L.maxDurationS} s`),
-    case: yup.string().oneOf(["vertical", "horizontal", "rotating"]),
+    case: yup.string().oneOf(["vertical", "horizontal", "rotating", "horizontal-x", "horizontal-y"]),
     unbalanceMode: yup.string().nullable().oneOf(["static", "couple", null]),
     outputPoints: yup
       .number()

@@ -66,7 +66,7 @@ export const rotorFields = [
 export type MachineFieldKey = (typeof machineFields)[number]["key"];
 export type RotorFieldKey = (typeof rotorFields)[number]["key"];
 
-export const axisChoices = ["x", "y"] as const;
+export const axisChoices = ["x", "y", "z"] as const;
 export const modeChoices = ["static", "couple", "both"] as const;
 export const gradeChoices: readonly number[] = balanceGradeSeries;
 

@@ -106,7 +106,7 @@ function validationFor(spec: FieldSpec): ExcelJS.DataValidation | undefined {
       // A list, but a vendor with an unusual grade may still type it (warning only).
       return { ...base, type: "list", errorStyle: "warning", formulae: [`"${gradeChoices.join(",")}"`], errorTitle: "Balance grade", error: "Usual ISO 1940-1 grades are listed; keep your value only if the rotor is balanced to it." };
     case "axis":
-      return { ...base, type: "list", formulae: [`"${axisChoices.join(",")}"`], errorTitle: "Shaft axis", error: "The shaft is horizontal, along the foundation's x or y axis." };
+      return { ...base, type: "list", formulae: [`"${axisChoices.join(",")}"`], errorTitle: "Shaft axis", error: "The shaft runs along the foundation's x or y axis (horizontal) or z (a vertical shaft)." };
     case "mode":
       return { ...base, type: "list", formulae: [`"${modeChoices.join(",")}"`], errorTitle: "Unbalance", error: "static, couple or both." };
     case "positive":

@@ -76,6 +76,7 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
                               <select className="field-input" name={`${base}.axis`} value={r.axis} onChange={handleChange} disabled={readOnly}>
                                 <option value="x">along x</option>
                                 <option value="y">along y</option>
+                                <option value="z">vertical (z)</option>
                               </select>
                             </label>
                             <label>

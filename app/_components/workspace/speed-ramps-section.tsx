@@ -21,7 +21,16 @@ import { useUnits } from "./units-context";
 
 // ---------------------------------------------------------------- the runs as the designer types them
 
-const caseWords: Record<TransientRunForm["case"], string> = { rotating: "rotating", vertical: "vertical", horizontal: "horizontal" };
+const caseWords: Record<TransientRunForm["case"], string> = {
+  rotating: "rotating",
+  vertical: "vertical",
+  horizontal: "horizontal",
+  "horizontal-x": "horizontal along x",
+  "horizontal-y": "horizontal along y",
+};
+// The load cases a rotor has: a vertical shaft's unbalance force lies in the plan.
+const casesOf = (axis: RunRotorChoice["axis"]): TransientRunForm["case"][] =>
+  axis === "z" ? ["rotating", "horizontal-x", "horizontal-y"] : ["rotating", "vertical", "horizontal"];
 
 function SelectField({
   label,
@@ -109,7 +118,7 @@ function RunRow({ index, run, rotor, readOnly, onRemove }: { index: number; run:
           label="Load case"
           value={run.case}
           onChange={(v) => void setFieldValue(`${base}.case`, v)}
-          options={(Object.keys(caseWords) as TransientRunForm["case"][]).map((c) => [c, caseWords[c]])}
+          options={casesOf(rotor.axis).map((c) => [c, caseWords[c]])}
           disabled={readOnly}
         />
         <SelectField
