@@ -79,6 +79,7 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
     input: preliminary,
     issuedById: designerId,
     issuedAt: new Date(now - 12 * day),
+    editorIds: [designerId],
     comments: [
       {
         fieldPath: IMPELLER_PATH,
@@ -97,7 +98,7 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
   });
   // B was issued from the draft as it stands, so it records the vendor submission the draft uses.
   const draft = await getDraft({ userId: designerId, isAdmin: false }, projectId, foundationId);
-  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day), vendorSubmissionId: draft?.vendorSubmissionId ?? null });
+  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day), editorIds: [designerId], vendorSubmissionId: draft?.vendorSubmissionId ?? null });
 }
 
 /** An example input from examples/, checked by the contract's schema like any other input. */

@@ -12,7 +12,7 @@ import {
   removeMemberSchema,
 } from "@/modules/platform/account-schemas";
 import { projectSettingsFormSchema, settingsFromForm } from "@/modules/desk/project-settings";
-import { createFoundation, createProject, countManagers, deleteMember, getMemberById, getProjectByCode, updateProjectSettings } from "@/db/queries/projects";
+import { createFoundation, createProject, getProjectByCode, removeMember, updateProjectSettings } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { setFoundationWithdrawn } from "@/db/queries/foundations";
 import { isUniqueViolation } from "@/db/queries/errors";
@@ -54,12 +54,9 @@ export const removeMemberAction = defineAction({
   projectId: (i) => i.projectId,
   revalidate: (_d, i) => [`/projects/${i.projectId}/members`],
   handler: async (ctx, input) => {
-    const member = await getMemberById(input.projectId, input.memberId);
+    // removeMember applies the last-manager rule (the same one as a role change by re-invitation).
+    const member = await removeMember(input.projectId, input.memberId);
     if (!member) throw new AppError("not_found", "That member is not on this project.");
-    if (member.role === "manager" && (await countManagers(input.projectId)) <= 1) {
-      throw new AppError("conflict", "A project keeps at least one manager.");
-    }
-    await deleteMember(input.projectId, input.memberId);
     await recordAuditEvent({ projectId: input.projectId, actorId: ctx.auth?.user.id, action: "member.removed", detail: { userId: member.userId } });
     return { removed: input.memberId };
   },

@@ -1,5 +1,5 @@
 import { AppError } from "@/modules/platform/errors";
-import { roleLabels, type ProjectRole } from "@/modules/platform/permissions";
+import { roleAllows, roleLabels, type ProjectRole } from "@/modules/platform/permissions";
 import { getServerEnv } from "@/modules/platform/env";
 import {
   clearSignInFailures,
@@ -102,12 +102,18 @@ export async function resetPassword(port: RequestPort, token: string, password: 
   return user;
 }
 
+/**
+ * Adds an account to a project (creating it when new) or changes its role there, and
+ * e-mails it. Managers only; the last manager keeps the role (upsertMember's rule).
+ */
 export async function inviteMember(
   actor: Actor,
   input: { projectId: string; email: string; name: string; role: ProjectRole; company: string },
 ): Promise<{ userId: string; memberId: string }> {
+  // The one check on adding a member or changing a role: every path that grants project
+  // access (the Team page, the members API, nothing else) comes through here.
   const project = await getProjectForMember(actor, input.projectId);
-  if (!project) throw new AppError("forbidden");
+  if (!project || !roleAllows(project.role, "members.manage")) throw new AppError("forbidden", "Only the project's manager adds members or changes their roles.");
   const existing = await getUserByEmail(input.email);
   const user = existing ?? (await createUser({ email: input.email, name: input.name }));
   const companyId = input.role === "vendor" && input.company ? await getOrCreateCompany(input.company) : null;

@@ -1,4 +1,4 @@
-import { and, asc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
 import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
 import type { AnalysisInput } from "@/modules/calc";
@@ -36,6 +36,14 @@ function toDraft(row: FoundationDraftRow): Draft {
 
 function emptyDraft(foundationId: string): Draft {
   return { foundationId, version: 0, input: null, vendorSubmissionId: null, updatedById: null, updatedAt: null };
+}
+
+/**
+ * The draft's editor set with `userId` added (once): every write to a draft's input sets
+ * `editorIds` to this, so the next revision knows everyone who wrote it (four eyes).
+ */
+export function draftEditorsWith(userId: string): SQL<string[]> {
+  return sql<string[]>`CASE WHEN ${userId}::uuid = ANY(${foundationDrafts.editorIds}) THEN ${foundationDrafts.editorIds} ELSE array_append(${foundationDrafts.editorIds}, ${userId}::uuid) END`;
 }
 
 /** The foundation, when the actor's project role allows the permission and it belongs to the project. */
@@ -80,13 +88,13 @@ export async function saveDraft(
     change.expectedVersion === 0
       ? await db
           .insert(foundationDrafts)
-          .values({ foundationId: foundation.id, input: change.input, version: 1, updatedById: actor.userId })
+          .values({ foundationId: foundation.id, input: change.input, version: 1, updatedById: actor.userId, editorIds: [actor.userId] })
           // An existing row means someone saved first: a conflict, not an overwrite.
           .onConflictDoNothing({ target: foundationDrafts.foundationId })
           .returning()
       : await db
           .update(foundationDrafts)
-          .set({ input: change.input, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, updatedAt: new Date() })
+          .set({ input: change.input, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, editorIds: draftEditorsWith(actor.userId), updatedAt: new Date() })
           .where(and(eq(foundationDrafts.foundationId, foundation.id), eq(foundationDrafts.version, change.expectedVersion)))
           .returning();
   const saved = rows[0];

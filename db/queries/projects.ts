@@ -1,6 +1,7 @@
-import { and, asc, count, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull } from "drizzle-orm";
 import { getDb } from "../client";
-import { companies, foundations, projectMembers, projects, users, type FoundationRow, type ProjectRow } from "../schema";
+import { companies, foundations, projectMembers, projects, users, type FoundationRow, type ProjectMemberRow, type ProjectRow } from "../schema";
+import { AppError } from "@/modules/platform/errors";
 import type { ProjectRole } from "@/modules/platform/permissions";
 
 /** Who is asking: every query that reads project data takes this. */
@@ -105,43 +106,64 @@ export async function listMembers(actor: Actor, projectId: string): Promise<Memb
   return rows.map(({ passwordHash, ...r }) => ({ ...r, hasPassword: passwordHash !== null }));
 }
 
+type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
+
+/**
+ * The last-manager rule, the one place it lives: a project always keeps a manager, so a
+ * change that takes the manager role from `userId` (removal, or re-invitation with another
+ * role) is refused when no other manager remains. Runs inside the change's transaction and
+ * locks the project's manager rows, so two racing changes cannot each leave the other as
+ * the last manager and then both go through.
+ */
+async function assertAnotherManagerRemains(tx: Tx, projectId: string, userId: string): Promise<void> {
+  const managers = await tx
+    .select({ userId: projectMembers.userId })
+    .from(projectMembers)
+    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, "manager")))
+    .for("update");
+  if (managers.some((m) => m.userId === userId) && managers.length <= 1) {
+    throw new AppError("conflict", "A project keeps at least one manager: make another member a manager first.");
+  }
+}
+
+/**
+ * Adds the account to the project or changes its role. Only the invitation path
+ * (app/_lib/accounts-service.ts inviteMember, which checks members.manage) and the trusted
+ * seed call it. Taking the manager role from the last manager is refused.
+ */
 export async function upsertMember(input: { projectId: string; userId: string; role: ProjectRole; companyId?: string | null }): Promise<string> {
-  const rows = await getDb()
-    .insert(projectMembers)
-    .values({ projectId: input.projectId, userId: input.userId, role: input.role, companyId: input.companyId ?? null })
-    .onConflictDoUpdate({
-      target: [projectMembers.projectId, projectMembers.userId],
-      set: { role: input.role, companyId: input.companyId ?? null, updatedAt: new Date() },
-    })
-    .returning({ id: projectMembers.id });
-  const id = rows[0]?.id;
-  if (!id) throw new Error("member upsert returned nothing");
-  return id;
+  return getDb().transaction(async (tx) => {
+    if (input.role !== "manager") await assertAnotherManagerRemains(tx, input.projectId, input.userId);
+    const rows = await tx
+      .insert(projectMembers)
+      .values({ projectId: input.projectId, userId: input.userId, role: input.role, companyId: input.companyId ?? null })
+      .onConflictDoUpdate({
+        target: [projectMembers.projectId, projectMembers.userId],
+        set: { role: input.role, companyId: input.companyId ?? null, updatedAt: new Date() },
+      })
+      .returning({ id: projectMembers.id });
+    const id = rows[0]?.id;
+    if (!id) throw new Error("member upsert returned nothing");
+    return id;
+  });
 }
 
-export async function countManagers(projectId: string): Promise<number> {
-  const rows = await getDb()
-    .select({ n: count() })
-    .from(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.role, "manager")));
-  return rows[0]?.n ?? 0;
-}
-
-export async function getMemberById(projectId: string, memberId: string) {
-  const rows = await getDb()
-    .select()
-    .from(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.id, memberId)))
-    .limit(1);
-  return rows[0];
-}
-
-export async function deleteMember(projectId: string, memberId: string): Promise<boolean> {
-  const rows = await getDb()
-    .delete(projectMembers)
-    .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.id, memberId)))
-    .returning({ id: projectMembers.id });
-  return rows.length > 0;
+/**
+ * Removes the member under the last-manager rule (the same check as a role change).
+ * Undefined when no such member is on the project.
+ */
+export async function removeMember(projectId: string, memberId: string): Promise<ProjectMemberRow | undefined> {
+  return getDb().transaction(async (tx) => {
+    const [member] = await tx
+      .select()
+      .from(projectMembers)
+      .where(and(eq(projectMembers.projectId, projectId), eq(projectMembers.id, memberId)))
+      .for("update");
+    if (!member) return undefined;
+    await assertAnotherManagerRemains(tx, projectId, member.userId);
+    await tx.delete(projectMembers).where(eq(projectMembers.id, member.id));
+    return member;
+  });
 }
 
 export async function getOrCreateCompany(name: string): Promise<string> {

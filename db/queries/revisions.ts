@@ -22,6 +22,8 @@ export interface RevisionSummary {
   issuedById: string;
   issuedByName: string;
   issuedAt: Date;
+  /** Who edited the draft since the previous revision (besides or including the issuer): with the issuer, its authors. */
+  editors: { id: string; name: string }[];
   status: RevisionStatus;
   decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedAt: Date } | null;
   openComments: number;
@@ -68,6 +70,7 @@ const summaryColumns = {
   vendorSubmissionId: revisions.vendorSubmissionId,
   issuedById: revisions.issuedById,
   issuedAt: revisions.issuedAt,
+  editorIds: revisions.editorIds,
 };
 
 async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
@@ -88,6 +91,10 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
         .groupBy(revisionComments.revisionId)
     : [];
   const openBy = new Map(open.map((o) => [o.revisionId, o.n]));
+  const editorIds = [...new Set(rows.flatMap((x) => x.r.editorIds))];
+  const editorNames = new Map(
+    editorIds.length ? (await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, editorIds))).map((u) => [u.id, u.name]) : [],
+  );
   const maxSequence = rows.reduce((m, x) => Math.max(m, x.r.sequence), 0);
   return rows
     .filter((x) => !where.revisionId || x.r.id === where.revisionId)
@@ -103,6 +110,7 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
       issuedById: r.issuedById,
       issuedByName: issuerName,
       issuedAt: r.issuedAt,
+      editors: r.editorIds.map((id) => ({ id, name: editorNames.get(id) ?? "(former account)" })),
       status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence),
       decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedAt: d.decidedAt } : null,
       openComments: openBy.get(r.id) ?? 0,
@@ -251,14 +259,17 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
         inputHash,
         vendorSubmissionId: draft.vendorSubmissionId,
         issuedById: actor.userId,
+        editorIds: draft.editorIds,
       })
       .returning();
     if (!row) throw new Error("revision insert returned nothing");
+    // The next revision's authors are those who edit the draft from here on.
+    await tx.update(foundationDrafts).set({ editorIds: [] }).where(eq(foundationDrafts.id, draft.id));
     await tx.insert(auditEvents).values({
       projectId,
       actorId: actor.userId,
       action: "revision.issued",
-      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId },
+      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds },
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
     if (!summary) throw new Error("issued revision not readable");
@@ -268,14 +279,15 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
 
 export type DecideOutcome =
   | { ok: true; revision: RevisionSummary }
-  | { ok: false; reason: "forbidden" | "not-found" | "own-revision" | "superseded" }
+  | { ok: false; reason: "forbidden" | "not-found" | "own-revision" | "draft-editor" | "superseded" }
   | { ok: false; reason: "already-decided"; outcome: "returned" | "approved" };
 
 /**
  * Returns or approves a revision. The insert itself carries the rules, so they hold
  * under concurrency: it selects the revision only when the decider did not issue it
- * and no later revision exists, and the UNIQUE revision id with ON CONFLICT DO
- * NOTHING lets exactly one of two racing decisions write a row.
+ * nor edited it, and no later revision exists, and the UNIQUE revision id with ON CONFLICT DO
+ * NOTHING lets exactly one of two racing decisions write a row. The editors are those
+ * who edited the draft since the previous revision (a trigger refuses them as well).
  */
 export async function decideRevision(
   actor: Actor,
@@ -289,12 +301,15 @@ export async function decideRevision(
     const [rev] = await tx.select().from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
     if (!rev) return { ok: false, reason: "not-found" } as const;
     if (rev.issuedById === actor.userId) return { ok: false, reason: "own-revision" } as const;
+    // Four eyes: nobody who wrote the revision decides on it, whoever pressed "issue".
+    if (rev.editorIds.includes(actor.userId)) return { ok: false, reason: "draft-editor" } as const;
     const inserted = await tx.execute<{ id: string }>(sql`
       INSERT INTO ${revisionDecisions} (revision_id, outcome, note, decided_by_id)
       SELECT r.id, ${decision.outcome}, ${decision.note}, ${actor.userId}::uuid
       FROM ${revisions} r
       WHERE r.id = ${revisionId}::uuid
         AND r.issued_by_id <> ${actor.userId}::uuid
+        AND NOT (${actor.userId}::uuid = ANY(r.editor_ids))
         AND NOT EXISTS (SELECT 1 FROM ${revisions} later WHERE later.foundation_id = r.foundation_id AND later.sequence > r.sequence)
       ON CONFLICT (revision_id) DO NOTHING
       RETURNING id`);
@@ -472,6 +487,8 @@ export async function createSeedRevision(args: {
   input: AnalysisInput;
   issuedById: string;
   issuedAt: Date;
+  /** Who edited the draft before this revision (the demo's designer). */
+  editorIds?: string[];
   vendorSubmissionId?: string | null;
   decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
   comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
@@ -494,6 +511,7 @@ export async function createSeedRevision(args: {
         vendorSubmissionId: args.vendorSubmissionId ?? null,
         issuedById: args.issuedById,
         issuedAt: args.issuedAt,
+        editorIds: args.editorIds ?? [],
         createdAt: args.issuedAt,
         updatedAt: args.issuedAt,
       })

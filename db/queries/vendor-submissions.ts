@@ -17,6 +17,7 @@ import type { MachineInput } from "@/modules/calc/schema";
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows } from "@/modules/platform/permissions";
 import { recordAuditEvent } from "./audit";
+import { draftEditorsWith } from "./drafts";
 import { isUniqueViolation } from "./errors";
 import { storeFile } from "./files";
 import { getMembership, type Actor } from "./projects";
@@ -159,7 +160,15 @@ export async function acceptVendorSubmission(actor: Actor, projectId: string, su
       }
       const saved = await tx
         .update(foundationDrafts)
-        .set({ input: parsed.input, vendorSubmissionId: target.submission.id, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, updatedAt: new Date() })
+        .set({
+          input: parsed.input,
+          vendorSubmissionId: target.submission.id,
+          version: sql`${foundationDrafts.version} + 1`,
+          updatedById: actor.userId,
+          // Taking vendor data in writes the draft: the one who did it is among its editors.
+          editorIds: draftEditorsWith(actor.userId),
+          updatedAt: new Date(),
+        })
         .where(and(eq(foundationDrafts.id, draft.id), eq(foundationDrafts.version, expectedDraftVersion)))
         .returning({ version: foundationDrafts.version });
       const draftVersion = saved[0]?.version;

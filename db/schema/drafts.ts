@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { integer, jsonb, pgTable, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./accounts";
 import { foundations } from "./projects";
@@ -17,6 +18,11 @@ export const foundationDrafts = pgTable("foundation_drafts", {
   // The vendor submission this draft's machine data came from.
   vendorSubmissionId: uuid("vendor_submission_id").references(() => vendorSubmissions.id, { onDelete: "set null" }),
   updatedById: uuid("updated_by_id").references(() => users.id, { onDelete: "set null" }),
+  // Everyone who changed the draft since the last revision was issued (saves, a vendor
+  // submission taken in); issuing copies the set into the revision and empties it, so the
+  // four-eyes rule can refuse a decision by anyone who wrote the revision, not just its issuer.
+  // An array, not a link table: it is read and replaced whole, always with the draft row.
+  editorIds: uuid("editor_ids").array().notNull().default(sql`'{}'::uuid[]`),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });

@@ -37,6 +37,10 @@ export const revisions = pgTable(
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
     issuedAt: timestamp("issued_at", { withTimezone: true }).notNull().defaultNow(),
+    // Who edited the draft between the previous revision and this one (the draft's editor
+    // set at issue). With the issuer, these are the revision's authors: none may decide on it.
+    // Users are never deleted while they have revisions (issued_by_id restricts it).
+    editorIds: uuid("editor_ids").array().notNull().default(sql`'{}'::uuid[]`),
     ...stamps,
   },
   (t) => [

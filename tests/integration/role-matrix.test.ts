@@ -6,7 +6,14 @@ import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { actionRegistry } from "@/app/_lib/action";
+import { inviteMember } from "@/app/_lib/accounts-service";
+import { hashPassword } from "@/app/_lib/passwords";
+import { inviteMemberAction } from "@/app/(desk)/actions";
+import { sendDataRequestAction, submitMachineFormAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
 import { closeDb } from "@/db/client";
+import { createUser, getUserByEmail } from "@/db/queries/accounts";
+import { getMembership } from "@/db/queries/projects";
+import { demoRequest } from "./matrix/vendor";
 import { callAction, callRoute, cookieFor, getFixture, matrixRoles, type Fixture } from "./support/fixture";
 import type { ActionCase, RouteCase } from "./support/matrix-types";
 
@@ -111,5 +118,88 @@ describe("server actions", () => {
       }
     }
     expect(problems).toEqual([]);
+  });
+});
+
+// Issue 19, item 2: a data request's "new contact" once added any existing account as a
+// vendor of any typed company, so a designer could hand an outsider Corvane Pumps' data.
+// Only managers add members, through inviteMember and its one members.manage check.
+describe("members are added by managers only, through the invitation", () => {
+  const outsiderEmail = "outsider@elsewhere.test";
+  const outsiderMembership = () => getMembership({ userId: fx.userIds.outsider, isAdmin: false }, fx.projectId);
+
+  it("a designer cannot add a member by any path: the invite action, the members API, a data request or the service itself", async () => {
+    const asVendorOfCorvane = { projectId: fx.projectId, email: outsiderEmail, name: "Olu Outsider", role: "vendor", company: "Corvane Pumps" };
+    const invited = await callAction(inviteMemberAction, asVendorOfCorvane, fx.cookies.designer);
+    expect(invited.state.ok ? "allowed" : invited.state.code).toBe("forbidden");
+
+    const posted = await callRoute("v1/projects/[projectId]/members", "POST", { projectId: fx.projectId }, { cookie: fx.cookies.designer, body: asVendorOfCorvane });
+    expect(posted.status).toBe(403);
+
+    const foundationId = fx.foundationIds[0] ?? "";
+    const request = { projectId: fx.projectId, foundationId, contact: "new", newEmail: outsiderEmail, newName: "Olu Outsider", newCompany: "Corvane Pumps", machineNames: "Raw-water pump" };
+    const sent = await callAction(sendDataRequestAction, request, fx.cookies.designer);
+    expect(sent.state.ok ? "allowed" : sent.state.code).toBe("forbidden");
+    if (!sent.state.ok) expect(sent.state.message).toMatch(/manager/);
+
+    // A brand-new address is no different: no account is made a member.
+    const freshEmail = `designer-adds-${Date.now()}@elsewhere.test`;
+    const fresh = await callAction(sendDataRequestAction, { ...request, newEmail: freshEmail, newName: "Nobody Yet" }, fx.cookies.designer);
+    expect(fresh.state.ok ? "allowed" : fresh.state.code).toBe("forbidden");
+    const freshUser = await getUserByEmail(freshEmail);
+    if (freshUser) expect(await getMembership({ userId: freshUser.id, isAdmin: false }, fx.projectId)).toBeUndefined();
+
+    // Picking a non-member as if they were a vendor contact is refused as well.
+    const picked = await callAction(sendDataRequestAction, { ...request, contact: `member:${fx.userIds.outsider}` }, fx.cookies.designer);
+    expect(picked.state.ok).toBe(false);
+
+    await expect(inviteMember({ userId: fx.userIds.designer, isAdmin: false }, { projectId: fx.projectId, email: outsiderEmail, name: "Olu Outsider", role: "vendor", company: "Corvane Pumps" })).rejects.toMatchObject({ code: "forbidden" });
+    expect(await outsiderMembership()).toBeUndefined();
+  });
+
+  it("an outsider is never given vendor access by a data request: Corvane's request, submissions and files stay closed to them", async () => {
+    const d = await demoRequest(fx);
+    await callAction(
+      sendDataRequestAction,
+      { projectId: fx.projectId, foundationId: fx.foundationIds[0] ?? "", contact: "new", newEmail: outsiderEmail, newName: "Olu Outsider", newCompany: "Corvane Pumps", machineNames: "Raw-water pump" },
+      fx.cookies.designer,
+    );
+    expect(await outsiderMembership()).toBeUndefined();
+    const params = { projectId: d.projectId, requestId: d.requestId };
+    const reads = [
+      await callRoute("v1/projects/[projectId]/requests", "GET", { projectId: d.projectId }, { cookie: fx.cookies.outsider }),
+      await callRoute("v1/projects/[projectId]/requests/[requestId]", "GET", params, { cookie: fx.cookies.outsider }),
+      await callRoute("v1/projects/[projectId]/files/[fileId]", "GET", { projectId: d.projectId, fileId: d.latestFileId }, { cookie: fx.cookies.outsider }),
+    ];
+    expect(reads.map((r) => r.status)).toEqual([403, 403, 403]);
+    const submitted = await callAction(submitMachineFormAction, { projectId: d.projectId, requestId: d.requestId, machines: "[]" }, fx.cookies.outsider);
+    expect(submitted.state.ok ? "allowed" : submitted.state.code).toBe("forbidden");
+  });
+
+  it("a vendor of company B cannot read company A's requests, submissions or files, nor submit as A", async () => {
+    const d = await demoRequest(fx);
+    const email = `vendor-b-${Date.now()}@other-machines.test`;
+    const user = await createUser({ email, name: "Bea Other", passwordHash: await hashPassword("a-long-password-1") });
+    const added = await callAction(inviteMemberAction, { projectId: fx.projectId, email, name: "Bea Other", role: "vendor", company: `Other Machines ${Date.now()}` }, fx.cookies.manager);
+    expect(added.state.ok).toBe(true);
+    const cookie = await cookieFor(user.id);
+    const list = await callRoute("v1/projects/[projectId]/requests", "GET", { projectId: d.projectId }, { cookie });
+    expect(list.status).toBe(200);
+    const listed = await list.text();
+    expect(listed).not.toContain(d.requestId);
+    expect(listed).not.toContain("Corvane");
+    const params = { projectId: d.projectId, requestId: d.requestId };
+    const closed = [
+      await callRoute("v1/projects/[projectId]/requests/[requestId]", "GET", params, { cookie }),
+      await callRoute("v1/projects/[projectId]/requests/[requestId]/workbook", "GET", params, { cookie }),
+      await callRoute("v1/projects/[projectId]/files/[fileId]", "GET", { projectId: d.projectId, fileId: d.latestFileId }, { cookie }),
+    ];
+    for (const res of closed) {
+      expect([403, 404]).toContain(res.status);
+      expect(await res.text()).not.toContain("Corvane");
+    }
+    const submitted = await callAction(submitMachineFormAction, { projectId: d.projectId, requestId: d.requestId, machines: "[]" }, cookie);
+    expect(submitted.state.ok).toBe(false);
+    if (!submitted.state.ok) expect(["not_found", "forbidden"]).toContain(submitted.state.code);
   });
 });

@@ -108,13 +108,13 @@ describe("a data request", () => {
     expect(mail.text).toContain(`/projects/${fx.projectId}/requests/${requestId}`);
   });
 
-  it("invites a new contact by e-mail as a vendor of their company", async () => {
+  it("lets a manager invite a new contact by e-mail as a vendor of their company (the manager's invitation)", async () => {
     const email = `new-contact-${stamp}@brisk-motors.test`;
-    const { state } = await callAction(
-      sendDataRequestAction,
-      { projectId: fx.projectId, foundationId, contact: "new", newEmail: email, newName: "Nia Contact", newCompany: `Brisk Motors ${stamp}`, machineNames: "Extra motor" },
-      fx.cookies.designer,
-    );
+    const fields = { projectId: fx.projectId, foundationId, contact: "new", newEmail: email, newName: "Nia Contact", newCompany: `Brisk Motors ${stamp}`, machineNames: "Extra motor" };
+    // A designer may address only vendors already on the project: adding one is the manager's.
+    const byDesigner = await callAction(sendDataRequestAction, fields, fx.cookies.designer);
+    expect(byDesigner.state.ok ? "allowed" : byDesigner.state.code).toBe("forbidden");
+    const { state } = await callAction(sendDataRequestAction, fields, fx.cookies.manager);
     expect(state.ok).toBe(true);
     const invitation = await waitForEmail(email, "you are invited");
     expect(linkToken(invitation.text, "invite")).toMatch(/.{20,}/);

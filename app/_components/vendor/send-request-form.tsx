@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useActionState, useState } from "react";
 import { FormMessage, SubmitButton, TextField, fieldErrorsOf, type FormState } from "../form-kit";
 import type { ServerAction } from "../../_lib/action";
@@ -18,11 +19,36 @@ export interface ContactChoiceView {
   label: string;
 }
 
-/** The designer's request: a foundation, its machines, and a vendor contact (existing or new). */
-export function SendRequestForm({ projectId, foundations, contacts, action }: { projectId: string; foundations: FoundationChoice[]; contacts: ContactChoiceView[]; action: AnyAction }) {
+/**
+ * The designer's request: a foundation, its machines, and a vendor member of the project.
+ * Only a manager (mayInvite) may name a new contact, who is then invited as a member; the
+ * action checks that itself, the missing option only saves a designer a refusal.
+ */
+export function SendRequestForm({
+  projectId,
+  foundations,
+  contacts,
+  mayInvite,
+  teamHref,
+  action,
+}: {
+  projectId: string;
+  foundations: FoundationChoice[];
+  contacts: ContactChoiceView[];
+  mayInvite: boolean;
+  teamHref: string;
+  action: AnyAction;
+}) {
   const [state, formAction] = useActionState(action as (s: FormState, f: FormData) => Promise<FormState>, null);
   const [foundationId, setFoundationId] = useState(foundations[0]?.id ?? "");
-  const [contact, setContact] = useState(contacts[0] ? `member:${contacts[0].userId}` : "new");
+  const [contact, setContact] = useState(contacts[0] ? `member:${contacts[0].userId}` : mayInvite ? "new" : "");
+  if (!mayInvite && contacts.length === 0) {
+    return (
+      <p className="text-sm text-basalt-500" data-testid="no-vendor-contacts">
+        No vendor is on this project yet. The project&apos;s manager invites vendor contacts on the <Link href={teamHref}>Team</Link> page; they then appear here.
+      </p>
+    );
+  }
   const machines = foundations.find((f) => f.id === foundationId)?.machineNames.join("\n") ?? "";
   return (
     <form action={formAction} className="space-y-3" data-testid="send-request-form">
@@ -46,8 +72,9 @@ export function SendRequestForm({ projectId, foundations, contacts, action }: { 
                 {c.label}
               </option>
             ))}
-            <option value="new">New contact (invite by e-mail)…</option>
+            {mayInvite ? <option value="new">New contact (invite by e-mail as a member)…</option> : null}
           </select>
+          {mayInvite ? null : <span className="text-2xs text-basalt-400">Someone else? The project&apos;s manager invites vendor contacts on the Team page.</span>}
         </label>
       </div>
       {contact === "new" ? (

@@ -73,6 +73,22 @@ export const actionCases: ActionCase[] = [
     fields: async (fx) => ({ projectId: fx.projectId, foundationId: fx.foundationIds[0] ?? "", contact: `member:${fx.userIds.vendor}`, machineNames: "" }),
   },
   {
+    // A request to a new contact adds a member, so it is the manager's invitation: a
+    // designer, who may send requests to vendor members, is refused here.
+    name: "vendor.sendRequest",
+    action: sendDataRequestAction,
+    allowed: ["manager"],
+    fields: async (fx, role) => ({
+      projectId: fx.projectId,
+      foundationId: fx.foundationIds[0] ?? "",
+      contact: "new",
+      newEmail: `matrix-contact-${role}-${Date.now()}@matrix-vendor.test`,
+      newName: "Matrix Contact",
+      newCompany: `Matrix Vendor ${role}`,
+      machineNames: "Matrix pump",
+    }),
+  },
+  {
     name: "vendor.submitForm",
     action: submitMachineFormAction,
     allowed: answerers,

@@ -72,6 +72,8 @@ export default async function RequestsPage({ params }: { params: Promise<{ proje
             projectId={projectId}
             foundations={foundations.map((f) => ({ id: f.id, tag: f.tag, machineNames: (f.input?.machines ?? []).map((m) => m.name) }))}
             contacts={contacts.map((c) => ({ userId: c.userId, label: `${c.name} (${c.companyName})` }))}
+            mayInvite={roleAllows(role, "members.manage")}
+            teamHref={`/projects/${projectId}/members`}
             action={sendDataRequestAction}
           />
         </section>

@@ -6,7 +6,7 @@ import { AppError } from "@/modules/platform/errors";
 import type { MachineInput } from "@/modules/calc/schema";
 import { getPublicUser, getUserByEmail } from "@/db/queries/accounts";
 import { getDraft } from "@/db/queries/drafts";
-import { getMembership, getOrCreateCompany, getProjectForMember, type Actor } from "@/db/queries/projects";
+import { getMembership, getProjectForMember, type Actor } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { createVendorRequest, getVendorRequest, listVendorContacts, type RequestedMachine } from "@/db/queries/vendor-requests";
 import { acceptVendorSubmission, createVendorSubmission, returnVendorSubmission, type NewSubmission } from "@/db/queries/vendor-submissions";
@@ -32,9 +32,20 @@ export interface SendRequestInput {
   dueOn: string | null;
 }
 
-/** The vendor contact's user id: an existing vendor member, or a new contact invited as a vendor of their company. */
+/**
+ * The vendor contact's user id. A vendor member of the project is picked as is. A new
+ * contact is a new member, so it goes through the manager's invitation (inviteMember, the
+ * one path that adds members, with its one members.manage check): a designer may only
+ * address vendors already on the project, and a data request never grants access itself.
+ */
 async function resolveContact(actor: Actor, projectId: string, contact: ContactChoice): Promise<string> {
-  if (contact.kind === "member") return contact.userId;
+  const contacts = await listVendorContacts(actor, projectId);
+  if (contact.kind === "member") {
+    if (!contacts.some((c) => c.userId === contact.userId)) {
+      throw new AppError("invalid_input", "Choose a vendor contact of this project.", [{ path: "contact", message: "not a vendor of this project" }]);
+    }
+    return contact.userId;
+  }
   const existing = await getUserByEmail(contact.email);
   if (existing) {
     const membership = await getMembership({ userId: existing.id, isAdmin: false }, projectId);
@@ -42,14 +53,14 @@ async function resolveContact(actor: Actor, projectId: string, contact: ContactC
       throw new AppError("invalid_input", `${contact.email} is already on this project as ${membership.role}; a data request goes to a vendor.`, [{ path: "newEmail", message: "already a member with another role" }]);
     }
     if (membership) {
-      const companyId = await getOrCreateCompany(contact.company);
-      if (membership.companyId !== companyId) {
-        throw new AppError("invalid_input", `${contact.email} is a vendor of another company on this project.`, [{ path: "newCompany", message: "the contact belongs to another company" }]);
-      }
+      // Already a vendor member: the same as picking them, provided the company typed is theirs.
+      const same = contacts.find((c) => c.userId === existing.id && c.companyName.trim().toLowerCase() === contact.company.trim().toLowerCase());
+      if (!same) throw new AppError("invalid_input", `${contact.email} is a vendor of another company on this project.`, [{ path: "newCompany", message: "the contact belongs to another company" }]);
       return existing.id;
     }
   }
-  // Invitation e-mail with a one-time link when the account has no password yet.
+  // Not a member yet: the manager's invitation (refused for everyone but managers), with an
+  // invitation e-mail and one-time link when the account has no password yet.
   const invited = await inviteMember(actor, { projectId, email: contact.email, name: contact.name, role: "vendor", company: contact.company });
   return invited.userId;
 }
@@ -60,12 +71,6 @@ export async function sendDataRequest(actor: Actor, projectId: string, input: Se
   if (!draft) throw new AppError("invalid_input", "That foundation is not in this project.", [{ path: "foundationId", message: "not a foundation of this project" }]);
   const held = draft.input?.machines ?? [];
   const machines: RequestedMachine[] = input.machineNames.map((name) => ({ name, values: held.find((m) => m.name === name) ?? null }));
-  if (input.contact.kind === "member") {
-    const contacts = await listVendorContacts(actor, projectId);
-    if (!contacts.some((c) => c.userId === (input.contact as { userId: string }).userId)) {
-      throw new AppError("invalid_input", "Choose a vendor contact of this project.", [{ path: "contact", message: "not a vendor of this project" }]);
-    }
-  }
   const contactUserId = await resolveContact(actor, projectId, input.contact);
   const row = await createVendorRequest(actor, projectId, { foundationId: input.foundationId, contactUserId, message: input.message, dueOn: input.dueOn, machines });
   const detail = await getVendorRequest(actor, projectId, row.id);

@@ -84,6 +84,8 @@ export async function decideOnRevision(
         throw new AppError("not_found", "That revision is not on this foundation.");
       case "own-revision":
         throw new AppError("forbidden", "You issued this revision; someone else must return or approve it.");
+      case "draft-editor":
+        throw new AppError("forbidden", "You edited the draft of this revision, so you are one of its authors; four eyes: someone who did not write it must return or approve it.");
       case "superseded":
         throw new AppError("conflict", "A later revision has been issued; decide on that one instead.");
       case "already-decided":

@@ -25,7 +25,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   const [comments, all] = await Promise.all([listRevisionComments(actor, projectId, foundationId, revisionId), listRevisions(actor, projectId, foundationId)]);
   const previous = all.filter((r) => r.sequence < revision.sequence).at(-1);
   const mayComment = roleAllows(role, "revision.comment");
-  const mayDecide = roleAllows(role, "revision.decide") && revision.status === "in-check" && revision.issuedById !== user.id;
+  // Four eyes: neither the issuer nor anyone who edited the draft (decideRevision refuses them too).
+  const wroteIt = revision.issuedById === user.id || revision.editors.some((e) => e.id === user.id);
+  const mayDecide = roleAllows(role, "revision.decide") && revision.status === "in-check" && !wroteIt;
   const threads = (comments ?? []).filter((c) => !c.parentId);
   const answersOf = (c: RevisionComment) => (comments ?? []).filter((a) => a.parentId === c.id);
   const fieldPaths = listLeafPaths(revision.input).map((p) => p.path);
@@ -62,7 +64,18 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
             <dt className="inline font-semibold">Vendor submission </dt>
             <dd className="inline font-mono">{revision.vendorSubmissionId ?? "none recorded"}</dd>
           </div>
+          <div className="sm:col-span-3">
+            <dt className="inline font-semibold">Draft edited by </dt>
+            <dd className="inline" data-testid="revision-editors">
+              {revision.editors.length ? revision.editors.map((e) => e.name).join(", ") : "none recorded"}
+            </dd>
+          </div>
         </dl>
+        {wroteIt && roleAllows(role, "revision.decide") && revision.status === "in-check" ? (
+          <p className="mt-2 text-xs text-basalt-500" data-testid="four-eyes-note">
+            You wrote this revision (issued it or edited its draft), so someone else returns or approves it.
+          </p>
+        ) : null}
         {revision.decision?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">“{revision.decision.note}”</p> : null}
         {roleAllows(role, "package.export") ? (
           <p className="mt-3">

@@ -1,0 +1,2 @@
+ALTER TABLE "foundation_drafts" ADD COLUMN "editor_ids" uuid[] DEFAULT '{}'::uuid[] NOT NULL;--> statement-breakpoint
+ALTER TABLE "revisions" ADD COLUMN "editor_ids" uuid[] DEFAULT '{}'::uuid[] NOT NULL;
