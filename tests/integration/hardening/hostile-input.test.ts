@@ -22,7 +22,7 @@ import {
 } from "@/app/(desk)/actions";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { acceptSubmissionAction, returnSubmissionAction, sendDataRequestAction, submitMachineFormAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
-import { cookieFor, getFixture, makeRequest, type ActionFn, type Fixture } from "../support/fixture";
+import { cookieFor, getFixture, makeRequest, peer, type ActionFn, type Fixture } from "../support/fixture";
 import { callRouteAt, errorOf, scanStoredNumbers, Tally } from "../support/hardening-helpers";
 import { createHardeningProject, type HardeningProject } from "../support/hardening-project";
 import { sampleAnalysisInput } from "../analysis-input-sample";
@@ -279,7 +279,7 @@ describe("route handlers under hostile bodies", () => {
       fc.asyncProperty(bodyOf(base), async (body) => {
         caseNo += 1;
         // Each case from its own address, so the fuzz never throttles the address other tests use.
-        const headers = { "x-forwarded-for": `10.77.${Math.floor(caseNo / 250)}.${caseNo % 250}` };
+        const headers = peer(`10.77.${Math.floor(caseNo / 250)}.${caseNo % 250}`);
         const res = await callRouteAt("v1/session", "POST", {}, { body, headers });
         await expectClean(res, [200, 400, 401, 413, 429], tally, `session ${body.slice(0, 120)}`);
       }),
