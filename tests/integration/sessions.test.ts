@@ -9,6 +9,7 @@ import { hashPassword } from "@/app/_lib/passwords";
 import { closeDb, getDb } from "@/db/client";
 import { createUser } from "@/db/queries/accounts";
 import { sessions } from "@/db/schema";
+import { getServerEnv } from "@/modules/platform/env";
 import { callAction, callRoute, makeRequest, peer, sessionCookieFrom } from "./support/fixture";
 
 const email = `session-${Date.now()}@example.test`;
@@ -114,5 +115,27 @@ describe("API sign-in for scripts", () => {
     expect(bad.status).toBe(400);
     const j = (await bad.json()) as { error: { issues: { path: string }[] } };
     expect(j.error.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["email", "password"]));
+  });
+});
+
+describe("where sign-in sends you (the next parameter)", () => {
+  const forms: [string, string][] = [
+    ["//evil.test", "/"],
+    ["/\\evil.test", "/"],
+    ["/\\/evil.test", "/"],
+    ["\\\\evil.test", "/"],
+    ["/%5Cevil.test", "/"],
+    ["/%2F%2Fevil.test", "/"],
+    ["https://evil.test", "/"],
+    ["javascript:alert(1)", "/"],
+    ["/\t/evil.test", "/"],
+    ["/..//evil.test", "/evil.test"],
+    [new URL("/projects", getServerEnv().APP_URL).toString(), "/projects"],
+    ["/projects?tab=team", "/projects?tab=team"],
+  ];
+  it.each(forms)("next=%j goes to %j", async (next, expected) => {
+    const { state } = await callAction(signInAction, { email, password, next }, null);
+    expect(state.ok).toBe(true);
+    if (state.ok) expect((state.data as { next: string }).next).toBe(expected);
   });
 });

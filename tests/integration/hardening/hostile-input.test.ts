@@ -22,7 +22,7 @@ import {
 } from "@/app/(desk)/actions";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { acceptSubmissionAction, returnSubmissionAction, sendDataRequestAction, submitMachineFormAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
-import { cookieFor, getFixture, makeRequest, peer, type ActionFn, type Fixture } from "../support/fixture";
+import { cookieFor, freshPeer, getFixture, makeRequest, type ActionFn, type Fixture } from "../support/fixture";
 import { callRouteAt, errorOf, scanStoredNumbers, Tally } from "../support/hardening-helpers";
 import { createHardeningProject, type HardeningProject } from "../support/hardening-project";
 import { sampleAnalysisInput } from "../analysis-input-sample";
@@ -155,7 +155,6 @@ let fx: Fixture;
 let hx: HardeningProject;
 let fuzzEmail: string;
 const fuzzPassword = "hardening-fuzz-password";
-let caseNo = 0;
 const figures: string[] = [];
 
 beforeAll(async () => {
@@ -277,9 +276,8 @@ describe("route handlers under hostile bodies", () => {
     const base = () => ({ email: fuzzEmail, password: fuzzPassword });
     await fc.assert(
       fc.asyncProperty(bodyOf(base), async (body) => {
-        caseNo += 1;
         // Each case from its own address, so the fuzz never throttles the address other tests use.
-        const headers = peer(`10.77.${Math.floor(caseNo / 250)}.${caseNo % 250}`);
+        const headers = freshPeer();
         const res = await callRouteAt("v1/session", "POST", {}, { body, headers });
         await expectClean(res, [200, 400, 401, 413, 429], tally, `session ${body.slice(0, 120)}`);
       }),
@@ -347,8 +345,8 @@ const cleanCodes = ["invalid_input", "unauthenticated", "forbidden", "not_found"
 
 describe("every server action under hostile form fields", () => {
   const cases: ActionFuzz[] = [
-    { name: "auth.signIn", action: signInAction, base: async () => ({ email: fuzzEmail, password: fuzzPassword, next: "/" }), cookie: async () => null, headers: () => ({ "x-forwarded-for": `10.78.${Math.floor((caseNo += 1) / 250)}.${caseNo % 250}` }) },
-    { name: "auth.forgotPassword", action: forgotPasswordAction, base: async () => ({ email: fuzzEmail }), cookie: async () => null },
+    { name: "auth.signIn", action: signInAction, base: async () => ({ email: fuzzEmail, password: fuzzPassword, next: "/" }), cookie: async () => null, headers: () => freshPeer() },
+    { name: "auth.forgotPassword", action: forgotPasswordAction, base: async () => ({ email: fuzzEmail }), cookie: async () => null, headers: () => freshPeer() },
     { name: "auth.resetPassword", action: resetPasswordAction, base: async () => ({ token: "not-a-real-token-xxxxxxxx", password: "a-long-password-1", confirm: "a-long-password-1" }), cookie: async () => null },
     { name: "auth.acceptInvitation", action: acceptInvitationAction, base: async () => ({ token: "not-a-real-token-xxxxxxxx", name: "X", password: "a-long-password-1", confirm: "a-long-password-1" }), cookie: async () => null },
     { name: "auth.signOut", action: signOutAction, base: async () => ({}), cookie: async () => cookieFor((await getFixture()).userIds.outsider) },

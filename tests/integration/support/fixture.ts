@@ -14,6 +14,13 @@ import { installPeerAddressHook, PEER_ADDRESS_HEADER } from "@/app/_lib/client-a
 // trusted, so a test names the socket address of its request with `peer(address)`.
 installPeerAddressHook();
 export const peer = (address: string): Record<string, string> => ({ [PEER_ADDRESS_HEADER]: address });
+// A socket address no other request of any run within the throttling window has used
+// (documentation and private ranges are plenty), for tests where the address does not matter.
+let peerCounter = Math.floor(Date.now() / 1000) % 1_000_000;
+export const freshPeer = (): Record<string, string> => {
+  peerCounter += 1;
+  return peer(`fd00::${(peerCounter >> 16).toString(16)}:${(peerCounter & 0xffff).toString(16)}`);
+};
 
 export type MatrixRole = ProjectRole | "admin" | "outsider" | "anonymous";
 export const matrixRoles: MatrixRole[] = ["anonymous", "outsider", "admin", "manager", "designer", "checker", "vendor", "viewer"];
