@@ -9,7 +9,9 @@ import { clientAddressOf } from "@/app/_lib/client-address";
 import { portFromRequest } from "@/app/_lib/request-context";
 import { hashPassword } from "@/app/_lib/passwords";
 import { resetMailIdle } from "@/app/_lib/reset-mail";
-import { closeDb } from "@/db/client";
+import { eq } from "drizzle-orm";
+import { closeDb, getDb } from "@/db/client";
+import { signInFailures } from "@/db/schema";
 import { createUser } from "@/db/queries/accounts";
 import { resetServerEnvForTests } from "@/modules/platform/env";
 import { callAction, makeRequest, peer } from "./support/fixture";
@@ -45,13 +47,18 @@ describe("the client address", () => {
     }
   });
 
-  it("with TRUST_PROXY=1 takes the entry the proxy appended (the last), not the client's first one", () => {
+  it("with TRUST_PROXY=1 counts the entry the proxy appended (the last), not the client's first one", async () => {
     const saved = process.env.TRUST_PROXY;
+    const email = `proxied-${stamp}@example.test`;
     try {
       process.env.TRUST_PROXY = "1";
       resetServerEnvForTests();
+      const r = await callAction(signInAction, { email, password: "guess" }, null, { ...peer("10.0.0.2"), "x-forwarded-for": `6.6.6.6, 203.0.113.${stamp % 250}` });
+      expect(r.state.ok).toBe(false);
+      const rows = await getDb().select().from(signInFailures).where(eq(signInFailures.email, email));
+      expect(rows.map((x) => x.clientAddress)).toEqual([`203.0.113.${stamp % 250}`]);
+      // Two proxies: the entry the outer one appended; none: the socket.
       const port = portFromRequest(makeRequest("POST", "/", { headers: { ...peer("10.0.0.2"), "x-forwarded-for": "6.6.6.6, 203.0.113.9" } }));
-      expect(clientAddressOf(port)).toBe("203.0.113.9");
       process.env.TRUST_PROXY = "2";
       resetServerEnvForTests();
       expect(clientAddressOf(port)).toBe("6.6.6.6");
