@@ -7,12 +7,11 @@ import {
   resetPasswordSchema,
   signInSchema,
 } from "@/modules/platform/account-schemas";
+import { getServerEnv } from "@/modules/platform/env";
+import { safeRedirectPath } from "@/modules/platform/redirects";
 import { defineAction } from "../_lib/action";
 import { acceptInvitation, requestPasswordReset, resetPassword, signIn } from "../_lib/accounts-service";
 
-function safeNext(next: string | undefined): string {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : "/";
-}
 
 export const signInAction = defineAction({
   name: "auth.signIn",
@@ -20,7 +19,7 @@ export const signInAction = defineAction({
   schema: signInSchema,
   handler: async (ctx, input) => {
     const user = await signIn(ctx.port, input.email, input.password);
-    return { userId: user.id, next: safeNext(input.next) };
+    return { userId: user.id, next: safeRedirectPath(input.next, getServerEnv().APP_URL) };
   },
   redirectTo: (data) => data.next,
 });
@@ -29,8 +28,8 @@ export const forgotPasswordAction = defineAction({
   name: "auth.forgotPassword",
   access: { kind: "public" },
   schema: forgotPasswordSchema,
-  handler: async (_ctx, input) => {
-    await requestPasswordReset(input.email);
+  handler: async (ctx, input) => {
+    await requestPasswordReset(ctx.port, input.email);
     return { sent: true };
   },
 });

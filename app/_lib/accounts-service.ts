@@ -1,102 +1,100 @@
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows, roleLabels, type ProjectRole } from "@/modules/platform/permissions";
-import { getServerEnv } from "@/modules/platform/env";
 import {
   clearSignInFailures,
   consumeToken,
   countRecentFailures,
+  countRecentResetRequests,
   createOneTimeToken,
+  createResetRequest,
   createUser,
+  getLiveToken,
   getPublicUser,
   getUserByEmail,
+  isKnownSignInAddress,
   recordSignInFailure,
+  rememberSignInAddress,
   revokeUserSessions,
+  revokeUserTokens,
   setUserPassword,
+  setUserPasswordIfUnset,
+  userHasPassword,
   type PublicUser,
 } from "@/db/queries/accounts";
+import { describeWait, judgeSignInAttempt, THROTTLE_WINDOW_MS } from "@/modules/platform/sign-in-throttle";
 import { getOrCreateCompany, getProjectForMember, upsertMember, type Actor } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
 import { getDummyHash, hashPassword, verifyPassword } from "./passwords";
 import { appUrl, sendEmail } from "./mailer";
+import { kickResetMail } from "./reset-mail";
 import { startSession } from "./session";
 import type { RequestPort } from "./request-context";
+import { clientAddressOf } from "./client-address";
 
-export const THROTTLE_WINDOW_MS = 15 * 60 * 1000;
-export const MAX_FAILURES_PER_ACCOUNT = 5;
-export const MAX_FAILURES_PER_ADDRESS = 25;
-export const RESET_TTL_MS = 60 * 60 * 1000;
+export { MAX_FAILURES_PER_ADDRESS, PAIR_FREE_FAILURES, ACCOUNT_FREE_FAILURES, THROTTLE_WINDOW_MS } from "@/modules/platform/sign-in-throttle";
 export const INVITATION_TTL_MS = 7 * 24 * 60 * 60 * 1000;
-
-/** The client's address: the nearest proxy's view, or the first hop when TRUST_PROXY=1. */
-export function clientAddressOf(port: RequestPort): string {
-  const fwd = port.getHeader("x-forwarded-for");
-  if (fwd) {
-    const hops = fwd.split(",").map((h) => h.trim()).filter(Boolean);
-    const pick = getServerEnv().TRUST_PROXY === "1" ? hops[0] : hops[hops.length - 1];
-    if (pick) return pick.slice(0, 64);
-  }
-  return port.getHeader("x-real-ip")?.slice(0, 64) ?? "direct";
-}
-
-function minutesUntil(oldest: Date | null): number {
-  if (!oldest) return Math.ceil(THROTTLE_WINDOW_MS / 60000);
-  return Math.max(1, Math.ceil((oldest.getTime() + THROTTLE_WINDOW_MS - Date.now()) / 60000));
-}
+export { RESET_TTL_MS } from "./reset-mail";
+// Forgot-password: per address and per target account (known or not, the same answer).
+export const RESET_WINDOW_MS = 15 * 60 * 1000;
+export const MAX_RESETS_PER_ADDRESS = 10;
+export const MAX_RESETS_PER_ACCOUNT = 3;
 
 export async function signIn(port: RequestPort, email: string, password: string): Promise<PublicUser> {
   const address = clientAddressOf(port);
-  const recent = await countRecentFailures(email, address, THROTTLE_WINDOW_MS);
-  if (recent.byAccount >= MAX_FAILURES_PER_ACCOUNT) {
-    throw new AppError(
-      "too_many_requests",
-      `Too many failed sign-ins for this account. Try again in about ${minutesUntil(recent.oldestByAccount)} minutes, or reset your password.`,
-    );
+  const [recent, user] = await Promise.all([countRecentFailures(email, address, THROTTLE_WINDOW_MS), getUserByEmail(email)]);
+  const known = user ? await isKnownSignInAddress(user.id, address) : false;
+  const verdict = judgeSignInAttempt(recent, known, Date.now());
+  if (!verdict.allowed) {
+    const wait = describeWait(verdict.retryAfterMs);
+    const message =
+      verdict.scope === "address"
+        ? `Too many failed sign-ins from your network. Try again in ${wait}.`
+        : `Too many failed sign-ins for this account from here. Try again in ${wait}, or reset your password.`;
+    throw new AppError("too_many_requests", message);
   }
-  if (recent.byAddress >= MAX_FAILURES_PER_ADDRESS) {
-    throw new AppError("too_many_requests", `Too many failed sign-ins from your network. Try again in about ${minutesUntil(recent.oldestByAddress)} minutes.`);
-  }
-  const user = await getUserByEmail(email);
   const ok = await verifyPassword(password, user?.passwordHash ?? getDummyHash());
   if (!user || !user.passwordHash || !ok) {
     await recordSignInFailure(email, address);
     throw new AppError("unauthenticated", "That e-mail and password do not match an account.");
   }
-  await clearSignInFailures(email);
+  // Only this address's failures are forgiven: a guesser elsewhere keeps their delay.
+  await clearSignInFailures(email, address);
+  await rememberSignInAddress(user.id, address);
   await startSession(port, user.id);
   await recordAuditEvent({ actorId: user.id, action: "account.signed-in", detail: { address } });
   return { id: user.id, email: user.email, name: user.name, isAdmin: user.isAdmin, mayCreateProjects: user.mayCreateProjects, unitsPreference: user.unitsPreference };
 }
 
-/** Always answers the same way, whether or not the account exists. */
-export async function requestPasswordReset(email: string): Promise<void> {
-  const user = await getUserByEmail(email);
-  if (!user) return;
-  const token = await createOneTimeToken({ purpose: "password-reset", userId: user.id, ttlMs: RESET_TTL_MS });
-  await sendEmail({
-    to: user.email,
-    subject: "Plinthwise: reset your password",
-    text: [
-      `Hello ${user.name},`,
-      "",
-      "Someone (hopefully you) asked to reset the password of your Plinthwise account.",
-      `Open this link within ${RESET_TTL_MS / 60000} minutes to choose a new one; it works once:`,
-      appUrl(`/reset/${token}`),
-      "",
-      "If you did not ask for this, ignore this message.",
-    ].join("\n"),
-  });
-  await recordAuditEvent({ actorId: user.id, action: "account.reset-requested" });
+/**
+ * Always answers the same way, whether or not the account exists, and in the same time:
+ * the request path only counts and records the request (the same statements either way);
+ * looking the account up, making the link and sending the mail happen after the answer.
+ */
+export async function requestPasswordReset(port: RequestPort, email: string): Promise<void> {
+  const address = clientAddressOf(port);
+  const recent = await countRecentResetRequests(email, address, RESET_WINDOW_MS);
+  if (recent.byAddress >= MAX_RESETS_PER_ADDRESS || recent.byAccount >= MAX_RESETS_PER_ACCOUNT) {
+    throw new AppError("too_many_requests", "Too many password-reset requests. Try again in about 15 minutes, or look for the message already sent.");
+  }
+  await createResetRequest(email, address);
+  kickResetMail();
+}
+
+/** After a password is set: no other reset or invitation link of the account works any more. */
+async function afterPasswordChange(userId: string, email: string): Promise<void> {
+  await revokeUserTokens(userId);
+  await revokeUserSessions(userId);
+  // A fresh password makes earlier guesses moot.
+  await clearSignInFailures(email);
 }
 
 export async function resetPassword(port: RequestPort, token: string, password: string): Promise<PublicUser> {
   const row = await consumeToken("password-reset", token);
   if (!row) throw new AppError("not_found", "This reset link has expired or was already used. Ask for a new one.");
   await setUserPassword(row.userId, await hashPassword(password));
-  await revokeUserSessions(row.userId);
   const user = await getPublicUser(row.userId);
   if (!user) throw new AppError("not_found");
-  // A fresh password lifts the lock on the account.
-  await clearSignInFailures(user.email);
+  await afterPasswordChange(row.userId, user.email);
   await startSession(port, row.userId);
   await recordAuditEvent({ actorId: row.userId, action: "account.password-reset" });
   return user;
@@ -138,10 +136,25 @@ export async function inviteMember(
   return { userId: user.id, memberId };
 }
 
+/**
+ * An invitation sets the password of an account that has none. An account that already
+ * has a password keeps it: the membership was added when the invitation was sent, so the
+ * person signs in as usual (the link is refused and asks for that, and is not used up).
+ */
 export async function acceptInvitation(port: RequestPort, token: string, name: string, password: string): Promise<{ projectId: string | null }> {
+  const live = await getLiveToken("invitation", token);
+  if (live && (await userHasPassword(live.userId))) {
+    throw new AppError("conflict", "This account already has a password: sign in with it to open the project.");
+  }
   const row = await consumeToken("invitation", token);
   if (!row) throw new AppError("not_found", "This invitation link has expired or was already used. Ask the project manager for a new one.");
-  await setUserPassword(row.userId, await hashPassword(password), name);
+  // Atomic against a password set meanwhile (another link, a reset): never overwrite one.
+  if (!(await setUserPasswordIfUnset(row.userId, await hashPassword(password), name))) {
+    throw new AppError("conflict", "This account already has a password: sign in with it to open the project.");
+  }
+  const user = await getPublicUser(row.userId);
+  if (!user) throw new AppError("not_found");
+  await afterPasswordChange(row.userId, user.email);
   await startSession(port, row.userId);
   await recordAuditEvent({ projectId: row.projectId, actorId: row.userId, action: "member.invitation-accepted" });
   return { projectId: row.projectId };

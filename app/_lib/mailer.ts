@@ -2,6 +2,7 @@ import nodemailer, { type Transporter } from "nodemailer";
 import { getServerEnv } from "@/modules/platform/env";
 import { enqueueEmail, listQueuedEmails, markEmailAttemptFailed, markEmailSent } from "@/db/queries/mail";
 import type { OutgoingEmailRow } from "@/db/schema";
+import { redactOneTimeLinks } from "@/modules/platform/mail-redaction";
 
 // Mail goes through nodemailer over SMTP: a real provider when SMTP_URL says so,
 // the local fake server (scripts/fake-smtp.mts) otherwise. Each message is
@@ -24,7 +25,8 @@ function getTransport(): Transporter {
 async function deliver(row: OutgoingEmailRow): Promise<boolean> {
   try {
     await getTransport().sendMail({ from: getServerEnv().MAIL_FROM, to: row.to, subject: row.subject, text: row.text });
-    await markEmailSent(row.id);
+    // The stored copy loses its one-time link once the mail server has the message.
+    await markEmailSent(row.id, redactOneTimeLinks(row.text));
     return true;
   } catch (e) {
     await markEmailAttemptFailed(row, e instanceof Error ? e.message : String(e));
@@ -43,6 +45,12 @@ export async function sendEmail(message: EmailMessage): Promise<{ id: string; se
   const row = await enqueueEmail(message);
   const sent = await deliver(row);
   return { id: row.id, sent };
+}
+
+/** Queues the message only; the queue sends it (see kickEmailQueue and the 15 s timer). */
+export async function queueEmail(message: EmailMessage): Promise<{ id: string }> {
+  const row = await enqueueEmail(message);
+  return { id: row.id };
 }
 
 /** Retries what is still queued (called on a timer by the server and by tests). */

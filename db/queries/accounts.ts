@@ -1,7 +1,7 @@
-import { and, eq, gt, isNull, sql } from "drizzle-orm";
+import { and, eq, gt, isNotNull, isNull, sql } from "drizzle-orm";
 import { createHash, randomBytes } from "node:crypto";
 import { getDb } from "../client";
-import { oneTimeTokens, sessions, signInFailures, users, type UserRow } from "../schema";
+import { knownSignInAddresses, oneTimeTokens, passwordResetRequests, sessions, signInFailures, users, type UserRow } from "../schema";
 
 export type PublicUser = Pick<UserRow, "id" | "email" | "name" | "isAdmin" | "mayCreateProjects" | "unitsPreference">;
 
@@ -55,6 +55,24 @@ export async function setUserPassword(userId: string, passwordHash: string, name
     .update(users)
     .set({ passwordHash, ...(name ? { name } : {}), updatedAt: new Date() })
     .where(eq(users.id, userId));
+}
+
+/**
+ * Sets the password of an account that has none yet (an invitation); false when the
+ * account already has one, which is then left as it is.
+ */
+export async function setUserPasswordIfUnset(userId: string, passwordHash: string, name?: string): Promise<boolean> {
+  const rows = await getDb()
+    .update(users)
+    .set({ passwordHash, ...(name ? { name } : {}), updatedAt: new Date() })
+    .where(and(eq(users.id, userId), isNull(users.passwordHash)))
+    .returning({ id: users.id });
+  return rows.length > 0;
+}
+
+export async function userHasPassword(userId: string): Promise<boolean> {
+  const rows = await getDb().select({ id: users.id }).from(users).where(and(eq(users.id, userId), isNotNull(users.passwordHash))).limit(1);
+  return rows.length > 0;
 }
 
 // ---- sessions -------------------------------------------------------------
@@ -158,34 +176,115 @@ export async function consumeToken(purpose: OneTimeTokenRow["purpose"], token: s
   return rows[0];
 }
 
+/**
+ * Kills every outstanding reset and invitation link of an account (after its password
+ * changed): a link mailed earlier must not set the password again. Returns how many.
+ */
+export async function revokeUserTokens(userId: string): Promise<number> {
+  const now = new Date();
+  const rows = await getDb()
+    .update(oneTimeTokens)
+    .set({ usedAt: now, updatedAt: now })
+    .where(and(eq(oneTimeTokens.userId, userId), isNull(oneTimeTokens.usedAt)))
+    .returning({ id: oneTimeTokens.id });
+  return rows.length;
+}
+
 // ---- sign-in throttling ---------------------------------------------------
 
 export async function recordSignInFailure(email: string, clientAddress: string): Promise<void> {
   await getDb().insert(signInFailures).values({ email: normaliseEmail(email), clientAddress });
 }
 
-export async function countRecentFailures(email: string, clientAddress: string, windowMs: number): Promise<{ byAccount: number; byAddress: number; oldestByAccount: Date | null; oldestByAddress: Date | null }> {
+export interface RecentFailures {
+  byAccount: number;
+  byAddress: number;
+  byPair: number;
+  lastByAccount: Date | null;
+  lastByPair: Date | null;
+  oldestByAddress: Date | null;
+}
+
+export async function countRecentFailures(email: string, clientAddress: string, windowMs: number): Promise<RecentFailures> {
   const since = new Date(Date.now() - windowMs);
+  const e = normaliseEmail(email);
   const rows = await getDb()
     .select({
-      byAccount: sql<number>`count(*) filter (where ${signInFailures.email} = ${normaliseEmail(email)})::int`,
+      byAccount: sql<number>`count(*) filter (where ${signInFailures.email} = ${e})::int`,
       byAddress: sql<number>`count(*) filter (where ${signInFailures.clientAddress} = ${clientAddress})::int`,
-      oldestByAccount: sql<string | null>`min(${signInFailures.createdAt}) filter (where ${signInFailures.email} = ${normaliseEmail(email)})`,
+      byPair: sql<number>`count(*) filter (where ${signInFailures.email} = ${e} and ${signInFailures.clientAddress} = ${clientAddress})::int`,
+      lastByAccount: sql<string | null>`max(${signInFailures.createdAt}) filter (where ${signInFailures.email} = ${e})`,
+      lastByPair: sql<string | null>`max(${signInFailures.createdAt}) filter (where ${signInFailures.email} = ${e} and ${signInFailures.clientAddress} = ${clientAddress})`,
       oldestByAddress: sql<string | null>`min(${signInFailures.createdAt}) filter (where ${signInFailures.clientAddress} = ${clientAddress})`,
     })
     .from(signInFailures)
     .where(gt(signInFailures.createdAt, since));
   const r = rows[0];
+  const date = (v: string | null | undefined) => (v ? new Date(v) : null);
   return {
     byAccount: r?.byAccount ?? 0,
     byAddress: r?.byAddress ?? 0,
-    oldestByAccount: r?.oldestByAccount ? new Date(r.oldestByAccount) : null,
-    oldestByAddress: r?.oldestByAddress ? new Date(r.oldestByAddress) : null,
+    byPair: r?.byPair ?? 0,
+    lastByAccount: date(r?.lastByAccount),
+    lastByPair: date(r?.lastByPair),
+    oldestByAddress: date(r?.oldestByAddress),
   };
 }
 
-export async function clearSignInFailures(email: string): Promise<void> {
-  await getDb().delete(signInFailures).where(eq(signInFailures.email, normaliseEmail(email)));
+/** Forgets failures of an account: all of them (a new password), or one address's (a good sign-in from it). */
+export async function clearSignInFailures(email: string, clientAddress?: string): Promise<void> {
+  const e = eq(signInFailures.email, normaliseEmail(email));
+  await getDb()
+    .delete(signInFailures)
+    .where(clientAddress === undefined ? e : and(e, eq(signInFailures.clientAddress, clientAddress)));
+}
+
+export async function isKnownSignInAddress(userId: string, clientAddress: string): Promise<boolean> {
+  const rows = await getDb()
+    .select({ id: knownSignInAddresses.id })
+    .from(knownSignInAddresses)
+    .where(and(eq(knownSignInAddresses.userId, userId), eq(knownSignInAddresses.clientAddress, clientAddress)))
+    .limit(1);
+  return rows.length > 0;
+}
+
+export async function rememberSignInAddress(userId: string, clientAddress: string): Promise<void> {
+  const now = new Date();
+  await getDb()
+    .insert(knownSignInAddresses)
+    .values({ userId, clientAddress, lastSeenAt: now })
+    .onConflictDoUpdate({ target: [knownSignInAddresses.userId, knownSignInAddresses.clientAddress], set: { lastSeenAt: now, updatedAt: now } });
+}
+
+// ---- forgot-password requests ---------------------------------------------
+
+export async function countRecentResetRequests(email: string, clientAddress: string, windowMs: number): Promise<{ byAccount: number; byAddress: number }> {
+  const since = new Date(Date.now() - windowMs);
+  const e = normaliseEmail(email);
+  const rows = await getDb()
+    .select({
+      byAccount: sql<number>`count(*) filter (where ${passwordResetRequests.email} = ${e})::int`,
+      byAddress: sql<number>`count(*) filter (where ${passwordResetRequests.clientAddress} = ${clientAddress})::int`,
+    })
+    .from(passwordResetRequests)
+    .where(gt(passwordResetRequests.createdAt, since));
+  return { byAccount: rows[0]?.byAccount ?? 0, byAddress: rows[0]?.byAddress ?? 0 };
+}
+
+export async function createResetRequest(email: string, clientAddress: string): Promise<void> {
+  await getDb().insert(passwordResetRequests).values({ email: normaliseEmail(email), clientAddress });
+}
+
+/** Takes pending requests for processing; two workers never take the same one. */
+export async function claimPendingResetRequests(limit = 20): Promise<{ id: number; email: string }[]> {
+  const result = await getDb().execute(sql`
+    update ${passwordResetRequests} set processed_at = now(), updated_at = now()
+    where id in (
+      select id from ${passwordResetRequests} where processed_at is null
+      order by created_at limit ${limit} for update skip locked
+    )
+    returning id, email`);
+  return (result.rows as { id: string | number; email: string }[]).map((r) => ({ id: Number(r.id), email: r.email }));
 }
 
 export async function setUnitsPreference(userId: string, units: "si" | "us" | null): Promise<void> {

@@ -1,5 +1,6 @@
 import { and, desc, eq, lt } from "drizzle-orm";
 import { getDb } from "../client";
+import { redactOneTimeLinks } from "@/modules/platform/mail-redaction";
 import { capturedEmails, outgoingEmails, type CapturedEmailRow, type OutgoingEmailRow } from "../schema";
 
 export async function enqueueEmail(input: { to: string; subject: string; text: string }): Promise<OutgoingEmailRow> {
@@ -18,10 +19,11 @@ export async function listQueuedEmails(limit = 20, maxAttempts = 20): Promise<Ou
     .limit(limit);
 }
 
-export async function markEmailSent(id: string): Promise<void> {
+/** Marks a message sent and, when given, replaces its stored text (one-time links removed). */
+export async function markEmailSent(id: string, storedText?: string): Promise<void> {
   await getDb()
     .update(outgoingEmails)
-    .set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null })
+    .set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null, ...(storedText === undefined ? {} : { text: storedText }) })
     .where(eq(outgoingEmails.id, id));
 }
 
@@ -43,4 +45,18 @@ export async function storeCapturedEmail(input: { envelopeFrom: string; envelope
 
 export async function listCapturedEmails(limit = 100): Promise<CapturedEmailRow[]> {
   return getDb().select().from(capturedEmails).orderBy(desc(capturedEmails.createdAt)).limit(limit);
+}
+
+/**
+ * What the instance administrator may read on the outbox: one-time links are removed
+ * from every stored message (a queued one still holds its link for the retry), and from
+ * what the local fake mail server received unless this is the demo, whose accounts are
+ * invented and whose links the reader must be able to follow.
+ */
+export async function listOutboxForAdmin(limit: number, showReceivedLinks: boolean): Promise<{ outgoing: OutgoingEmailRow[]; received: CapturedEmailRow[] }> {
+  const [outgoing, received] = await Promise.all([listOutgoingEmails(limit), listCapturedEmails(limit)]);
+  return {
+    outgoing: outgoing.map((m) => ({ ...m, text: redactOneTimeLinks(m.text) })),
+    received: showReceivedLinks ? received : received.map((m) => ({ ...m, text: redactOneTimeLinks(m.text), raw: redactOneTimeLinks(m.raw) })),
+  };
 }

@@ -1,4 +1,4 @@
-import { boolean, index, pgTable, text, timestamp, uuid, bigserial } from "drizzle-orm/pg-core";
+import { boolean, index, pgTable, text, timestamp, uuid, bigserial, uniqueIndex } from "drizzle-orm/pg-core";
 
 const stamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -55,6 +55,39 @@ export const signInFailures = pgTable(
     ...stamps,
   },
   (t) => [index("sign_in_failures_email_idx").on(t.email, t.createdAt), index("sign_in_failures_addr_idx").on(t.clientAddress, t.createdAt)],
+);
+
+// Addresses an account has signed in from with its password: a wrong-password storm
+// against the account slows sign-ins from new addresses, never from these.
+export const knownSignInAddresses = pgTable(
+  "known_sign_in_addresses",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    userId: uuid("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    clientAddress: text("client_address").notNull(),
+    lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+    ...stamps,
+  },
+  (t) => [uniqueIndex("known_sign_in_addresses_user_addr_idx").on(t.userId, t.clientAddress)],
+);
+
+// Forgot-password requests: the throttling log and the work queue in one. The request
+// path only counts and inserts, the same for known and unknown addresses; the mail
+// worker looks the account up, makes the link and queues the message.
+export const passwordResetRequests = pgTable(
+  "password_reset_requests",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    email: text("email").notNull(),
+    clientAddress: text("client_address").notNull(),
+    processedAt: timestamp("processed_at", { withTimezone: true }),
+    ...stamps,
+  },
+  (t) => [
+    index("password_reset_requests_email_idx").on(t.email, t.createdAt),
+    index("password_reset_requests_addr_idx").on(t.clientAddress, t.createdAt),
+    index("password_reset_requests_pending_idx").on(t.processedAt, t.createdAt),
+  ],
 );
 
 export type UserRow = typeof users.$inferSelect;

@@ -9,8 +9,9 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default("Plinthwise <desk@plinthwise.invalid>"),
   APP_URL: z.string().url().default("http://localhost:3000"),
   PLINTH_DEMO: z.enum(["0", "1"]).default("0"),
-  // Behind a load balancer, the client address comes from X-Forwarded-For.
-  TRUST_PROXY: z.enum(["0", "1"]).default("0"),
+  // How many proxies in front of the app append to X-Forwarded-For ("0": none, the
+  // header is ignored; "1": one load balancer; "2": CDN then balancer, ...).
+  TRUST_PROXY: z.string().regex(/^[0-9]$/, "TRUST_PROXY must be a hop count from 0 to 9").default("0"),
   SECURE_COOKIES: z.enum(["auto", "0", "1"]).default("auto"),
 });
 
@@ -36,6 +37,16 @@ export function getSessionSecret(): string {
     throw new Error("SESSION_SECRET is not set: run `npm start` once to generate .env.local, or set it in the environment.");
   }
   return secret;
+}
+
+/** The number of trusted proxies in front of the app (TRUST_PROXY). */
+export function getTrustedProxyHops(): number {
+  return Number(getServerEnv().TRUST_PROXY);
+}
+
+/** Tests that change process.env call this so the next read validates it again. */
+export function resetServerEnvForTests(): void {
+  cached = undefined;
 }
 
 export function isDemoMode(): boolean {

@@ -9,7 +9,8 @@ import { hashPassword } from "@/app/_lib/passwords";
 import { closeDb, getDb } from "@/db/client";
 import { createUser } from "@/db/queries/accounts";
 import { sessions } from "@/db/schema";
-import { callAction, callRoute, makeRequest, sessionCookieFrom } from "./support/fixture";
+import { getServerEnv } from "@/modules/platform/env";
+import { callAction, callRoute, makeRequest, peer, sessionCookieFrom } from "./support/fixture";
 
 const email = `session-${Date.now()}@example.test`;
 const password = "correct horse battery";
@@ -80,7 +81,7 @@ describe("sessions", () => {
   });
 
   it("a wrong password is refused with a clear message and no cookie", async () => {
-    const { state, port } = await callAction(signInAction, { email, password: "wrong" }, null, { "x-forwarded-for": "10.9.9.9" });
+    const { state, port } = await callAction(signInAction, { email, password: "wrong" }, null, peer("10.9.9.9"));
     expect(state.ok).toBe(false);
     if (!state.ok) expect(state.message).toMatch(/do not match/);
     expect(sessionCookieFrom(port.setCookieHeaders)).toBeNull();
@@ -109,10 +110,32 @@ describe("API sign-in for scripts", () => {
   });
 
   it("a wrong password is 401, a malformed body 400 naming the field", async () => {
-    expect((await callRoute("v1/session", "POST", {}, { body: { email, password: "nope" }, headers: { "x-forwarded-for": "10.77.0.1" } })).status).toBe(401);
+    expect((await callRoute("v1/session", "POST", {}, { body: { email, password: "nope" }, headers: peer("10.77.0.1") })).status).toBe(401);
     const bad = await callRoute("v1/session", "POST", {}, { body: { email: "x" } });
     expect(bad.status).toBe(400);
     const j = (await bad.json()) as { error: { issues: { path: string }[] } };
     expect(j.error.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["email", "password"]));
+  });
+});
+
+describe("where sign-in sends you (the next parameter)", () => {
+  const forms: [string, string][] = [
+    ["//evil.test", "/"],
+    ["/\\evil.test", "/"],
+    ["/\\/evil.test", "/"],
+    ["\\\\evil.test", "/"],
+    ["/%5Cevil.test", "/"],
+    ["/%2F%2Fevil.test", "/"],
+    ["https://evil.test", "/"],
+    ["javascript:alert(1)", "/"],
+    ["/\t/evil.test", "/"],
+    ["/..//evil.test", "/evil.test"],
+    [new URL("/projects", getServerEnv().APP_URL).toString(), "/projects"],
+    ["/projects?tab=team", "/projects?tab=team"],
+  ];
+  it.each(forms)("next=%j goes to %j", async (next, expected) => {
+    const { state } = await callAction(signInAction, { email, password, next }, null);
+    expect(state.ok).toBe(true);
+    if (state.ok) expect((state.data as { next: string }).next).toBe(expected);
   });
 });

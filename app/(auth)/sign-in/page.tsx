@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { redirect } from "next/navigation";
-import { isDemoMode } from "@/modules/platform/env";
+import { getServerEnv, isDemoMode } from "@/modules/platform/env";
+import { safeRedirectPath } from "@/modules/platform/redirects";
 import { DEMO_PASSWORD, demoAccounts } from "@/modules/platform/demo";
 import { getPageUser } from "../../_lib/page-guard";
 import { SignInForm } from "./sign-in-form";
@@ -11,6 +12,8 @@ export const metadata: Metadata = { title: "Sign in" };
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string }> }) {
   if (await getPageUser({ optional: true })) redirect("/");
   const { next } = await searchParams;
+  // Checked here too, so the form never carries a foreign target (the action checks again).
+  const target = safeRedirectPath(next, getServerEnv().APP_URL);
   const demo = isDemoMode();
   return (
     <div className="space-y-6">
@@ -18,7 +21,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <h1>Sign in to the desk</h1>
         <p className="mt-1 text-sm text-basalt-500">Use the e-mail address your project manager invited.</p>
       </div>
-      <SignInForm next={typeof next === "string" ? next : undefined} />
+      <SignInForm next={target === "/" ? undefined : target} />
       <p className="text-sm">
         <Link href="/forgot-password">Forgotten your password?</Link>
       </p>

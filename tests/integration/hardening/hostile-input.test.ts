@@ -14,6 +14,8 @@ import { portFromRequest, runWithRequest } from "@/app/_lib/request-context";
 import { acceptInvitationAction, forgotPasswordAction, resetPasswordAction, signInAction, signOutAction } from "@/app/(auth)/actions";
 import {
   createFoundationAction,
+  restoreFoundationAction,
+  withdrawFoundationAction,
   createProjectAction,
   inviteMemberAction,
   removeMemberAction,
@@ -22,7 +24,7 @@ import {
 } from "@/app/(desk)/actions";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { acceptSubmissionAction, returnSubmissionAction, sendDataRequestAction, submitMachineFormAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
-import { cookieFor, getFixture, makeRequest, type ActionFn, type Fixture } from "../support/fixture";
+import { cookieFor, freshPeer, getFixture, makeRequest, type ActionFn, type Fixture } from "../support/fixture";
 import { callRouteAt, errorOf, scanStoredNumbers, Tally } from "../support/hardening-helpers";
 import { createHardeningProject, type HardeningProject } from "../support/hardening-project";
 import { sampleAnalysisInput } from "../analysis-input-sample";
@@ -155,7 +157,6 @@ let fx: Fixture;
 let hx: HardeningProject;
 let fuzzEmail: string;
 const fuzzPassword = "hardening-fuzz-password";
-let caseNo = 0;
 const figures: string[] = [];
 
 beforeAll(async () => {
@@ -277,9 +278,8 @@ describe("route handlers under hostile bodies", () => {
     const base = () => ({ email: fuzzEmail, password: fuzzPassword });
     await fc.assert(
       fc.asyncProperty(bodyOf(base), async (body) => {
-        caseNo += 1;
         // Each case from its own address, so the fuzz never throttles the address other tests use.
-        const headers = { "x-forwarded-for": `10.77.${Math.floor(caseNo / 250)}.${caseNo % 250}` };
+        const headers = freshPeer();
         const res = await callRouteAt("v1/session", "POST", {}, { body, headers });
         await expectClean(res, [200, 400, 401, 413, 429], tally, `session ${body.slice(0, 120)}`);
       }),
@@ -347,8 +347,8 @@ const cleanCodes = ["invalid_input", "unauthenticated", "forbidden", "not_found"
 
 describe("every server action under hostile form fields", () => {
   const cases: ActionFuzz[] = [
-    { name: "auth.signIn", action: signInAction, base: async () => ({ email: fuzzEmail, password: fuzzPassword, next: "/" }), cookie: async () => null, headers: () => ({ "x-forwarded-for": `10.78.${Math.floor((caseNo += 1) / 250)}.${caseNo % 250}` }) },
-    { name: "auth.forgotPassword", action: forgotPasswordAction, base: async () => ({ email: fuzzEmail }), cookie: async () => null },
+    { name: "auth.signIn", action: signInAction, base: async () => ({ email: fuzzEmail, password: fuzzPassword, next: "/" }), cookie: async () => null, headers: () => freshPeer() },
+    { name: "auth.forgotPassword", action: forgotPasswordAction, base: async () => ({ email: fuzzEmail }), cookie: async () => null, headers: () => freshPeer() },
     { name: "auth.resetPassword", action: resetPasswordAction, base: async () => ({ token: "not-a-real-token-xxxxxxxx", password: "a-long-password-1", confirm: "a-long-password-1" }), cookie: async () => null },
     { name: "auth.acceptInvitation", action: acceptInvitationAction, base: async () => ({ token: "not-a-real-token-xxxxxxxx", name: "X", password: "a-long-password-1", confirm: "a-long-password-1" }), cookie: async () => null },
     { name: "auth.signOut", action: signOutAction, base: async () => ({}), cookie: async () => cookieFor((await getFixture()).userIds.outsider) },
@@ -358,6 +358,9 @@ describe("every server action under hostile form fields", () => {
     { name: "account.setUnits", action: setUnitsPreferenceAction, base: async () => ({ units: "si" }), cookie: async () => fx.cookies.outsider },
     { name: "project.updateSettings", action: updateProjectSettingsAction, base: async () => ({ projectId: hx.projectId, units: "si", revisionScheme: "letters", frequencySeparation: "0.2", minMassRatio: "3" }), cookie: async () => fx.cookies.manager },
     { name: "foundation.create", action: createFoundationAction, base: async () => ({ projectId: hx.projectId, tag: `HXA-${Date.now().toString(36)}`, machineTrain: "Fuzz pump", location: "" }), cookie: async () => fx.cookies.manager },
+    // A foundation id that exists nowhere: the fuzzing must not withdraw the foundation the other cases use.
+    { name: "foundation.withdraw", action: withdrawFoundationAction, base: async () => ({ projectId: hx.projectId, foundationId: "00000000-0000-4000-8000-000000000000", reason: "fuzz: created twice" }), cookie: async () => fx.cookies.manager },
+    { name: "foundation.restore", action: restoreFoundationAction, base: async () => ({ projectId: hx.projectId, foundationId: "00000000-0000-4000-8000-000000000000" }), cookie: async () => fx.cookies.manager },
     { name: "revision.issue", action: issueRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId }), cookie: async () => fx.cookies.manager },
     { name: "revision.decide", action: decideRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, outcome: "returned", note: "fuzz" }), cookie: async () => hx.checkerCookie },
     { name: "revision.comment", action: commentOnRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, body: "fuzz comment", fieldPath: "soil.poissonRatio" }), cookie: async () => hx.checkerCookie },

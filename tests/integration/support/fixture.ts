@@ -8,6 +8,19 @@ import { sealSessionCookie, SESSION_COOKIE } from "@/app/_lib/session";
 import { portFromRequest, runWithRequest, type RequestPort } from "@/app/_lib/request-context";
 import { hashPassword } from "@/app/_lib/passwords";
 import type { ProjectRole } from "@/modules/platform/permissions";
+import { installPeerAddressHook, PEER_ADDRESS_HEADER } from "@/app/_lib/client-address";
+
+// As in the server (instrumentation.ts): with the hook installed the peer header is
+// trusted, so a test names the socket address of its request with `peer(address)`.
+installPeerAddressHook();
+export const peer = (address: string): Record<string, string> => ({ [PEER_ADDRESS_HEADER]: address });
+// A socket address no other request of any run within the throttling window has used
+// (documentation and private ranges are plenty), for tests where the address does not matter.
+let peerCounter = Math.floor(Date.now() / 1000) % 1_000_000;
+export const freshPeer = (): Record<string, string> => {
+  peerCounter += 1;
+  return peer(`fd00::${(peerCounter >> 16).toString(16)}:${(peerCounter & 0xffff).toString(16)}`);
+};
 
 export type MatrixRole = ProjectRole | "admin" | "outsider" | "anonymous";
 export const matrixRoles: MatrixRole[] = ["anonymous", "outsider", "admin", "manager", "designer", "checker", "vendor", "viewer"];

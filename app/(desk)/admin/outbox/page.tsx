@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
-import { listCapturedEmails, listOutgoingEmails } from "@/db/queries/mail";
+import { listOutboxForAdmin } from "@/db/queries/mail";
+import { isDemoMode } from "@/modules/platform/env";
 import { requireAdminPage } from "../../../_lib/page-guard";
 import { EmptyState } from "../../../_components/brand";
 
@@ -7,7 +8,7 @@ export const metadata: Metadata = { title: "Mail outbox" };
 
 export default async function OutboxPage() {
   await requireAdminPage();
-  const [outgoing, received] = await Promise.all([listOutgoingEmails(50), listCapturedEmails(50)]);
+  const { outgoing, received } = await listOutboxForAdmin(50, isDemoMode());
   return (
     <div className="space-y-8">
       <div>

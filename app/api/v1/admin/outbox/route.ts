@@ -1,9 +1,10 @@
-import { listCapturedEmails, listOutgoingEmails } from "@/db/queries/mail";
+import { listOutboxForAdmin } from "@/db/queries/mail";
+import { isDemoMode } from "@/modules/platform/env";
 import { defineRoute } from "../../../../_lib/route";
 
 export const dynamic = "force-dynamic";
 
 export const GET = defineRoute({
   access: { kind: "admin" },
-  handler: async () => ({ outgoing: await listOutgoingEmails(100), received: await listCapturedEmails(100) }),
+  handler: async () => listOutboxForAdmin(100, isDemoMode()),
 });
