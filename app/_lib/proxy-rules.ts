@@ -57,7 +57,7 @@ function refusal(status: number, code: string, message: string, headers: Record<
 }
 
 export function decideProxy(request: Request, env: ProxyEnv, nonce: string = newNonce()): ProxyDecision {
-  const https = isServedOverHttps(request.url, request.headers, env.trustProxy, env.appUrl);
+  const https = isServedOverHttps(request.headers, env.trustProxy, env.appUrl);
   const csp = contentSecurityPolicy(nonce, env, https);
   const responseHeaders: Record<string, string> = { "content-security-policy": csp };
   if (https) responseHeaders["strict-transport-security"] = HSTS_VALUE;
@@ -82,5 +82,9 @@ export function decideProxy(request: Request, env: ProxyEnv, nonce: string = new
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("content-security-policy", csp);
   requestHeaders.set("x-nonce", nonce);
+  // Next's own action check always believes X-Forwarded-Host (a spoofed one made a
+  // same-origin action answer 500); without a trusted proxy it is the Host, as for the API.
+  const host = request.headers.get("host");
+  if (!env.trustProxy && host) requestHeaders.set("x-forwarded-host", host);
   return { kind: "pass", requestHeaders, responseHeaders };
 }

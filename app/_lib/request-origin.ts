@@ -56,13 +56,14 @@ export function isJsonContentType(value: string | null): boolean {
 
 /**
  * True when the answer travels over https: the trusted proxy's X-Forwarded-Proto when
- * TRUST_PROXY=1, else the request's own scheme or an https APP_URL (the server is then
- * reached over TLS by a front end the operator configured).
+ * TRUST_PROXY=1, else an https APP_URL (the operator's TLS front end). The request URL's
+ * own scheme is not asked: `next start` speaks plain http, and Next builds that URL from
+ * X-Forwarded-Proto, which any client can send.
  */
-export function isServedOverHttps(requestUrl: string, headers: HeaderSource, trustProxy: boolean, appUrl: string): boolean {
+export function isServedOverHttps(headers: HeaderSource, trustProxy: boolean, appUrl: string): boolean {
   if (trustProxy) {
     const proto = firstValue(headers.get("x-forwarded-proto"));
     if (proto) return proto.toLowerCase() === "https";
   }
-  return requestUrl.startsWith("https:") || appUrl.startsWith("https:");
+  return appUrl.startsWith("https:");
 }

@@ -108,6 +108,11 @@ describe("proxy.ts decisions", () => {
     expect(decideProxy(action({ origin: "http://127.0.0.1:3100" }), plainHttp).kind).toBe("pass");
     // Behind a trusted proxy, the proxy's X-Forwarded-Host is the site.
     expect(decideProxy(action({ origin: "https://desk.example", "x-forwarded-host": "desk.example" }), { ...plainHttp, trustProxy: true }).kind).toBe("pass");
+    // A client's X-Forwarded-Host is replaced by Host before Next's own check sees it (Next believes it and answers 500).
+    const spoofed = decideProxy(action({ origin: "http://127.0.0.1:3100", "x-forwarded-host": "elsewhere.example" }), plainHttp);
+    expect(spoofed.kind === "pass" && spoofed.requestHeaders.get("x-forwarded-host")).toBe("127.0.0.1:3100");
+    const trusted = decideProxy(action({ origin: "https://desk.example", "x-forwarded-host": "desk.example" }), { ...plainHttp, trustProxy: true });
+    expect(trusted.kind === "pass" && trusted.requestHeaders.get("x-forwarded-host")).toBe("desk.example");
     // API routes are the route wrapper's to judge.
     expect(decideProxy(action({ origin: "https://evil.example" }, "http://127.0.0.1:3100/api/v1/calculate"), plainHttp).kind).toBe("pass");
   });
@@ -143,7 +148,7 @@ describe("proxy.ts decisions", () => {
     expect(csp).toContain("frame-ancestors 'none'");
   });
 
-  it("sends HSTS only over https: the request's scheme, an https APP_URL, or a trusted proxy's X-Forwarded-Proto", () => {
+  it("sends HSTS only over https: an https APP_URL, or a trusted proxy's X-Forwarded-Proto", () => {
     const hsts = (url: string, env: ProxyEnv, headers: Record<string, string> = {}) => {
       const d = decideProxy(new Request(url, { headers: { host: "desk.example", ...headers } }), env);
       return d.kind === "pass" ? (d.responseHeaders["strict-transport-security"] ?? null) : "refused";
@@ -151,7 +156,8 @@ describe("proxy.ts decisions", () => {
     expect(hsts("http://127.0.0.1:3100/", plainHttp)).toBeNull();
     // A client's own X-Forwarded-Proto counts for nothing without a trusted proxy.
     expect(hsts("http://127.0.0.1:3100/", plainHttp, { "x-forwarded-proto": "https" })).toBeNull();
-    expect(hsts("https://desk.example/", plainHttp)).toBe(HSTS_VALUE);
+    // Next builds the request URL's scheme from X-Forwarded-Proto, so that scheme is not asked either.
+    expect(hsts("https://desk.example/", plainHttp)).toBeNull();
     expect(hsts("http://127.0.0.1:3100/", { ...plainHttp, appUrl: "https://desk.example" })).toBe(HSTS_VALUE);
     expect(hsts("http://10.0.0.5:3000/", { ...plainHttp, trustProxy: true }, { "x-forwarded-proto": "https" })).toBe(HSTS_VALUE);
     expect(hsts("http://10.0.0.5:3000/", { ...plainHttp, trustProxy: true, appUrl: "https://desk.example" }, { "x-forwarded-proto": "http" })).toBeNull();
