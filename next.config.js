@@ -1,21 +1,20 @@
 // @ts-check
-const isDev = process.env.NODE_ENV !== "production";
-
-// Content security policy: only our own origin; no eval in production (React's
-// development build needs it, so only `next dev` gets it). Next inlines its
-// bootstrap scripts and the charts set inline styles, hence 'unsafe-inline'.
-const csp = [
-  "default-src 'self'",
-  `script-src 'self' 'unsafe-inline'${isDev ? " 'unsafe-eval'" : ""}`,
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self' data: blob:",
-  "font-src 'self'",
-  "connect-src 'self'",
-  "object-src 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-  "frame-ancestors 'none'",
-].join("; ");
+// The content security policy (with a per-request script nonce) and HSTS are set in
+// proxy.ts (app/_lib/proxy-rules.ts); the headers here are the same for every answer.
+// Permissions-Policy: the desk needs no device or sensor, so none may be asked for.
+const permissionsPolicy = [
+  "camera=()",
+  "microphone=()",
+  "geolocation=()",
+  "payment=()",
+  "usb=()",
+  "serial=()",
+  "hid=()",
+  "magnetometer=()",
+  "gyroscope=()",
+  "accelerometer=()",
+  "display-capture=()",
+].join(", ");
 
 /** @type {import('next').NextConfig} */
 const nextConfig = {
@@ -30,7 +29,7 @@ const nextConfig = {
       {
         source: "/:path*",
         headers: [
-          { key: "Content-Security-Policy", value: csp },
+          { key: "Permissions-Policy", value: permissionsPolicy },
           { key: "X-Content-Type-Options", value: "nosniff" },
           { key: "Referrer-Policy", value: "strict-origin-when-cross-origin" },
           { key: "X-Frame-Options", value: "DENY" },

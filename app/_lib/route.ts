@@ -4,6 +4,9 @@ import type { Membership } from "@/db/queries/projects";
 import { isDatabaseUnavailable, isDataException } from "@/db/queries/errors";
 import { requireAdmin, requireProjectPermission, requireUser, type Access, type AuthContext } from "./guard";
 import { portFromRequest, type RequestPort } from "./request-context";
+import { getServerEnv } from "@/modules/platform/env";
+import { SESSION_COOKIE } from "./session";
+import { foreignOriginReason, hasNoOriginSignal, isJsonContentType } from "./request-origin";
 
 export interface RouteContext<P> {
   request: Request;
@@ -32,26 +35,24 @@ export function jsonError(e: AppError): Response {
   return Response.json(body, { status: e.status });
 }
 
-/** Refuses state-changing requests sent from another site (the browser says so). */
+/**
+ * Refuses state-changing requests sent from another site (the browser says so, or the
+ * Origin is not this host; X-Forwarded-Host counts only behind a trusted proxy), and those
+ * that say nothing of where they come from unless they carry a JSON type, which a
+ * cross-site form cannot send.
+ */
 function assertSameSite(request: Request): void {
   if (request.method === "GET" || request.method === "HEAD") return;
-  if (request.headers.get("sec-fetch-site") === "cross-site") throw new AppError("cross_site");
-  const origin = request.headers.get("origin");
-  if (origin && origin !== "null") {
-    const host = request.headers.get("x-forwarded-host") ?? request.headers.get("host");
-    let originHost: string;
-    try {
-      originHost = new URL(origin).host;
-    } catch {
-      throw new AppError("cross_site");
-    }
-    if (!host || originHost !== host) throw new AppError("cross_site");
-  } else if (origin === "null") {
-    throw new AppError("cross_site");
+  const trustProxy = Number(getServerEnv().TRUST_PROXY) > 0;
+  if (foreignOriginReason(request.headers, trustProxy)) throw new AppError("cross_site");
+  if (hasNoOriginSignal(request.headers) && !isJsonContentType(request.headers.get("content-type"))) {
+    throw new AppError("cross_site", "Cross-site request refused: a request without Origin or Sec-Fetch-Site must carry Content-Type: application/json.");
   }
 }
 
 async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+  // A text/plain or form body is what a cross-site form sends without a preflight.
+  if (!isJsonContentType(request.headers.get("content-type"))) throw new AppError("unsupported_media_type");
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (declared > maxBytes) throw new AppError("payload_too_large");
   const text = await request.text();
@@ -62,6 +63,13 @@ async function readJsonBody(request: Request, maxBytes: number): Promise<unknown
   } catch {
     throw new AppError("invalid_input", "The request body is not valid JSON.", [{ path: "(root)", message: "Not valid JSON" }]);
   }
+}
+
+/** Answers to a signed-in caller (or that set a cookie) are theirs alone: no shared or browser cache keeps them. */
+function noStoreWhenPersonal(response: Response, access: Access, port: RequestPort & { setCookieHeaders: string[] }): Response {
+  const personal = access.kind !== "public" || port.setCookieHeaders.length > 0 || port.getCookie(SESSION_COOKIE) !== undefined;
+  if (personal && !response.headers.has("cache-control")) response.headers.set("cache-control", "private, no-store");
+  return response;
 }
 
 /**
@@ -99,9 +107,9 @@ export function defineRoute<P extends Record<string, string>, B extends z.ZodTyp
       const result = await def.handler({ request, params, port, auth, membership }, body as B extends z.ZodType ? z.infer<B> : undefined);
       const response = result instanceof Response ? result : Response.json(result, { status: def.status ?? 200 });
       for (const c of port.setCookieHeaders) response.headers.append("set-cookie", c);
-      return response;
+      return noStoreWhenPersonal(response, def.access, port);
     } catch (e) {
-      if (isAppError(e)) return jsonError(e);
+      if (isAppError(e)) return noStoreWhenPersonal(jsonError(e), def.access, port);
       if (isDatabaseUnavailable(e)) return jsonError(new AppError("unavailable"));
       if (isDataException(e)) return jsonError(new AppError("invalid_input", "A field holds a value that cannot be stored (for example a NUL character)."));
       console.error(`[route ${request.method} ${new URL(request.url).pathname}]`, e);

@@ -8,6 +8,7 @@ export const errorCodes = {
   conflict: { status: 409, message: "Someone else changed this first." },
   too_many_requests: { status: 429, message: "Too many attempts. Please wait and try again." },
   payload_too_large: { status: 413, message: "The request is too large." },
+  unsupported_media_type: { status: 415, message: "Send the body as JSON (Content-Type: application/json)." },
   cross_site: { status: 403, message: "Cross-site request refused." },
   unavailable: { status: 503, message: "The database is briefly unavailable. Please try again in a moment." },
   internal: { status: 500, message: "Something went wrong on our side." },

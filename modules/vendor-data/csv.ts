@@ -7,6 +7,7 @@ import type { MachineInput } from "@/modules/calc/schema";
 import { assembleMachines, type AssembleResult } from "./assemble";
 import { CSV_SHEET, MAX_BEARINGS, bearingCsvColumn, columnLetter, csvColumns, machineFields, rotorFields } from "./layout";
 import type { CellValue, Problem, RawCell, RawMachine, RawRotor } from "./types";
+import { safeText } from "@/modules/calc-package/safe-text";
 
 /** Lines a CSV may have; a few machines with four rotors each need a dozen. */
 export const MAX_CSV_LINES = 500;
@@ -39,7 +40,8 @@ export class CsvSyntaxError extends Error {
 }
 
 function csvValue(text: string | undefined): CellValue {
-  const t = (text ?? "").trim();
+  // The template guards text that a spreadsheet would run (safeText's apostrophe); take it off again.
+  const t = (text ?? "").trim().replace(/^'(?=[=+\-@\t\r])/, "");
   if (t === "") return { kind: "empty" };
   return { kind: "text", value: t };
 }
@@ -112,7 +114,8 @@ export function readMachineCsv(bytes: Buffer, expect: { machineCount: number }):
 
 function quote(v: string | number | null | undefined): string {
   if (v === null || v === undefined) return "";
-  const s = String(v);
+  // Text (names, grades, axes) goes through the package's one guard; numbers stay numbers (-0.4 is a coordinate).
+  const s = typeof v === "string" ? safeText(v) : String(v);
   return /[",\r\n;]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 

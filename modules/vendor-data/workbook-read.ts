@@ -20,6 +20,7 @@ import {
   rotorFields,
 } from "./layout";
 import type { CellValue, Problem, RawCell, RawMachine, RawRotor } from "./types";
+import { outsideReachOfFormula } from "./formula-guard";
 
 export interface WorkbookExpectation {
   requestId: string;
@@ -41,7 +42,7 @@ export function readCellValue(value: ExcelJS.CellValue): CellValue {
   if ("formula" in value || "sharedFormula" in value) {
     const f = value as ExcelJS.CellFormulaValue | ExcelJS.CellSharedFormulaValue;
     const text = "formula" in f ? f.formula : f.sharedFormula;
-    if (typeof text === "string" && /\[\d+\]/.test(text)) return { kind: "bad", message: "the formula refers to another workbook; paste its value instead" };
+    if (typeof text === "string" && outsideReachOfFormula(text)) return { kind: "bad", message: "the formula reaches outside the workbook; paste its value instead" };
     const result = f.result;
     if (result === undefined) return { kind: "bad", message: "the formula has no saved value (save the workbook in Excel so it computes, or type the value)" };
     if (result !== null && typeof result === "object" && "error" in result) return { kind: "bad", message: `the formula gives the error ${result.error}` };
@@ -87,6 +88,29 @@ function markerProblems(wb: ExcelJS.Workbook, expect: WorkbookExpectation): Prob
   return [];
 }
 
+/**
+ * Every formula on every sheet (not only the cells the desk reads) that reaches outside
+ * the file, by sheet and cell: the file is kept as the vendor's original and may be opened
+ * by a designer in Excel, where a saved value would be recomputed.
+ */
+export function outsideFormulaProblems(wb: ExcelJS.Workbook): Problem[] {
+  const problems: Problem[] = [];
+  wb.eachSheet((ws) => {
+    ws.eachRow({ includeEmpty: false }, (row) => {
+      row.eachCell({ includeEmpty: false }, (cell) => {
+        const v = cell.value;
+        if (v === null || typeof v !== "object" || v instanceof Date) return;
+        // Shared-formula cells carry the master's text translated to their own place.
+        const text = "formula" in v || "sharedFormula" in v ? cell.formula : undefined;
+        if (typeof text !== "string" || !text) return;
+        const why = outsideReachOfFormula(text);
+        if (why) problems.push({ sheet: ws.name, cell: cell.address, message: `The formula in this cell holds ${why}. Such formulas are refused even with a saved value: type or paste the value instead.` });
+      });
+    });
+  });
+  return problems;
+}
+
 /** Parses a workbook of the request into validated machines, or every problem found. */
 export async function readMachineWorkbook(bytes: Buffer, expect: WorkbookExpectation): Promise<AssembleResult> {
   const wb = new ExcelJS.Workbook();
@@ -96,6 +120,8 @@ export async function readMachineWorkbook(bytes: Buffer, expect: WorkbookExpecta
   } catch (e) {
     return { ok: false, problems: [{ sheet: null, cell: null, message: `The workbook could not be read (${(e as Error).message}). Save it again from Excel as .xlsx.` }] };
   }
+  const outside = outsideFormulaProblems(wb);
+  if (outside.length) return { ok: false, problems: outside };
   const marker = markerProblems(wb, expect);
   if (marker.length) return { ok: false, problems: marker };
   const problems: Problem[] = [];

