@@ -12,6 +12,12 @@ const envSchema = z.object({
   // Behind a load balancer, the client address comes from X-Forwarded-For.
   TRUST_PROXY: z.enum(["0", "1"]).default("0"),
   SECURE_COOKIES: z.enum(["auto", "0", "1"]).default("auto"),
+  // The analysis pool (app/_lib/analysis-pool.ts): worker threads (default: the cores but one,
+  // at most 4), jobs that may wait for one (more are answered 503), and the time limits.
+  PLINTH_ANALYSIS_WORKERS: z.coerce.number().int().min(1).max(32).optional(),
+  PLINTH_ANALYSIS_QUEUE: z.coerce.number().int().min(0).max(1000).default(16),
+  PLINTH_ANALYSIS_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
+  PLINTH_SIZING_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(30_000),
 });
 
 export type ServerEnv = z.infer<typeof envSchema>;
