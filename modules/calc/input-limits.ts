@@ -26,8 +26,8 @@ export const INPUT_LIMITS = {
   maxSweepPoints: 2000,
   /**
    * sweep.points times the number of response series (every rotor's load cases times its
-   * bearings plus the check points): bounds the size of the result (about 50 bytes of JSON per
-   * value for displacement and velocity). The demo train at 2000 points uses 48,000.
+   * bearings plus the check points): bounds the size of the result (about 75 bytes of JSON per
+   * value at the limits, the rest of the result included). The demo train at 2000 points uses 48,000.
    */
   maxSweepValues: 240_000,
   /** transient: start-up and coast-down runs. */
