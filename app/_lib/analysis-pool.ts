@@ -1,11 +1,12 @@
 import "server-only";
 import { availableParallelism } from "node:os";
+import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
 import type { GoverningSummary } from "@/modules/desk/foundation-summary";
 import type { SizingLimits, SizingOutcome } from "@/modules/sizing";
 import { AppError } from "@/modules/platform/errors";
-import { getServerEnv } from "@/modules/platform/env";
+import { getServerEnv, runsFromSources } from "@/modules/platform/env";
 import type { AnalysisJob } from "./analysis-jobs";
 
 // Analyses run on a small pool of worker threads, never on the request thread: one heavy input
@@ -77,8 +78,10 @@ import("tsx/esm/api")
 
 function spawn(): Worker {
   const resourceLimits = { maxOldGenerationSizeMb: currentOptions().heapMb };
-  if (new URL(import.meta.url).pathname.endsWith(".ts")) {
-    const workerUrl = new URL("./analysis-worker.ts", import.meta.url).href;
+  // Not import.meta.url's suffix: Turbopack keeps the source path there. The path is derived by
+  // a string replace, so that Turbopack does not copy the .ts file as an asset.
+  if (runsFromSources()) {
+    const workerUrl = pathToFileURL(fileURLToPath(import.meta.url).replace(/analysis-pool\.ts$/, "analysis-worker.ts")).href;
     return new Worker(FROM_SOURCE_BOOTSTRAP, { eval: true, workerData: { workerUrl }, resourceLimits });
   }
   // In Next's build, Turbopack bundles the worker file it finds in `new Worker(new URL(...))`.
@@ -90,6 +93,14 @@ function retire(entry: PoolWorker): void {
   if (entry.timer) clearTimeout(entry.timer);
   entry.timer = null;
   void entry.worker.terminate();
+}
+
+/** A worker that cannot even start fails what waits, rather than being restarted for ever. */
+function failWaiting(e: Error): void {
+  const waiting = queue;
+  queue = [];
+  console.error("[analysis pool] a worker failed to start:", e.message);
+  for (const p of waiting) p.reject(e);
 }
 
 function startWorker(): PoolWorker {
@@ -116,6 +127,7 @@ function startWorker(): PoolWorker {
     const done = entry.busy;
     entry.busy = null;
     retire(entry);
+    if (!entry.ready) failWaiting(e);
     if (done) {
       const oom = (e as { code?: string }).code === "ERR_WORKER_OUT_OF_MEMORY";
       done.reject(oom ? new AppError("analysis_limit", "The analysis needed more memory than the server allows and was stopped: lower sweep.points, the check points or the speed-ramp runs.") : e);
@@ -127,6 +139,7 @@ function startWorker(): PoolWorker {
       const done = entry.busy;
       entry.busy = null;
       retire(entry);
+      if (!entry.ready) failWaiting(new Error("the analysis worker stopped while starting"));
       done?.reject(new Error("the analysis worker stopped"));
       pump();
     }

@@ -18,6 +18,8 @@ const envSchema = z.object({
   PLINTH_ANALYSIS_QUEUE: z.coerce.number().int().min(0).max(1000).default(16),
   PLINTH_ANALYSIS_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
   PLINTH_SIZING_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(30_000),
+  // Set by vitest in its workers: server code then runs from the TypeScript sources, not from Next's bundle.
+  VITEST: z.string().optional(),
 });
 
 export type ServerEnv = z.infer<typeof envSchema>;
@@ -42,6 +44,11 @@ export function getSessionSecret(): string {
     throw new Error("SESSION_SECRET is not set: run `npm start` once to generate .env.local, or set it in the environment.");
   }
   return secret;
+}
+
+/** Under vitest (the sources run as TypeScript), not under Next. */
+export function runsFromSources(): boolean {
+  return getServerEnv().VITEST !== undefined;
 }
 
 export function isDemoMode(): boolean {
