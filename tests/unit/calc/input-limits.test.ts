@@ -17,7 +17,7 @@ const overLimit: [string, string, (d: Doc) => void][] = [
   ["solids", "block.solids", (d) => (d.block.solids = Array.from({ length: L.maxSolids + 1 }, (_, i) => ({ name: `s${i}`, x: [i, i + 1], y: [0, 1], z: [0, 1] })))],
   ["machines", "machines", (d) => (d.machines = Array.from({ length: L.maxMachines + 1 }, (_, i) => ({ ...d.machines[0], name: `m${i}`, rotors: [] })))],
   ["rotors per machine", "machines[0].rotors", (d) => (d.machines[0].rotors = Array.from({ length: L.maxRotorsPerMachine + 1 }, (_, i) => ({ ...d.machines[0].rotors[0], name: `r${i}`, mass: 1 })))],
-  ["bearings per rotor", "machines[0].rotors[0].bearings", (d) => (d.machines[0].rotors[0].bearings = Array.from({ length: L.maxBearingsPerRotor + 1 }, () => [0, 0, 1]))],
+  ["bearings per rotor", "machines[0].rotors[0].bearings", (d) => (d.machines[0].rotors[0].bearings = Array.from({ length: L.maxBearingsPerRotor + 1 }, (_, i) => [0.1 * i, 0.1 * i, 1]))],
   ["check points", "checkPoints", (d) => (d.checkPoints = Array.from({ length: L.maxCheckPoints + 1 }, (_, i) => ({ name: `p${i}`, position: [0, 0, 1] })))],
   ["sweep points", "sweep.points", (d) => (d.sweep.points = L.maxSweepPoints + 1)],
   ["speed-ramp runs", "transient", (d) => (d.transient = Array.from({ length: L.maxTransientRuns + 1 }, () => ({ machine: d.machines[0].name, rotor: d.machines[0].rotors[0].name, kind: "run-up", durationS: 10 })))],
