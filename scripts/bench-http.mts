@@ -208,3 +208,35 @@ export async function benchLoadSuite(server: BenchServer, inputFile: string, con
   for (const t of targets) rows.push(await runLoad(server.baseUrl, t, connections, durationS));
   return rows;
 }
+
+/**
+ * The heaviest input the contract accepts (INPUT_LIMITS) posted to the calculation API, while
+ * /api/health is asked every 25 ms: the time of each analysis and the health latency meanwhile.
+ */
+export async function benchWorstAcceptedHttp(server: BenchServer, runs = 3): Promise<{ analysisMs: number[]; healthMs: number[]; statuses: number[] }> {
+  const { worstAcceptedInput } = await import("../tests/support/limit-inputs");
+  const cookie = await server.cookieFor("designer@plinthwise.test");
+  const body = JSON.stringify(worstAcceptedInput());
+  const analysisMs: number[] = [];
+  const healthMs: number[] = [];
+  const statuses: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    let done = false;
+    const t0 = performance.now();
+    const post = fetch(`${server.baseUrl}/api/v1/calculate`, { method: "POST", body, headers: { cookie, "content-type": "application/json" } })
+      .then(async (r) => {
+        await r.arrayBuffer();
+        statuses.push(r.status);
+        analysisMs.push(performance.now() - t0);
+      })
+      .finally(() => (done = true));
+    while (!done) {
+      const h0 = performance.now();
+      await (await fetch(`${server.baseUrl}/api/health`)).arrayBuffer();
+      healthMs.push(performance.now() - h0);
+      await new Promise((r) => setTimeout(r, 25));
+    }
+    await post;
+  }
+  return { analysisMs, healthMs, statuses };
+}

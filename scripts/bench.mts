@@ -4,7 +4,26 @@
 // the production build on loopback against the local database `npm start` set up); --quick
 // shortens the HTTP runs for a smoke check.
 import { benchCalc, DEFAULT_BENCH_INPUT, type BenchSection } from "./bench-calc.mts";
-import { benchCalculateApi, benchLoadSuite, formatHttpTable, startBenchServer } from "./bench-http.mts";
+import { benchCalculateApi, benchLoadSuite, benchWorstAcceptedHttp, formatHttpTable, startBenchServer } from "./bench-http.mts";
+import { analyse, parseAnalysisInput } from "../modules/calc/index.ts";
+import { worstAcceptedInput } from "../tests/support/limit-inputs.ts";
+
+const fmt = (v: number) => v.toFixed(0);
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)] ?? NaN;
+
+/** The heaviest input the contract accepts (INPUT_LIMITS), analysed in this thread. */
+function worstAcceptedLine(runs: number): string {
+  const parsed = parseAnalysisInput(worstAcceptedInput());
+  if (!parsed.ok) throw new Error(`the worst accepted input is refused: ${JSON.stringify(parsed.issues)}`);
+  const ms: number[] = [];
+  let bytes = 0;
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    bytes = JSON.stringify(analyse(parsed.input)).length;
+    ms.push(performance.now() - t0);
+  }
+  return `worst accepted input (INPUT_LIMITS), in-thread: median ${fmt(median(ms))} ms, max ${fmt(Math.max(...ms))} ms per analysis (${runs} runs), result ${(bytes / 1e6).toFixed(1)} MB of JSON`;
+}
 
 function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean; quick: boolean } | string {
   let json: string | undefined;
@@ -50,6 +69,11 @@ async function httpSection(quick: boolean): Promise<void> {
     return;
   }
   try {
+    const worst = await benchWorstAcceptedHttp(server, quick ? 1 : 3);
+    process.stdout.write(
+      `\nWorst accepted input on POST /api/v1/calculate (analysis pool): median ${fmt(median(worst.analysisMs))} ms per analysis (statuses ${worst.statuses.join(", ")}); ` +
+        `GET /api/health meanwhile: ${worst.healthMs.length} requests, median ${median(worst.healthMs).toFixed(1)} ms, max ${Math.max(...worst.healthMs).toFixed(1)} ms\n`,
+    );
     const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, quick ? 3 : 10)];
     process.stdout.write(`\nHTTP on the production build, loopback (${server.baseUrl}): the calculation API\n${formatHttpTable(rows)}\n`);
     const clients = 50;
@@ -75,6 +99,7 @@ async function main(argv: string[]): Promise<number> {
     } else {
       const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
       process.stdout.write(`${formatTable(description, sections)}\n`);
+      process.stdout.write(`${worstAcceptedLine(args.quick ? 2 : 5)}\n`);
       if (args.http) await httpSection(args.quick);
     }
     return 0;

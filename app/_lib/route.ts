@@ -32,7 +32,8 @@ const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{1
 export function jsonError(e: AppError): Response {
   const body: Record<string, unknown> = { error: { code: e.code, message: e.message } };
   if (e.issues.length) (body.error as Record<string, unknown>).issues = e.issues;
-  return Response.json(body, { status: e.status });
+  const headers = e.retryAfterS !== undefined ? { "retry-after": String(e.retryAfterS) } : undefined;
+  return Response.json(body, { status: e.status, headers });
 }
 
 /**
@@ -50,13 +51,34 @@ function assertSameSite(request: Request): void {
   }
 }
 
+/**
+ * The body as text, counting bytes as they arrive: past maxBytes the read stops and the
+ * stream is cancelled, so a chunked body without Content-Length is never held whole.
+ */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string> {
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw new AppError("payload_too_large");
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => undefined);
+      throw new AppError("payload_too_large");
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, total).toString("utf8");
+}
+
 async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
   // A text/plain or form body is what a cross-site form sends without a preflight.
   if (!isJsonContentType(request.headers.get("content-type"))) throw new AppError("unsupported_media_type");
-  const declared = Number(request.headers.get("content-length") ?? "0");
-  if (declared > maxBytes) throw new AppError("payload_too_large");
-  const text = await request.text();
-  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload_too_large");
+  const text = await readBodyText(request, maxBytes);
   if (!text.trim()) throw new AppError("invalid_input", "The request body is empty.", [{ path: "(root)", message: "Expected a JSON body" }]);
   try {
     return JSON.parse(text);

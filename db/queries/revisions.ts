@@ -5,6 +5,7 @@ import { auditEvents, foundationDrafts, foundations, projectMembers, projects, r
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
 import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
+import { isAppError } from "@/modules/platform/errors";
 import { getMembership, type Actor } from "./projects";
 import { assertFoundationActive } from "./foundations";
 
@@ -217,7 +218,15 @@ export type IssueOutcome =
  * revision" test or take the same sequence. With `expectedDraftVersion`, a draft saved
  * since the caller looked at it is refused rather than issued unseen.
  */
-export async function issueRevision(actor: Actor, projectId: string, foundationId: string, opts: { expectedDraftVersion?: number } = {}): Promise<IssueOutcome> {
+export async function issueRevision(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  // `analyse`: the server passes its analysis pool (off the request thread); the engine in
+  // this thread by default (scripts and tests). An AppError from it (busy, time limit) is passed on.
+  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult> } = {},
+): Promise<IssueOutcome> {
+  const analyseDraft = opts.analyse ?? (async (input: AnalysisInput) => analyse(input));
   if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
   return getDb().transaction(async (tx) => {
     const [foundation] = await tx
@@ -239,8 +248,9 @@ export async function issueRevision(actor: Actor, projectId: string, foundationI
     if (latest && latest.inputHash === inputHash) return { ok: false, reason: "identical", label: latest.label } as const;
     let result: AnalysisResult;
     try {
-      result = analyse(parsed.input);
+      result = await analyseDraft(parsed.input);
     } catch (e) {
+      if (isAppError(e)) throw e;
       // A draft the contract accepts can still be numerically impossible (a density of 1e308):
       // the engine refuses it, and nothing is issued. Logged, so an engine fault is still seen.
       console.error("[issue] the engine refused a draft that passed the contract:", e instanceof Error ? e.message : e);

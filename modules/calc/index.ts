@@ -16,6 +16,7 @@ export {
 } from "./schema";
 export { analyseTransient, TransientRequestError } from "./transient";
 export { TRANSIENT_LIMITS } from "./transient-settings";
+export { INPUT_LIMITS, checkInputBounds, type BoundIssue } from "./input-limits";
 export type * from "./result-types";
 export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";
 export { DOF_KEYS, type DofKey, type Dof6 } from "./dof";

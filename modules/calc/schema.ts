@@ -4,11 +4,20 @@
 import { z } from "zod";
 import { checkInputConsistency } from "./input-consistency";
 import { TRANSIENT_LIMITS } from "./transient-settings";
+import { INPUT_LIMITS, seriesOfRotor, sweepValuesMessage } from "./input-limits";
+import { resolveSweep } from "./sweep-grid";
 
-const finite = () => z.number({ error: "must be a finite number" });
+const L = INPUT_LIMITS;
+const atMost = (max: number, what: string) => ({ error: (issue: { input?: unknown }) => `at most ${max} ${what}${Array.isArray(issue.input) ? ` (${issue.input.length} given)` : ""}` });
+
+const finite = () =>
+  z
+    .number({ error: "must be a finite number" })
+    .min(-L.maxAbsNumber, { error: `must lie within ±${L.maxAbsNumber.toExponential().replace("+", "")} (SI units)` })
+    .max(L.maxAbsNumber, { error: `must lie within ±${L.maxAbsNumber.toExponential().replace("+", "")} (SI units)` });
 const positive = () => finite().gt(0, { error: "must be greater than 0" });
 const nonNegative = () => finite().min(0, { error: "must be 0 or more" });
-const name = () => z.string({ error: "must be a text" }).trim().min(1, { error: "must not be empty" });
+const name = () => z.string({ error: "must be a text" }).trim().min(1, { error: "must not be empty" }).max(L.maxTextLength, { error: `must be at most ${L.maxTextLength} characters` });
 
 const vec3Schema = z.tuple([finite(), finite(), finite()], { error: "must be [x, y, z] in m" });
 
@@ -28,7 +37,7 @@ const solidSchema = z.strictObject({
 
 const blockSchema = z.strictObject({
   concreteDensity: positive(),
-  solids: z.array(solidSchema, { error: "must be a list of boxes" }).min(1, { error: "the block needs at least one solid" }),
+  solids: z.array(solidSchema, { error: "must be a list of boxes" }).min(1, { error: "the block needs at least one solid" }).max(L.maxSolids, atMost(L.maxSolids, "solids")),
 });
 
 const soilSchema = z.strictObject({
@@ -83,7 +92,7 @@ const rotorSchema = z.strictObject({
   // "z": a vertical shaft (vertical pumps); its load cases are horizontal along x and y and rotating in the plan.
   axis: z.enum(["x", "y", "z"], { error: 'must be "x" or "y" (horizontal shaft) or "z" (vertical shaft)' }),
   unbalanceMode: z.enum(["static", "couple", "both"], { error: 'must be "static", "couple" or "both"' }).default("static"),
-  bearings: z.array(vec3Schema, { error: "must be a list of [x, y, z]" }).min(1, { error: "a rotor needs at least one bearing" }),
+  bearings: z.array(vec3Schema, { error: "must be a list of [x, y, z]" }).min(1, { error: "a rotor needs at least one bearing" }).max(L.maxBearingsPerRotor, atMost(L.maxBearingsPerRotor, "bearings per rotor")),
 });
 
 const machineSchema = z.strictObject({
@@ -91,7 +100,7 @@ const machineSchema = z.strictObject({
   mass: positive(),
   cg: vec3Schema,
   box: boxSchema.optional(),
-  rotors: z.array(rotorSchema, { error: "must be a list of rotors" }).default([]),
+  rotors: z.array(rotorSchema, { error: "must be a list of rotors" }).max(L.maxRotorsPerMachine, atMost(L.maxRotorsPerMachine, "rotors per machine")).default([]),
 });
 
 const checkPointSchema = z.strictObject({ name: name(), position: vec3Schema });
@@ -115,7 +124,7 @@ const sweepSchema = z.strictObject({
     .number({ error: "must be a whole number" })
     .int({ error: "must be a whole number" })
     .min(2, { error: "must be at least 2" })
-    .max(10000, { error: "must be at most 10000" })
+    .max(L.maxSweepPoints, { error: `must be at most ${L.maxSweepPoints}` })
     .optional(),
 });
 
@@ -157,8 +166,8 @@ export const analysisInputBaseSchema = z.strictObject({
   block: blockSchema,
   soil: soilSchema,
   impedance: impedanceSchema,
-  machines: z.array(machineSchema, { error: "must be a list of machines" }).min(1, { error: "at least one machine is needed" }),
-  checkPoints: z.array(checkPointSchema, { error: "must be a list of check points" }).optional(),
+  machines: z.array(machineSchema, { error: "must be a list of machines" }).min(1, { error: "at least one machine is needed" }).max(L.maxMachines, atMost(L.maxMachines, "machines")),
+  checkPoints: z.array(checkPointSchema, { error: "must be a list of check points" }).max(L.maxCheckPoints, atMost(L.maxCheckPoints, "check points")).optional(),
   criteria: criteriaSchema.optional(),
   sweep: sweepSchema.optional(),
   soilBand: soilBandSchema.optional(),
@@ -169,8 +178,24 @@ export const analysisInputBaseSchema = z.strictObject({
     .optional(),
 });
 
-/** The analysis input schema (contract v1) with its physical consistency rules. */
+/** Limits over several lists (INPUT_LIMITS): rotors of all machines, and the size of the sweep's output. */
+function checkCombinedLimits(input: z.output<typeof analysisInputBaseSchema>, add: (path: (string | number)[], message: string) => void): void {
+  const rotors = input.machines.flatMap((m) => m.rotors);
+  if (rotors.length > L.maxRotors) add(["machines"], `at most ${L.maxRotors} rotors in all machines together (${rotors.length} given)`);
+  const checkPoints = input.checkPoints?.length ?? 0;
+  const series = rotors.reduce((n, r) => n + seriesOfRotor(r.unbalanceMode, r.bearings.length, checkPoints), 0);
+  if (resolveSweep(input).points * series > L.maxSweepValues) add(["sweep", "points"], sweepValuesMessage(series));
+}
+
+/** The analysis input schema (contract v1) with its limits and physical consistency rules. */
 export const analysisInputSchema = analysisInputBaseSchema.superRefine((input, ctx) => {
+  let overLimit = false;
+  checkCombinedLimits(input, (path, message) => {
+    overLimit = true;
+    ctx.addIssue({ code: "custom", path, message });
+  });
+  // the consistency rules compare solids pairwise: not worth running on a refused input
+  if (overLimit) return;
   checkInputConsistency(input, (path, message) => ctx.addIssue({ code: "custom", path, message }));
 });
 

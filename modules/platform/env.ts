@@ -13,6 +13,14 @@ const envSchema = z.object({
   // header is ignored; "1": one load balancer; "2": CDN then balancer, ...).
   TRUST_PROXY: z.string().regex(/^[0-9]$/, "TRUST_PROXY must be a hop count from 0 to 9").default("0"),
   SECURE_COOKIES: z.enum(["auto", "0", "1"]).default("auto"),
+  // The analysis pool (app/_lib/analysis-pool.ts): worker threads (default: the cores but one,
+  // at most 4), jobs that may wait for one (more are answered 503), and the time limits.
+  PLINTH_ANALYSIS_WORKERS: z.coerce.number().int().min(1).max(32).optional(),
+  PLINTH_ANALYSIS_QUEUE: z.coerce.number().int().min(0).max(1000).default(16),
+  PLINTH_ANALYSIS_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
+  PLINTH_SIZING_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(30_000),
+  // Set by vitest in its workers: server code then runs from the TypeScript sources, not from Next's bundle.
+  VITEST: z.string().optional(),
 });
 
 export type ServerEnv = z.infer<typeof envSchema>;
@@ -47,6 +55,11 @@ export function getTrustedProxyHops(): number {
 /** Tests that change process.env call this so the next read validates it again. */
 export function resetServerEnvForTests(): void {
   cached = undefined;
+}
+
+/** Under vitest (the sources run as TypeScript), not under Next. */
+export function runsFromSources(): boolean {
+  return getServerEnv().VITEST !== undefined;
 }
 
 export function isDemoMode(): boolean {

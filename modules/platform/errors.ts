@@ -11,6 +11,8 @@ export const errorCodes = {
   unsupported_media_type: { status: 415, message: "Send the body as JSON (Content-Type: application/json)." },
   cross_site: { status: 403, message: "Cross-site request refused." },
   unavailable: { status: 503, message: "The database is briefly unavailable. Please try again in a moment." },
+  busy: { status: 503, message: "The server is busy with other analyses. Please try again in a moment." },
+  analysis_limit: { status: 422, message: "The analysis needed more time or memory than the server allows and was stopped: lower sweep.points, the check points or the speed-ramp runs." },
   internal: { status: 500, message: "Something went wrong on our side." },
 } as const;
 
@@ -24,11 +26,14 @@ export interface FieldIssue {
 export class AppError extends Error {
   readonly code: ErrorCode;
   readonly issues: FieldIssue[];
-  constructor(code: ErrorCode, message?: string, issues: FieldIssue[] = []) {
+  /** Seconds for a Retry-After header (503 busy). */
+  readonly retryAfterS: number | undefined;
+  constructor(code: ErrorCode, message?: string, issues: FieldIssue[] = [], options: { retryAfterS?: number } = {}) {
     super(message ?? errorCodes[code].message);
     this.name = "AppError";
     this.code = code;
     this.issues = issues;
+    this.retryAfterS = options.retryAfterS;
   }
   get status(): number {
     return errorCodes[this.code].status;

@@ -1,25 +1,29 @@
 import type { Metadata } from "next";
 import { roleAllows } from "@/modules/platform/permissions";
-import { analyse } from "@/modules/calc";
-import { governingCheck, type GoverningSummary } from "@/modules/desk/foundation-summary";
+import type { AnalysisInput } from "@/modules/calc";
+import type { GoverningSummary } from "@/modules/desk/foundation-summary";
+import { isAppError } from "@/modules/platform/errors";
+import { governingInPool } from "@/app/_lib/analysis-pool";
 
 // The governing check depends on the input alone, so it is remembered per input
 // (a bounded map per server process): the page then costs no analysis per view.
 const governingByInput = new Map<string, GoverningSummary | null>();
 
-// One foundation the engine cannot analyse must not take the whole project page down.
-function safeGoverning(input: Parameters<typeof analyse>[0]): GoverningSummary | null {
+// One foundation the engine cannot analyse must not take the whole project page down. The
+// analysis runs on the analysis pool; a busy pool leaves the cell empty for this view only.
+async function safeGoverning(input: AnalysisInput): Promise<GoverningSummary | null> {
   const key = JSON.stringify(input);
   if (governingByInput.has(key)) return governingByInput.get(key) ?? null;
+  let g: GoverningSummary | null = null;
   try {
-    const g = governingCheck(analyse(input));
-    if (governingByInput.size >= 500) governingByInput.delete(governingByInput.keys().next().value as string);
-    governingByInput.set(key, g);
-    return g;
+    g = await governingInPool(input);
   } catch (e) {
+    if (isAppError(e) && e.code === "busy") return null;
     console.error("[project page] analysis failed:", e instanceof Error ? e.message : e);
-    return null;
   }
+  if (governingByInput.size >= 500) governingByInput.delete(governingByInput.keys().next().value as string);
+  governingByInput.set(key, g);
+  return g;
 }
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
 import { listFoundationRevisionStates } from "@/db/queries/revisions";
@@ -43,7 +47,10 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
     mayWithdraw ? listWithdrawnFoundations(actor, projectId) : Promise.resolve([]),
   ]);
   const stateOf = new Map(revisionStates.map((s) => [s.foundationId, s]));
-  const rows: FoundationRowView[] = foundations.map((f) => {
+  // one foundation after another: a page of new inputs waits its turn instead of filling the queue
+  const governing: (GoverningSummary | null)[] = [];
+  for (const f of foundations) governing.push(f.input ? await safeGoverning(f.input) : null);
+  const rows: FoundationRowView[] = foundations.map((f, i) => {
     const rev = stateOf.get(f.id);
     const latest = rev?.latest ?? null;
     return {
@@ -57,8 +64,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       openComments: rev?.openComments ?? 0,
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
       flags: latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
-      // The engine is fast enough (a few ms) to give each row its governing check live.
-      governing: f.input ? safeGoverning(f.input) : null,
+      governing: governing[i] ?? null,
       updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
     };
   });

@@ -1,7 +1,8 @@
 import { z } from "zod";
-import { analyse, parseAnalysisInput } from "@/modules/calc";
+import { parseAnalysisInput } from "@/modules/calc";
 import { AppError } from "@/modules/platform/errors";
 import { defineRoute } from "@/app/_lib/route";
+import { AnalysisRefusedError, analyseToJson } from "@/app/_lib/analysis-pool";
 
 export const dynamic = "force-dynamic";
 
@@ -9,7 +10,9 @@ export const dynamic = "force-dynamic";
 const MAX_INPUT_BYTES = 1_000_000;
 
 // The wrapper reads the JSON (413, empty or non-JSON 400); the contract's parser then
-// gives every problem its JSON path in the contract's own words.
+// gives every problem its JSON path in the contract's own words, the input limits included.
+// The analysis runs on the analysis pool (503 busy when its queue is full, 422 past its time
+// limit), and its JSON text is answered as the worker wrote it.
 export const POST = defineRoute({
   access: { kind: "signedIn" },
   body: z.unknown(),
@@ -18,13 +21,14 @@ export const POST = defineRoute({
     const parsed = parseAnalysisInput(body);
     if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
     try {
-      return analyse(parsed.input);
+      return new Response(await analyseToJson(parsed.input), { headers: { "content-type": "application/json" } });
     } catch (e) {
-      // An input the contract accepts can still be numerically impossible (a density of
-      // 1e308, a block 1e300 m tall): the engine then refuses (no NaN or Infinity ever leaves
-      // it, or a factorisation fails). That is the caller's input, so a 400, logged so an
-      // engine fault on ordinary input is still seen.
-      console.error("[calculate] analysis refused an input that passed the contract:", e instanceof Error ? e.message : e);
+      if (!(e instanceof AnalysisRefusedError)) throw e;
+      // An input the contract accepts can still be numerically impossible (a block 1e15 m
+      // tall): the engine then refuses (no NaN or Infinity ever leaves it, or a factorisation
+      // fails). That is the caller's input, so a 400, logged so an engine fault on ordinary
+      // input is still seen.
+      console.error("[calculate] analysis refused an input that passed the contract:", e.message);
       throw new AppError("invalid_input", "These values cannot be analysed: check the input's units and magnitudes.", [{ path: "(root)", message: "values too large or too small to analyse" }]);
     }
   },

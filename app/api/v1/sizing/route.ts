@@ -1,7 +1,8 @@
-import { proposeBlockSizesAsync, type SizingIssue } from "@/modules/sizing";
+import type { SizingIssue, SizingOutcome } from "@/modules/sizing";
 import { SIZING_API_LIMITS, sizingRequestSchema } from "@/modules/desk/mat-sizing";
 import { AppError, type FieldIssue } from "@/modules/platform/errors";
 import { defineRoute } from "@/app/_lib/route";
+import { AnalysisRefusedError, proposeBlockSizesInPool } from "@/app/_lib/analysis-pool";
 
 export const dynamic = "force-dynamic";
 
@@ -25,13 +26,14 @@ export const POST = defineRoute({
   body: sizingRequestSchema,
   maxBodyBytes: MAX_BODY_BYTES,
   handler: async (_ctx, body) => {
-    let outcome: Awaited<ReturnType<typeof proposeBlockSizesAsync>>;
+    let outcome: SizingOutcome;
     try {
-      // Under the API's cap on analyses, and in slices of ~20 ms, so the server keeps
-      // answering other requests during a long search. Every problem of both documents comes
-      // back in one answer.
-      outcome = await proposeBlockSizesAsync(body.input, body.options, { limits: SIZING_API_LIMITS });
+      // Under the API's cap on analyses, on the analysis pool (its own, longer time limit), so
+      // the server keeps answering other requests during a long search. Every problem of both
+      // documents comes back in one answer.
+      outcome = await proposeBlockSizesInPool(body.input, body.options, SIZING_API_LIMITS);
     } catch (e) {
+      if (!(e instanceof AnalysisRefusedError)) throw e;
       // As in /calculate: an input the contract accepts can still be numerically impossible
       // (a density of 1e308), and the engine then refuses it. That is the caller's input, so
       // a 400, logged so that a fault of the engine or the assistant is still seen.

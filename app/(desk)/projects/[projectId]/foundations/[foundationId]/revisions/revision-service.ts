@@ -14,6 +14,7 @@ import {
 } from "@/db/queries/revisions";
 import type { Actor } from "@/db/queries/projects";
 import { appUrl, sendEmail } from "@/app/_lib/mailer";
+import { analyseInPool } from "@/app/_lib/analysis-pool";
 
 // The revision commands shared by the server actions and the route handlers: the
 // query does the transition and its audit event in one transaction; this turns its
@@ -40,7 +41,7 @@ async function notify(recipients: { email: string }[], subject: string, text: st
 }
 
 export async function issueForCheck(actor: Actor, input: { projectId: string; foundationId: string; draftVersion?: number }): Promise<RevisionSummary> {
-  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion });
+  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion, analyse: analyseInPool });
   if (!out.ok) {
     switch (out.reason) {
       case "forbidden":

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { parseAnalysisInput } from "@/modules/calc";
+import { checkInputBounds, formatPath, parseAnalysisInput } from "@/modules/calc";
 import { AppError, errorCodes } from "@/modules/platform/errors";
 import { getDraft, saveDraft } from "@/db/queries/drafts";
 import { defineRoute } from "@/app/_lib/route";
@@ -30,6 +30,12 @@ export const PUT = defineRoute({
   body: putBodySchema,
   handler: async ({ auth, params }, body) => {
     const foundationId = foundationIdOf(params);
+    // The contract's size and magnitude limits first, on the document as sent: they hold for
+    // an unfinished draft too, so nothing stored can later stall the page or the issue action.
+    const overLimit = checkInputBounds(body.input);
+    if (overLimit.length) {
+      throw new AppError("invalid_input", "The analysis input is over the contract's limits.", overLimit.map((i) => ({ path: formatPath(i.path), message: i.message })));
+    }
     const parsed = parseAnalysisInput(body.input);
     if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
     const saved = await saveDraft(auth!.actor, params.projectId, foundationId, { input: parsed.input, expectedVersion: body.version });

@@ -1,0 +1,9 @@
+// The jobs the analysis pool runs, shared by the pool and its worker.
+import type { AnalysisInput } from "../../modules/calc/schema";
+import type { SizingLimits } from "../../modules/sizing/options";
+
+export type AnalysisJob =
+  | { kind: "analyse"; input: AnalysisInput }
+  | { kind: "governing"; input: AnalysisInput }
+  | { kind: "sizing"; document: unknown; options: unknown; limits: SizingLimits }
+  | { kind: "spin" };

@@ -1,0 +1,53 @@
+// Issue 19, item 1, against the production server (`next start`): the probe's input is refused
+// with the fields named, and /api/health keeps answering within 200 ms while the heaviest input
+// the contract accepts is analysed (on the analysis pool that Next's build bundles).
+import { beforeAll, describe, expect, it } from "vitest";
+import { appUrl } from "./support/browser";
+import { DEMO_PASSWORD, demo } from "./support/desk";
+import { hostileInput, worstAcceptedInput } from "../support/limit-inputs";
+
+let cookie: string;
+
+beforeAll(async () => {
+  const res = await fetch(`${appUrl}/api/v1/session`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify({ email: demo.viewer.email, password: DEMO_PASSWORD }),
+  });
+  expect(res.status).toBe(200);
+  cookie = (res.headers.get("set-cookie") ?? "").split(";")[0] ?? "";
+  expect(cookie).toContain("=");
+});
+
+const calculate = (body: unknown) => fetch(`${appUrl}/api/v1/calculate`, { method: "POST", headers: { cookie, "content-type": "application/json" }, body: JSON.stringify(body) });
+
+describe("no single request stops the server", () => {
+  it("refuses the probe's input (2,000 check points, 10,000 sweep points) with 400 naming both fields", async () => {
+    const res = await calculate(hostileInput());
+    expect(res.status).toBe(400);
+    const body = (await res.json()) as { error: { issues: { path: string }[] } };
+    expect(body.error.issues.map((i) => i.path)).toEqual(expect.arrayContaining(["checkPoints", "sweep.points"]));
+  });
+
+  it("answers /api/health within 200 ms while the heaviest accepted input and the probe's input are analysed", async () => {
+    let done = false;
+    const heavy = calculate(worstAcceptedInput()).then(async (r) => ({ status: r.status, body: (await r.json()) as { sweep: { frequencyHz: number[] } } })).finally(() => (done = true));
+    const hostile = calculate(hostileInput()).then((r) => r.status);
+    const latencies: number[] = [];
+    while (!done) {
+      const t0 = performance.now();
+      const res = await fetch(`${appUrl}/api/health`);
+      await res.arrayBuffer();
+      latencies.push(performance.now() - t0);
+      expect(res.status).toBe(200);
+      await new Promise((r) => setTimeout(r, 25));
+    }
+    const result = await heavy;
+    expect(result.status).toBe(200);
+    expect(result.body.sweep.frequencyHz).toHaveLength(worstAcceptedInput().sweep.points);
+    expect(await hostile).toBe(400);
+    expect(latencies.length).toBeGreaterThan(5);
+    expect(Math.max(...latencies)).toBeLessThan(200);
+    console.log(`[request-limits e2e] ${latencies.length} health checks during the analysis, max ${Math.max(...latencies).toFixed(1)} ms`);
+  });
+});
