@@ -18,6 +18,19 @@ export { analyseTransient, TransientRequestError } from "./transient";
 export { TRANSIENT_LIMITS } from "./transient-settings";
 export type * from "./result-types";
 export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";
+export {
+  BAND_CHECKED_IDS,
+  BAND_CHECK_KEY_PATTERN,
+  CHECK_VERDICT_LABELS,
+  bandCheckId,
+  checkVerdict,
+  nominalCheckId,
+  soilCaseText,
+  type BandCheckedId,
+  type CheckVerdict,
+  type SoilBoundName,
+} from "./band-checks";
+export { ACCEPTANCE_JUSTIFICATION_MIN, ACCEPTANCE_JUSTIFICATION_MAX, type AcceptanceInput } from "./schema";
 export { DOF_KEYS, type DofKey, type Dof6 } from "./dof";
 
 /** Validates a JSON value and analyses it: the shared path of the CLI and the HTTP API. */
