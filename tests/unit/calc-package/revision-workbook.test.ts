@@ -20,6 +20,24 @@ describe("revision workbook", () => {
     }
   }
 
+  it("the checks sheet lists the band checks and shows an accepted band failure as a failure with its justification", async () => {
+    const input = exampleInput("raw-water-pump-train");
+    const key = "frequency-separation@soil-upper/Motor RWM-101/rotor/mode-6";
+    const justification = "Site tests bound G at 1.2 x nominal; see the geotechnical addendum (demo text).";
+    const d = packageData({ ...input, acceptances: [{ checkKey: key, justification }] });
+    expect(d.result.checks.filter((c) => c.soilCase).length).toBeGreaterThan(0);
+    const wb = await roundTrip(await revisionWorkbookBytes(d));
+    expectRevisionNumbers(wb, d.input, d.result);
+    const tables = readTables(wb.getWorksheet("Checks") as ExcelJS.Worksheet);
+    const rows = tables.filter((t) => t.headers[0] === "Check").flatMap((t) => t.rows.map((r) => Object.fromEntries(t.headers.map((h, i) => [h, r[i]]))));
+    const accepted = rows.find((r) => typeof r.Check === "string" && r.Check.startsWith("At the upper soil bound (G x 1.5): Mode 6") && r.Machine === "Motor RWM-101");
+    expect(accepted).toMatchObject({ Verdict: "FAIL, accepted with justification", Justification: justification });
+    const open = rows.find((r) => typeof r.Check === "string" && r.Check.startsWith("At the upper soil bound (G x 1.5): Mode 6") && r.Machine === "Raw-water pump RWP-101");
+    expect(open?.Verdict).toBe("FAIL");
+    const summary = tableByTitle(tables, "Summary");
+    expect(JSON.stringify(summary.rows)).toContain("Failing, accepted with justification");
+  });
+
   it("US headers name US units and SI headers SI ones", async () => {
     const si = readTables((await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"), "si")))).getWorksheet("Response") as ExcelJS.Worksheet);
     const us = readTables((await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"), "us")))).getWorksheet("Response") as ExcelJS.Worksheet);
