@@ -35,8 +35,8 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
             {failing} of {sorted.length} checks fail{accepted ? `, ${accepted} of them accepted with justification` : ""}
           </span>
         )}
-        {result.bounds ? <span className="ml-2 text-2xs text-basalt-500">frequency separation, displacement and velocity are also checked at the lower and upper soil bound</span> : null}
       </p>
+      {result.bounds ? <p className="mb-2 text-2xs text-basalt-500">Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.</p> : null}
       <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200">
         <table data-testid="checks-table">
           <thead className="sticky top-0">
