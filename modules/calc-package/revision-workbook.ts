@@ -488,6 +488,11 @@ function checkRows(checks: CheckResult[]): Cell[][] {
   ]);
 }
 
+/** The verdict with an accepted band failure's justification, for tables without a Justification column. */
+export function verdictWithJustification(c: CheckResult): string {
+  return c.acceptance ? `${packageVerdict(c)}: ${c.acceptance.justification}` : packageVerdict(c);
+}
+
 /** The verdict cell: a band failure accepted with a justification still reads as a failure. */
 export function packageVerdict(c: CheckResult): string {
   const v = checkVerdict(c);
