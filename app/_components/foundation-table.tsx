@@ -2,6 +2,7 @@
 
 import Link from "next/link";
 import { useMemo, useState } from "react";
+import type { GoverningSummary } from "@/modules/desk/foundation-summary";
 import {
   createColumnHelper,
   flexRender,
@@ -22,7 +23,7 @@ export interface FoundationRowView {
   latestRevisionId: string | null;
   openComments: number;
   flags: string[];
-  governing: { label: string; pass: boolean; utilisation: number; failing: number; total: number } | null;
+  governing: GoverningSummary | null;
   updatedAt: string;
 }
 
@@ -77,8 +78,14 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
           if (!g) return <span className="text-basalt-400">no complete input</span>;
           return (
             <span className="text-xs">
-              <span className={`tag mr-1.5 ${g.pass ? "bg-moss-100 text-moss-700" : "bg-brick-100 text-brick-700"}`}>{g.pass ? "pass" : `${g.failing} fail`}</span>
+              <span
+                className={`tag mr-1.5 ${g.pass ? "bg-moss-100 text-moss-700" : g.failing > g.accepted ? "bg-brick-100 text-brick-700" : "bg-ochre-100 text-ochre-700"}`}
+                data-verdict={g.verdict}
+              >
+                {g.pass ? "pass" : [g.failing > g.accepted ? `${g.failing - g.accepted} fail` : "", g.accepted ? `${g.accepted} accepted with justification` : ""].filter(Boolean).join(", ")}
+              </span>
               {g.label} <span className="font-mono text-basalt-400">({(g.utilisation * 100).toFixed(0)} % of limit)</span>
+              {g.justification ? <span className="block text-2xs text-ochre-700">accepted with justification: {g.justification}</span> : null}
             </span>
           );
         },

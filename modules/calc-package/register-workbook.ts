@@ -4,7 +4,7 @@ import ExcelJS from "exceljs";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { revisionStatusLabels } from "@/modules/revisions";
-import { checkKind, signatures, UNIT_SYSTEM_NAMES } from "./revision-workbook";
+import { checkKind, signatures, UNIT_SYSTEM_NAMES, verdictWithJustification } from "./revision-workbook";
 import { SheetWriter, type Cell } from "./sheet-writer";
 import type { RegisterData } from "./types";
 
@@ -37,7 +37,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
       sign?.checked ?? null,
       sign?.approved ?? null,
       gov?.label ?? null,
-      gov ? gov.pass : null,
+      gov ? verdictWithJustification(gov) : null,
       gov ? checkUtilisation(gov) : null,
       l ? l.result.checks.filter((c) => !c.pass).length : null,
       l?.openComments ?? null,
@@ -83,7 +83,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
     g.table(
       kind === "ratio" ? "Ratios (frequency separation, mass ratio, eccentricity, bearing pressure)" : kind === "displacement" ? "Displacements" : "Velocities",
       [{ header: "Foundation" }, { header: "Revision" }, { header: "Check" }, { header: "Point" }, { header: "Value", kind }, { header: "Limit", kind }, { header: "Verdict" }, { header: "Source" }],
-      mine.map(({ r, gov, label }) => [r.tag, label, gov.label, gov.point ?? null, gov.value, gov.limit, gov.pass, gov.source]),
+      mine.map(({ r, gov, label }) => [r.tag, label, gov.label, gov.point ?? null, gov.value, gov.limit, verdictWithJustification(gov), gov.source]),
     );
   }
   g.widths([16, 10, 40, 26, 14, 14, 10, 80]);

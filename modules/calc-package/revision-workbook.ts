@@ -3,7 +3,7 @@
 // the project's unit system with the unit in every header, and a hand-check sheet whose
 // single-degree-of-freedom values are live formulas.
 import ExcelJS from "exceljs";
-import { CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, type CheckResult, type DofKey } from "@/modules/calc";
+import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, type CheckResult, type DofKey } from "@/modules/calc";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
 import { revisionStatusLabels } from "@/modules/revisions";
@@ -482,9 +482,21 @@ function checkRows(checks: CheckResult[]): Cell[][] {
     c.limit,
     c.comparison === "min" ? "at least" : "at most",
     checkUtilisation(c),
-    c.pass,
+    packageVerdict(c),
+    c.acceptance?.justification ?? null,
     c.source,
   ]);
+}
+
+/** The verdict with an accepted band failure's justification, for tables without a Justification column. */
+export function verdictWithJustification(c: CheckResult): string {
+  return c.acceptance ? `${packageVerdict(c)}: ${c.acceptance.justification}` : packageVerdict(c);
+}
+
+/** The verdict cell: a band failure accepted with a justification still reads as a failure. */
+export function packageVerdict(c: CheckResult): string {
+  const v = checkVerdict(c);
+  return v === "pass" ? "pass" : v === "accepted" ? `FAIL, ${CHECK_VERDICT_LABELS.accepted}` : "FAIL";
 }
 
 /** The quantity a check's value and limit carry, from the unit the engine gives it. */
@@ -502,6 +514,7 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
   w.pairs("Summary", [
     { label: "Checks", value: all.length, kind: "count" },
     { label: "Failing", value: all.filter((c) => !c.pass).length, kind: "count" },
+    { label: "Failing, accepted with justification", value: all.filter((c) => checkVerdict(c) === "accepted").length, kind: "count" },
     { label: "Governing check", value: gov?.label ?? "—", note: gov ? `uses ${(gov.utilisation * 100).toFixed(0)} % of its limit` : undefined },
   ]);
   const groups: { title: string; kind: PackageKind }[] = [
@@ -527,12 +540,13 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
         { header: "Limit is" },
         { header: "Use of limit", kind: "ratio" },
         { header: "Verdict" },
+        { header: "Justification" },
         { header: "Source" },
       ],
       checkRows(mine),
     );
   }
-  w.widths([36, 20, 12, 12, 10, 26, 8, 14, 14, 10, 12, 10, 80]);
+  w.widths([36, 20, 12, 12, 10, 26, 8, 14, 14, 10, 12, 10, 40, 80]);
 }
 
 function history(w: SheetWriter, d: RevisionPackageData): void {

@@ -2,6 +2,7 @@
 // cross-check, warnings and (when asked) start-up and coast-down runs, assembled into the
 // contract's result.
 import { analysisWarnings } from "./analysis-warnings";
+import { applyAcceptances, boundChecks } from "./band-checks";
 import { buildChecks, resolveCriteria } from "./checks";
 import { buildCrossCheck } from "./closed-form";
 import { assertFinite } from "./finite";
@@ -30,7 +31,18 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   const modesHz = nominal.modes.map((m) => m.frequencyHz);
   const sweep = frequencySweep(model, nominal.solver, sweepSettings, modesHz, criteria.frequencySeparation.value);
   const crossCheck = buildCrossCheck(model, nominal);
-  const checks = buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure);
+  const band = options.soilBand === false ? undefined : soilBand(model);
+  const userSprings = input.impedance.method === "user";
+  // Nominal checks first (their ids and order unchanged), then the same soil-dependent checks at
+  // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
+  const accepted = applyAcceptances(
+    [
+      ...buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure),
+      ...(band ? [...boundChecks(criteria, "lower", band.cases.lower, band.source, userSprings), ...boundChecks(criteria, "upper", band.cases.upper, band.source, userSprings)] : []),
+    ],
+    input.acceptances,
+  );
+  const checks = accepted.checks;
   // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
   const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;
   const warnings = [
@@ -38,6 +50,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     ...nominal.impedance.warnings,
     ...analysisWarnings(model, nominal, sweepSettings),
     ...(transient ?? []).flatMap((t) => t.warnings),
+    ...accepted.warnings,
   ];
   const result: AnalysisResult = {
     schemaVersion: 1,
@@ -49,7 +62,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     checks,
     sweep,
     warnings,
-    ...(options.soilBand === false ? {} : { bounds: soilBand(model) }),
+    ...(band ? { bounds: { source: band.source, lower: band.lower, upper: band.upper } } : {}),
     crossCheck,
     criteria,
     ...(transient ? { transient } : {}),

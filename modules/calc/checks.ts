@@ -35,13 +35,12 @@ function check(
   return { ...base, pass };
 }
 
-export function buildChecks(
-  criteria: Criteria,
-  mass: MassPropertiesResult,
-  modes: Mode[],
-  rotors: RotorResult[],
-  allowableBearingPressure: number,
-): CheckResult[] {
+/**
+ * The checks that depend on the soil stiffness (frequency separation, displacement, velocity) for
+ * one soil case's modes and rotor responses: at nominal here, at the band's bounds in
+ * band-checks.ts, with the same measures and criteria.
+ */
+export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: RotorResult[]): CheckResult[] {
   const checks: CheckResult[] = [];
   for (const r of rotors) {
     const range = r.speedRangeRpm ?? [r.speedRpm, r.speedRpm];
@@ -96,6 +95,17 @@ export function buildChecks(
       }
     }
   }
+  return checks;
+}
+
+export function buildChecks(
+  criteria: Criteria,
+  mass: MassPropertiesResult,
+  modes: Mode[],
+  rotors: RotorResult[],
+  allowableBearingPressure: number,
+): CheckResult[] {
+  const checks = soilDependentChecks(criteria, modes, rotors);
   checks.push(
     check({
       id: "mass-ratio",

@@ -19,6 +19,19 @@ export { TRANSIENT_LIMITS } from "./transient-settings";
 export { INPUT_LIMITS, checkInputBounds, type BoundIssue } from "./input-limits";
 export type * from "./result-types";
 export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";
+export {
+  BAND_CHECKED_IDS,
+  BAND_CHECK_KEY_PATTERN,
+  CHECK_VERDICT_LABELS,
+  bandCheckId,
+  checkVerdict,
+  nominalCheckId,
+  soilCaseText,
+  type BandCheckedId,
+  type CheckVerdict,
+  type SoilBoundName,
+} from "./band-checks";
+export { ACCEPTANCE_JUSTIFICATION_MIN, ACCEPTANCE_JUSTIFICATION_MAX, type AcceptanceInput } from "./schema";
 export { DOF_KEYS, type DofKey, type Dof6 } from "./dof";
 
 /** Validates a JSON value and analyses it: the shared path of the CLI and the HTTP API. */

@@ -108,6 +108,18 @@ export interface CheckResult {
   unbalanceMode?: UnbalanceModeName;
   point?: string;
   mode?: number;
+  /**
+   * Soil case of a check of the soil band (band-checks.ts): absent at nominal soil. Band checks
+   * have their own ids (`frequency-separation@soil-upper` ...), so a nominal id keeps its meaning.
+   */
+  soilCase?: "lower" | "upper";
+  /** Factor on G (or on the user stiffness) of that bound. */
+  soilFactor?: number;
+  /**
+   * A failing band check the designer accepted with a written justification (input
+   * `acceptances`). `pass` stays false; the verdict reads "accepted with justification".
+   */
+  acceptance?: { justification: string };
 }
 
 export interface SweepSeries {

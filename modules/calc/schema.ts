@@ -2,6 +2,7 @@
 // of truth for the contract: every object is strict (unknown fields are refused), numbers must
 // be finite, and the physical consistency rules of input-consistency.ts run on top.
 import { z } from "zod";
+import { BAND_CHECK_KEY_PATTERN } from "./band-checks";
 import { checkInputConsistency } from "./input-consistency";
 import { TRANSIENT_LIMITS } from "./transient-settings";
 import { INPUT_LIMITS, seriesOfRotor, sweepValuesMessage } from "./input-limits";
@@ -136,6 +137,34 @@ const soilBandSchema = z.strictObject({
   upperFactor: finite().min(1, { error: "must be 1 or more" }).optional(),
 });
 
+/** Shortest written justification of an acceptance (software rule: a word or two is no justification). */
+export const ACCEPTANCE_JUSTIFICATION_MIN = 20;
+export const ACCEPTANCE_JUSTIFICATION_MAX = 2000;
+
+/** The designer's acceptance of one failing soil-band check, with the written justification. */
+const acceptanceSchema = z.strictObject({
+  checkKey: z
+    .string({ error: "must be a text" })
+    .trim()
+    .regex(BAND_CHECK_KEY_PATTERN, { error: "must be the key of a soil-band check (frequency-separation, displacement or velocity @soil-lower or @soil-upper); only band checks can be accepted" }),
+  justification: z
+    .string({ error: "must be a text" })
+    .trim()
+    .min(ACCEPTANCE_JUSTIFICATION_MIN, { error: `write the justification (at least ${ACCEPTANCE_JUSTIFICATION_MIN} characters)` })
+    .max(ACCEPTANCE_JUSTIFICATION_MAX, { error: `at most ${ACCEPTANCE_JUSTIFICATION_MAX} characters` }),
+});
+
+const acceptancesSchema = z
+  .array(acceptanceSchema, { error: "must be a list of acceptances" })
+  .max(500, { error: "at most 500 acceptances" })
+  .superRefine((list, ctx) => {
+    const seen = new Set<string>();
+    list.forEach((a, i) => {
+      if (seen.has(a.checkKey)) ctx.addIssue({ code: "custom", path: [i, "checkKey"], message: "this check is already accepted above" });
+      seen.add(a.checkKey);
+    });
+  });
+
 /**
  * One start-up or coast-down run through resonance (transient.ts). Speeds default to standstill
  * and the rated speed; the consistency rules check the names and the direction of the run.
@@ -176,6 +205,8 @@ export const analysisInputBaseSchema = z.strictObject({
     .min(1, { error: "give at least one run, or leave the field out" })
     .max(TRANSIENT_LIMITS.maxRuns, { error: `at most ${TRANSIENT_LIMITS.maxRuns} runs` })
     .optional(),
+  /** Failing soil-band checks accepted with a written justification (band-checks.ts). */
+  acceptances: acceptancesSchema.optional(),
 });
 
 /** Limits over several lists (INPUT_LIMITS): rotors of all machines, and the size of the sweep's output. */
@@ -210,6 +241,7 @@ export type SoilInput = AnalysisInput["soil"];
 export type ImpedanceInput = AnalysisInput["impedance"];
 /** A parsed start-up or coast-down request (defaults applied). */
 export type TransientRequest = z.output<typeof transientRequestSchema>;
+export type AcceptanceInput = z.output<typeof acceptanceSchema>;
 /** The request as written. */
 export type TransientRequestDocument = z.input<typeof transientRequestSchema>;
 

@@ -16,13 +16,24 @@ export function boundFromCase(model: Model, sc: SoilCase): BoundResult {
   };
 }
 
-export function soilBand(model: Model): { source: string; lower: BoundResult; upper: BoundResult } {
+export interface SoilBandRun {
+  source: string;
+  lower: BoundResult;
+  upper: BoundResult;
+  /** The two soil cases themselves, for the band checks (band-checks.ts). */
+  cases: { lower: SoilCase; upper: SoilCase };
+}
+
+export function soilBand(model: Model): SoilBandRun {
   const band = model.input.soilBand;
   const lowerFactor = band?.lowerFactor ?? SOIL_BAND_DEFAULTS.lowerFactor;
   const upperFactor = band?.upperFactor ?? SOIL_BAND_DEFAULTS.upperFactor;
+  const lower = runSoilCase(model, lowerFactor);
+  const upper = runSoilCase(model, upperFactor);
   return {
     source: band?.lowerFactor === undefined && band?.upperFactor === undefined ? SOIL_BAND_DEFAULTS.source : "factors set in the input",
-    lower: boundFromCase(model, runSoilCase(model, lowerFactor)),
-    upper: boundFromCase(model, runSoilCase(model, upperFactor)),
+    lower: boundFromCase(model, lower),
+    upper: boundFromCase(model, upper),
+    cases: { lower, upper },
   };
 }

@@ -3,7 +3,7 @@
 // turns the form into the contract's JSON (blank optional fields dropped) and the
 // contract's zod schema then has the last word on the server.
 import * as yup from "yup";
-import { TRANSIENT_LIMITS, type AnalysisInputDocument } from "@/modules/calc";
+import { ACCEPTANCE_JUSTIFICATION_MAX, ACCEPTANCE_JUSTIFICATION_MIN, TRANSIENT_LIMITS, type AnalysisInputDocument } from "@/modules/calc";
 
 export type Num = number | null;
 export type Vec3Form = [Num, Num, Num];
@@ -88,6 +88,16 @@ export interface DraftForm {
   sweep: { fromHz: Num; toHz: Num; points: Num };
   /** Start-up and coast-down runs through resonance; none by default. */
   transient: TransientRunForm[];
+  /**
+   * Failing soil-band checks the designer accepts with a written justification (the contract's
+   * `acceptances`, modules/calc/band-checks.ts). A blank justification is no acceptance.
+   */
+  acceptances: AcceptanceForm[];
+}
+
+export interface AcceptanceForm {
+  checkKey: string;
+  justification: string;
 }
 
 const emptyDof = (): Dof6Form => ({ x: null, y: null, z: null, rx: null, ry: null, rz: null });
@@ -138,6 +148,7 @@ export function emptyDraftForm(): DraftForm {
     soilBand: { lowerFactor: null, upperFactor: null },
     sweep: { fromHz: null, toHz: null, points: null },
     transient: [],
+    acceptances: [],
   };
 }
 
@@ -263,6 +274,7 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
       unbalanceMode: t.unbalanceMode ?? null,
       outputPoints: t.outputPoints ?? null,
     })),
+    acceptances: (input.acceptances ?? []).map((a) => ({ checkKey: a.checkKey, justification: a.justification })),
   };
 }
 
@@ -281,6 +293,7 @@ export function toInputDocument(f: DraftForm): unknown {
   const criteria = dropNulls(f.criteria);
   const band = dropNulls(f.soilBand);
   const sweep = dropNulls(f.sweep);
+  const acceptances = (f.acceptances ?? []).filter((a) => a.justification.trim() !== "");
   return {
     schemaVersion: 1,
     block: { concreteDensity: f.block.concreteDensity, solids: f.block.solids.map((s) => ({ name: s.name, x: s.x, y: s.y, z: s.z, void: s.void })) },
@@ -330,7 +343,15 @@ export function toInputDocument(f: DraftForm): unknown {
           })),
         }
       : {}),
+    ...(acceptances.length ? { acceptances: acceptances.map((a) => ({ checkKey: a.checkKey, justification: a.justification })) } : {}),
   };
+}
+
+/** Sets, changes or (with a blank text) withdraws the acceptance of one band check. */
+export function withAcceptance(list: readonly AcceptanceForm[], checkKey: string, justification: string): AcceptanceForm[] {
+  if (justification === "") return list.filter((a) => a.checkKey !== checkKey);
+  if (!list.some((a) => a.checkKey === checkKey)) return [...list, { checkKey, justification }];
+  return list.map((a) => (a.checkKey === checkKey ? { checkKey, justification } : a));
 }
 
 // ---- the browser's validation (the same limits as the contract's zod schema) ----
@@ -435,4 +456,14 @@ export const draftFormSchema = yup.object({
     )
     .min(1, "At least one machine is needed"),
   transient: yup.array().of(transientRunSchema).max(L.maxRuns, `At most ${L.maxRuns} runs`),
+  acceptances: yup.array().of(
+    yup.object({
+      checkKey: yup.string().required(),
+      // blank withdraws the acceptance; otherwise the contract's bounds (modules/calc/schema.ts)
+      justification: yup
+        .string()
+        .test("written", `Write the justification (at least ${ACCEPTANCE_JUSTIFICATION_MIN} characters), or clear it`, (v) => !v || v.trim() === "" || v.trim().length >= ACCEPTANCE_JUSTIFICATION_MIN)
+        .max(ACCEPTANCE_JUSTIFICATION_MAX, `At most ${ACCEPTANCE_JUSTIFICATION_MAX} characters`),
+    }),
+  ),
 });

@@ -4,7 +4,7 @@
 // and per-cent change. Array members that carry a unique name (boxes, machines,
 // rotors, result points, checks) are matched by that name, so reordering them is not
 // a change; other arrays (coordinates, bearings, modes) are compared position by position.
-import type { AnalysisResult, CheckResult, TransientResult } from "@/modules/calc";
+import { checkVerdict, type AnalysisResult, type CheckResult, type CheckVerdict, type TransientResult } from "@/modules/calc";
 
 export type LeafValue = number | string | boolean | null;
 
@@ -37,6 +37,13 @@ export interface CheckFlip {
   unit?: string;
   oldPass: boolean;
   newPass: boolean;
+  /** pass, fail or accepted (failed, accepted with a justification): a change of verdict is a flip too. */
+  oldVerdict: CheckVerdict;
+  newVerdict: CheckVerdict;
+  /** The newer revision's justification of an accepted band check. */
+  justification?: string;
+  /** Soil bound of a band check (absent at nominal soil). */
+  soilCase?: "lower" | "upper";
   oldValue: number;
   newValue: number;
   oldLimit: number;
@@ -219,13 +226,21 @@ function checkKey(c: CheckResult): string {
   return c.key ?? `${c.id}/${c.label}`;
 }
 
-/** Checks in both results whose verdict differs; newly failing first. */
+/**
+ * Checks in both results whose verdict differs (pass, fail, accepted with justification); newly
+ * failing first, then newly accepted, then newly passing. A check present in one result only
+ * (e.g. band checks against a revision computed before they existed) is no flip: it shows in the
+ * result's difference as added or removed.
+ */
 export function flippedChecks(oldChecks: readonly CheckResult[], newChecks: readonly CheckResult[]): CheckFlip[] {
   const before = new Map(oldChecks.map((c) => [checkKey(c), c]));
   const flips: CheckFlip[] = [];
   for (const n of newChecks) {
     const o = before.get(checkKey(n));
-    if (!o || o.pass === n.pass) continue;
+    if (!o) continue;
+    const oldVerdict = checkVerdict(o);
+    const newVerdict = checkVerdict(n);
+    if (oldVerdict === newVerdict) continue;
     flips.push({
       key: checkKey(n),
       label: n.label,
@@ -233,13 +248,18 @@ export function flippedChecks(oldChecks: readonly CheckResult[], newChecks: read
       ...(n.unit ? { unit: n.unit } : {}),
       oldPass: o.pass,
       newPass: n.pass,
+      oldVerdict,
+      newVerdict,
+      ...(n.acceptance ? { justification: n.acceptance.justification } : {}),
+      ...(n.soilCase ? { soilCase: n.soilCase } : {}),
       oldValue: o.value,
       newValue: n.value,
       oldLimit: o.limit,
       newLimit: n.limit,
     });
   }
-  return flips.sort((x, y) => Number(x.newPass) - Number(y.newPass) || x.label.localeCompare(y.label));
+  const order: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2 };
+  return flips.sort((x, y) => order[x.newVerdict] - order[y.newVerdict] || x.label.localeCompare(y.label));
 }
 
 // The frequency sweep and the envelope series of the start-up and coast-down runs are

@@ -19,5 +19,4 @@ export {
   type SizingLimits,
 } from "./options";
 export { readBaseMat, concreteVolume, minimumFit, type BaseMat, type MatDimensions } from "./base-mat";
-export { SOIL_BAND_SEPARATION_ID, soilBandSeparationChecks } from "./evaluate";
 export type { Placement } from "./resize";

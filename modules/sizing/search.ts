@@ -9,11 +9,11 @@
 // (rho V_net / machine mass) and the static bearing pressure ((rho V_net + machine mass) g / A,
 // A = L W for a mat without voids at its underside). A candidate is skipped only when it misses
 // by more than a relative 1e-9; borderline ones go to the core, which has the last word.
-import { CRITERIA_DEFAULTS, parseAnalysisInput, type AnalysisInput, type CheckResult } from "@/modules/calc";
+import { bandCheckId, CRITERIA_DEFAULTS, nominalCheckId, parseAnalysisInput, type AnalysisInput, type CheckResult } from "@/modules/calc";
 import { STANDARD_GRAVITY } from "@/modules/calc/criteria-defaults";
 import { checkUtilisation } from "@/modules/desk/foundation-summary";
 import { concreteVolume, minimumFit, readBaseMat, LENGTH_TOLERANCE_M, type BaseMat, type MatDimensions } from "./base-mat";
-import { checkMargin, evaluateCandidate, SOIL_BAND_SEPARATION_ID, type Evaluation } from "./evaluate";
+import { checkMargin, evaluateCandidate, type Evaluation } from "./evaluate";
 import { gridValues, MODULE_SIZING_LIMITS, parseSizingOptions, roundLength, type CentreMode, type SizingLimits, type SizingOptions } from "./options";
 import { matCentre, placementFor, resizeDocument, type Placement } from "./resize";
 
@@ -129,9 +129,13 @@ const CHECK_WORDS: Record<string, { name: string; hint: string }> = {
     name: "frequency separation",
     hint: "a natural frequency lies near an operating speed: try other ranges of dimensions (more mass lowers the frequencies, a larger plan stiffens the soil) or review the soil and impedance inputs",
   },
-  [SOIL_BAND_SEPARATION_ID]: {
-    name: "frequency separation of the soil band",
-    hint: "a natural frequency at the lower or upper soil modulus lies near an operating speed: try other ranges of dimensions or review the band factors",
+  [bandCheckId("frequency-separation", "lower")]: {
+    name: "frequency separation at the lower soil bound",
+    hint: "a natural frequency at the lower soil modulus lies near an operating speed: try other ranges of dimensions or review the band factors",
+  },
+  [bandCheckId("frequency-separation", "upper")]: {
+    name: "frequency separation at the upper soil bound",
+    hint: "a natural frequency at the upper soil modulus lies near an operating speed: try other ranges of dimensions or review the band factors",
   },
   displacement: {
     name: "displacement",
@@ -144,7 +148,13 @@ const CHECK_WORDS: Record<string, { name: string; hint: string }> = {
 };
 
 function words(id: string): { name: string; hint: string } {
-  return CHECK_WORDS[id] ?? { name: id, hint: "review this check's inputs" };
+  const own = CHECK_WORDS[id];
+  if (own) return own;
+  // displacement and velocity at a soil bound: the nominal check's words, with the bound named
+  const nominal = CHECK_WORDS[nominalCheckId({ id })];
+  const bound = /@soil-(lower|upper)$/.exec(id)?.[1];
+  if (nominal && bound) return { name: `${nominal.name} at the ${bound} soil bound`, hint: nominal.hint };
+  return { name: id, hint: "review this check's inputs" };
 }
 
 function summarise(c: CheckResult): CheckSummary {
@@ -207,7 +217,7 @@ function proposalFrom(rank: number, c: Candidate, e: Evaluation, mat: BaseMat, m
   const governing = worstFirst(e.checks)[0];
   if (!governing) throw new Error("a passing candidate has no checks");
   const ratios = e.result.rotors.flatMap((r) => r.frequencyRatios);
-  const separations = e.checks.filter((ch) => ch.id === "frequency-separation" || ch.id === SOIL_BAND_SEPARATION_ID).map((ch) => ch.value);
+  const separations = e.checks.filter((ch) => nominalCheckId(ch) === "frequency-separation").map((ch) => ch.value);
   return {
     rank,
     dimensions: c.dimensions,

@@ -139,7 +139,7 @@ describe("project register", () => {
       expect(row[col("Latest revision")]).toBe(latest.label);
       expect(row[col("Status")]).toBe(revisionStatusLabels[latest.status]);
       expect(row[col("Governing check")]).toBe(gov?.label);
-      expect(row[col("Governing verdict")]).toBe(gov?.pass ? "pass" : "FAIL");
+      expect(row[col("Governing verdict")]).toBe(gov?.pass ? "pass" : gov?.acceptance ? `FAIL, accepted with justification: ${gov.acceptance.justification}` : "FAIL");
       expect(row[col("Failing checks")]).toBe(stored.result.checks.filter((c) => !c.pass).length);
       expect(row[col("Open comments")]).toBe(latest.openComments);
       expect(typeof row[col("Flags")]).toBe("string");

@@ -7,6 +7,7 @@ import { draftFormSchema, formFromInput, toInputDocument, type DraftForm } from 
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
 import { Cautions } from "../cautions";
+import { AcceptanceEditor } from "./acceptance-editor";
 import { BlockDrawing } from "./block-drawing";
 import { BlockSection } from "./block-section";
 import { MachinesSection } from "./machines-section";
@@ -215,14 +216,14 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
               </ul>
             </div>
           ) : null}
-          {result ? <Results result={result} stale={stale} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
+          {result ? <Results result={result} stale={stale} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
         </div>
       </div>
     </div>
   );
 }
 
-function Results({ result, stale }: { result: AnalysisResult; stale: boolean }) {
+function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: boolean; readOnly: boolean }) {
   return (
     <>
       {stale ? (
@@ -231,7 +232,7 @@ function Results({ result, stale }: { result: AnalysisResult; stale: boolean }) 
         </p>
       ) : null}
       <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
-        <ChecksTable result={result} />
+        <ChecksTable result={result} acceptanceEditor={readOnly ? undefined : (c) => <AcceptanceEditor check={c} />} />
       </Panel>
       {result.warnings.length ? (
         <Panel title="Method warnings" id="warnings">

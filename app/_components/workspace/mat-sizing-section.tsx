@@ -171,7 +171,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
       <div className="flex flex-wrap items-end gap-4 text-xs text-basalt-700">
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={requireSoilBand} onChange={(e) => setRequireSoilBand(e.target.checked)} />
-          The soil band (lower and upper shear modulus) must clear the operating speeds too
+          The soil band must pass too (frequency separation, displacement and velocity at the lower and upper shear modulus)
         </label>
         <label className="flex items-center gap-2">
           <span>Analyses at most</span>

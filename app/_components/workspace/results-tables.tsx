@@ -1,6 +1,7 @@
 "use client";
 
-import type { AnalysisResult } from "@/modules/calc";
+import type { ReactNode } from "react";
+import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { DOF_KEYS } from "@/modules/calc";
 import { Explain } from "./explain";
@@ -8,10 +9,22 @@ import { useUnits, type QuantityKey } from "./units-context";
 
 const kindOfUnit = (unit: string | undefined): QuantityKey => (unit === "m" ? "displacement" : unit === "m/s" ? "velocity" : "ratio");
 
-export function ChecksTable({ result }: { result: AnalysisResult }) {
+const verdictTag: Record<ReturnType<typeof checkVerdict>, string> = {
+  pass: "bg-moss-100 text-moss-700",
+  fail: "bg-brick-100 text-brick-700",
+  accepted: "bg-ochre-100 text-ochre-700",
+};
+
+/**
+ * Every check, governing first. Band checks (at the lower and upper soil bound) are rows like
+ * the others; a failing one accepted with a justification reads "accepted with justification"
+ * with the text under it. `acceptanceEditor` (the workspace) adds the place to write one.
+ */
+export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResult; acceptanceEditor?: (c: CheckResult) => ReactNode }) {
   const units = useUnits();
   const sorted = sortChecksGoverningFirst(result.checks);
   const failing = sorted.filter((c) => !c.pass).length;
+  const accepted = sorted.filter((c) => checkVerdict(c) === "accepted").length;
   return (
     <div>
       <p className="mb-2 text-sm" data-testid="checks-summary">
@@ -19,10 +32,11 @@ export function ChecksTable({ result }: { result: AnalysisResult }) {
           <span className="tag bg-moss-100 text-moss-700">all {sorted.length} checks pass</span>
         ) : (
           <span className="tag bg-brick-100 text-brick-700">
-            {failing} of {sorted.length} checks fail
+            {failing} of {sorted.length} checks fail{accepted ? `, ${accepted} of them accepted with justification` : ""}
           </span>
         )}
       </p>
+      {result.bounds ? <p className="mb-2 text-2xs text-basalt-500">Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.</p> : null}
       <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200">
         <table data-testid="checks-table">
           <thead className="sticky top-0">
@@ -38,7 +52,7 @@ export function ChecksTable({ result }: { result: AnalysisResult }) {
             {sorted.map((c, i) => {
               const kind = kindOfUnit(c.unit);
               return (
-                <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : "bg-brick-100/40"} data-verdict={c.pass ? "pass" : "fail"}>
+                <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : c.acceptance ? "bg-ochre-100/40" : "bg-brick-100/40"} data-verdict={checkVerdict(c)} data-check-key={c.key}>
                   <td className="text-xs">{c.label}</td>
                   <td className="whitespace-nowrap text-right font-mono text-xs">
                     {units.toDisplayText(kind, c.value)} {units.unitLabel(kind)}
@@ -47,7 +61,15 @@ export function ChecksTable({ result }: { result: AnalysisResult }) {
                     {c.comparison === "min" ? "≥ " : "≤ "}
                     {units.toDisplayText(kind, c.limit)} {units.unitLabel(kind)}
                   </td>
-                  <td>{c.pass ? <span className="tag bg-moss-100 text-moss-700">pass</span> : <span className="tag bg-brick-100 text-brick-700">fail</span>}</td>
+                  <td className="align-top">
+                    <span className={`tag whitespace-nowrap ${verdictTag[checkVerdict(c)]}`}>{CHECK_VERDICT_LABELS[checkVerdict(c)]}</span>
+                    {c.acceptance ? (
+                      <p className="mt-1 max-w-xs text-2xs text-ochre-700" data-testid="acceptance-text">
+                        {c.acceptance.justification}
+                      </p>
+                    ) : null}
+                    {acceptanceEditor ? acceptanceEditor(c) : null}
+                  </td>
                   <td className="max-w-xs text-2xs text-basalt-500">{c.source}</td>
                 </tr>
               );

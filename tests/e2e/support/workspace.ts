@@ -15,17 +15,21 @@ export type CalcState = "fresh" | "stale" | "error";
 export type Axis = "x" | "y" | "z";
 export type End = "from" | "to";
 
-/** The text of the checks summary: "all N checks pass" or "K of N checks fail". */
+/**
+ * The text of the checks summary: "all N checks pass", "K of N checks fail" or "K of N checks
+ * fail, A of them accepted with justification" (failed band checks the designer accepted).
+ */
 export interface ChecksSummary {
   failing: number;
   total: number;
+  accepted?: number;
 }
 
 export function parseSummary(text: string): ChecksSummary {
   const all = /^all (\d+) checks pass$/.exec(text);
   if (all) return { failing: 0, total: Number(all[1]) };
-  const some = /^(\d+) of (\d+) checks fail$/.exec(text);
-  if (some) return { failing: Number(some[1]), total: Number(some[2]) };
+  const some = /^(\d+) of (\d+) checks fail(?:, (\d+) of them accepted with justification)?$/.exec(text);
+  if (some) return { failing: Number(some[1]), total: Number(some[2]), ...(some[3] ? { accepted: Number(some[3]) } : {}) };
   throw new Error(`not a checks summary: "${text}"`);
 }
 
@@ -76,7 +80,7 @@ export class WorkspacePage {
   get checksTable(): Locator {
     return this.page.getByTestId("checks-table");
   }
-  checkRows(verdict?: "pass" | "fail"): Locator {
+  checkRows(verdict?: "pass" | "fail" | "accepted"): Locator {
     return this.checksTable.locator(verdict ? `tbody tr[data-verdict="${verdict}"]` : "tbody tr");
   }
   panel(id: string): Locator {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import ExcelJS from "exceljs";
-import { packageFileName, registerFileName, revisionWorkbookBytes, PACKAGE_SHEETS, safeText } from "@/modules/calc-package";
+import { packageFileName, registerFileName, registerWorkbookBytes, revisionWorkbookBytes, PACKAGE_SHEETS, REGISTER_SHEETS, safeText } from "@/modules/calc-package";
 import { expectRevisionNumbers, expectUnitsEverywhere } from "./package-expectations";
 import { exampleInput, packageData, roundTrip } from "./fixtures";
 import { readTables, tableByTitle } from "./read-tables";
@@ -19,6 +19,43 @@ describe("revision workbook", () => {
       });
     }
   }
+
+  it("the checks sheet lists the band checks and shows an accepted band failure as a failure with its justification", async () => {
+    const input = exampleInput("raw-water-pump-train");
+    const key = "frequency-separation@soil-upper/Motor RWM-101/rotor/mode-6";
+    const justification = "Site tests bound G at 1.2 x nominal; see the geotechnical addendum (demo text).";
+    const d = packageData({ ...input, acceptances: [{ checkKey: key, justification }] });
+    expect(d.result.checks.filter((c) => c.soilCase).length).toBeGreaterThan(0);
+    const wb = await roundTrip(await revisionWorkbookBytes(d));
+    expectRevisionNumbers(wb, d.input, d.result);
+    const tables = readTables(wb.getWorksheet("Checks") as ExcelJS.Worksheet);
+    const rows = tables.filter((t) => t.headers[0] === "Check").flatMap((t) => t.rows.map((r) => Object.fromEntries(t.headers.map((h, i) => [h, r[i]]))));
+    const accepted = rows.find((r) => typeof r.Check === "string" && r.Check.startsWith("At the upper soil bound (G x 1.5): Mode 6") && r.Machine === "Motor RWM-101");
+    expect(accepted).toMatchObject({ Verdict: "FAIL, accepted with justification", Justification: justification });
+    const open = rows.find((r) => typeof r.Check === "string" && r.Check.startsWith("At the upper soil bound (G x 1.5): Mode 6") && r.Machine === "Raw-water pump RWP-101");
+    expect(open?.Verdict).toBe("FAIL");
+    const summary = tableByTitle(tables, "Summary");
+    expect(JSON.stringify(summary.rows)).toContain("Failing, accepted with justification");
+  });
+
+  it("the register's governing verdict of an accepted band failure reads as a failure with the justification", async () => {
+    const doc = exampleInput("raw-water-pump-train");
+    const justification = "Site tests bound G at 1.2 x nominal; see the geotechnical addendum (demo text).";
+    const keys = ["frequency-separation@soil-upper/Motor RWM-101/rotor/mode-6", "frequency-separation@soil-upper/Raw-water pump RWP-101/impeller/mode-6"];
+    // the enlarged train's only failures are these two band checks: accepted, they govern
+    const enlarged = { ...doc, block: { ...doc.block, solids: doc.block.solids.map((b, i) => (i === 0 ? { ...b, x: [-4.4, 4.4] as [number, number] } : b)) } };
+    const d = packageData({ ...enlarged, acceptances: keys.map((checkKey) => ({ checkKey, justification })) });
+    expect(d.result.checks.filter((c) => !c.pass).every((c) => c.acceptance)).toBe(true);
+    const bytes = await registerWorkbookBytes({
+      project: d.project,
+      rows: [{ tag: "PH1-P101", machineTrain: "pump train", location: "bay 1", draftState: "draft v2", latest: { ...d.revision, result: d.result }, revisionCount: 2, flags: [] }],
+      generatedAt: d.generatedAt,
+      generatedByName: d.generatedByName,
+    });
+    const tables = readTables((await roundTrip(bytes)).getWorksheet(REGISTER_SHEETS.register) as ExcelJS.Worksheet);
+    const t = tableByTitle(tables, "Foundations");
+    expect(t.rows[0]?.[t.headers.indexOf("Governing verdict")]).toBe(`FAIL, accepted with justification: ${justification}`);
+  });
 
   it("US headers name US units and SI headers SI ones", async () => {
     const si = readTables((await roundTrip(await revisionWorkbookBytes(packageData(exampleInput("raw-water-pump-train"), "si")))).getWorksheet("Response") as ExcelJS.Worksheet);

@@ -67,12 +67,13 @@ describe("loading a proposal into the form", () => {
     expect(form.block.solids[0]!.x).toEqual([-3.8, 3.8]);
   });
 
-  it("turns the failing demo into a passing one for a size big enough", () => {
+  it("turns the failing demo into one passing every nominal check for a size big enough", () => {
     const out = loadProposalIntoForm(pumpTrainForm(), proposal);
     if (!out.ok) throw new Error(JSON.stringify(out.issues));
     const parsed = parseAnalysisInput(toInputDocument(out.form));
     if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
-    expect(analyse(parsed.input).checks.filter((c) => !c.pass)).toEqual([]);
+    // nominal soil: the separation at the upper soil bound is a band check (band-checks.test.ts)
+    expect(analyse(parsed.input).checks.filter((c) => !c.pass && !c.soilCase)).toEqual([]);
   });
 
   it("refuses a size that cannot hold the plinths, naming the dimension", () => {

@@ -156,6 +156,23 @@ describe("diffRevisions", () => {
     expect(d.input.entries.find((e) => e.path === 'block.solids["mat"].x[0]')).toMatchObject({ old: -3.8, new: -4.2 });
   });
 
+  it("lists a band check whose verdict flipped at the upper soil bound, and a failure newly accepted with its justification", () => {
+    const demo = example("raw-water-pump-train.json");
+    // upper factor 1: the upper bound is the nominal soil, where mode 6 clears the running speed
+    const before = { ...demo, soilBand: { upperFactor: 1 } };
+    const older = { input: before, result: analyse(before) };
+    const newer = { input: demo, result: analyse(demo) };
+    const keys = ["frequency-separation@soil-upper/Motor RWM-101/rotor/mode-6", "frequency-separation@soil-upper/Raw-water pump RWP-101/impeller/mode-6"];
+    const flips = diffRevisions(older, newer).flippedChecks.filter((f) => f.soilCase === "upper");
+    expect(flips.map((f) => [f.key, f.oldVerdict, f.newVerdict])).toEqual(keys.map((k) => [k, "pass", "fail"]));
+    expect(flips[0]!.newValue).toBeCloseTo(0.0231, 4);
+    const justification = "Site tests bound G at 1.2 x nominal; see the geotechnical addendum (demo text).";
+    const accepted = { ...demo, acceptances: [{ checkKey: keys[0]!, justification }] };
+    const d = diffRevisions(newer, { input: accepted, result: analyse(accepted) });
+    expect(d.flippedChecks.map((f) => [f.key, f.oldVerdict, f.newVerdict, f.newPass, f.justification])).toEqual([[keys[0], "fail", "accepted", false, justification]]);
+    expect(d.input.entries.some((e) => e.path.startsWith("acceptances") && e.kind === "added")).toBe(true);
+  });
+
   it("orders newly failing checks before newly passing ones", () => {
     const check = (key: string, pass: boolean) => ({ id: key, key, label: key, value: 1, limit: 1, pass, source: "s" });
     const flips = flippedChecks([check("b", false), check("a", true), check("c", true)], [check("b", true), check("a", false), check("c", true)]);

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { CHECK_VERDICT_LABELS } from "@/modules/calc";
 import { diffRevisions, type DiffEntry, type LeafValue, type SectionDiff } from "@/modules/revisions";
 import { getFoundation } from "@/db/queries/foundations";
 import { getRevision, listRevisions } from "@/db/queries/revisions";
@@ -147,8 +148,11 @@ export default async function ComparePage({
                 {diff.flippedChecks.map((f) => (
                   <tr key={f.key}>
                     <td>{f.label}</td>
-                    <td>{f.oldPass ? "pass" : "fail"}</td>
-                    <td className={f.newPass ? "text-moss-700" : "font-semibold text-brick-700"}>{f.newPass ? "pass" : "fail"}</td>
+                    <td data-verdict={f.oldVerdict}>{CHECK_VERDICT_LABELS[f.oldVerdict]}</td>
+                    <td className={f.newVerdict === "pass" ? "text-moss-700" : f.newVerdict === "accepted" ? "font-semibold text-ochre-700" : "font-semibold text-brick-700"} data-verdict={f.newVerdict}>
+                      {CHECK_VERDICT_LABELS[f.newVerdict]}
+                      {f.justification ? <span className="block font-normal text-basalt-600">{f.justification}</span> : null}
+                    </td>
                     <td className="font-mono">
                       {f.oldValue.toPrecision(4)} → {f.newValue.toPrecision(4)} {f.unit ?? ""}
                     </td>
