@@ -6,6 +6,7 @@ import ExcelJS from "exceljs";
 import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, type CheckResult, type DofKey } from "@/modules/calc";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
+import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
@@ -135,8 +136,21 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
     { label: "Embedment depth", value: soil.embedmentDepth, kind: L },
     { label: "Sidewall contact height", value: soil.sidewallContactHeight, kind: L },
   );
+  if (soil.stratum) soilPairs.push({ label: "Depth from grade to rock (rigid base)", value: soil.stratum.thickness, kind: L });
   w.pairs("Soil", soilPairs);
-  w.pairs("Impedance method", [{ label: "Method", value: input.impedance.method, note: METHOD_NAMES[input.impedance.method] }]);
+  if (soil.layers) {
+    w.table(
+      "Borehole layers over rock (top down)",
+      [{ header: "Layer" }, { header: "Thickness", kind: L }, { header: "Vs", kind: "waveSpeed" }, { header: "G", kind: "modulus" }, { header: "Density", kind: "density" }, { header: "Poisson's ratio", kind: "ratio" }],
+      soil.layers.map((l, i) => [`${i + 1}`, l.thickness, l.shearWaveVelocity ?? null, l.shearModulus ?? null, l.density, l.poissonRatio ?? null]),
+    );
+  }
+  w.pairs("Impedance method", [
+    { label: "Method", value: input.impedance.method, note: METHOD_NAMES[input.impedance.method] },
+    ...(input.impedance.method === "gazetas"
+      ? [{ label: "Dynamic coefficients", value: input.impedance.gazetasDynamic ?? "published", note: input.impedance.gazetasDynamic === "simplified" ? "k_z = k_y = 1, c = 1 (warned)" : "published closed forms" }]
+      : []),
+  ]);
   if (input.impedance.method === "user") {
     const imp = input.impedance;
     w.table(
@@ -293,6 +307,31 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
     );
   table("Translations", ["x", "y", "z"], "stiffness", "dashpot");
   table("Rotations", ["rx", "ry", "rz"], "rotationalStiffness", "rotationalDashpot");
+  const factorRows = soilFactorRows(imp);
+  if (factorRows.length) {
+    w.table(
+      "Factors on the static stiffness, with their sources",
+      [{ header: "Factor" }, ...FACTOR_DOF_LABELS.map((l) => ({ header: l, kind: "ratio" as const })), { header: "Source" }],
+      factorRows.map((r) => [r.label, ...r.values, r.source]),
+    );
+  }
+  const strat = stratumSummary(imp);
+  if (strat) {
+    const sp: Pair[] = [
+      { label: "Depth from grade to rock H", value: strat.thickness, kind: "length" },
+      { label: "Cutoff, vertical and rocking (V_La / 4H)", value: strat.cutoffCompressionHz, kind: "frequency", note: "no radiation damping below" },
+      { label: "Cutoff, sliding and torsion (Vs / 4H)", value: strat.cutoffShearHz, kind: "frequency", note: "no radiation damping below" },
+    ];
+    if (strat.profile) {
+      sp.push(
+        { label: "Equivalent Vs of the layers (travel-time average)", value: strat.profile.shearWaveVelocity, kind: "waveSpeed" },
+        { label: "Equivalent density (thickness-weighted)", value: strat.profile.density, kind: "density" },
+        { label: "Equivalent Poisson's ratio (thickness-weighted)", value: strat.profile.poissonRatio, kind: "ratio" },
+      );
+    }
+    sp.push({ label: "Source", value: strat.source });
+    w.pairs("Soil layer over rock", sp);
+  }
   w.table(
     "Intermediate values of the method (SI, as the engine reports them)",
     [{ header: "Name" }, { header: "Value [SI]", numFmt: "0.0000E+00" }],

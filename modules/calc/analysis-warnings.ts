@@ -3,6 +3,7 @@ import { GAZETAS_A0_LIMIT, NEARLY_INCOMPRESSIBLE_NU } from "./criteria-defaults"
 import type { Model } from "./model";
 import type { SoilCase } from "./soil-case";
 import type { SweepSettings } from "./sweep-grid";
+import { CUTOFF_PROXIMITY } from "./soil-stratum";
 
 export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSettings): string[] {
   const warnings: string[] = [];
@@ -27,6 +28,7 @@ export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSe
       warnings.push(`Sweep: above ${limitHz.toFixed(1)} Hz a0 exceeds ${GAZETAS_A0_LIMIT}; the Gazetas (1991) multipliers are extrapolated there (floored at a small positive value).`);
     }
   }
+  warnings.push(...cutoffWarnings(model, nominal));
   nominal.modes.forEach((m, i) => {
     for (const r of model.rotors) {
       const rpm = m.frequencyHz * 60;
@@ -38,4 +40,34 @@ export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSe
     }
   });
   return warnings;
+}
+
+/**
+ * An operating speed or a natural frequency near a stratum cutoff (within CUTOFF_PROXIMITY of
+ * it, either side): there the radiation damping switches on or off, so the response is very
+ * sensitive to the layer's thickness and Vs.
+ */
+function cutoffWarnings(model: Model, nominal: SoilCase): string[] {
+  const d = nominal.impedance.details;
+  if (d.cutoffHzCompression === undefined || d.cutoffHzShear === undefined) return [];
+  const cutoffs: [string, number][] = [
+    ["vertical and rocking cutoff V_La / 4H", d.cutoffHzCompression],
+    ["swaying and torsion cutoff Vs / 4H", d.cutoffHzShear],
+  ];
+  const near = (hz: number, fc: number) => Math.abs(hz - fc) <= CUTOFF_PROXIMITY * fc;
+  const out: string[] = [];
+  for (const [label, fc] of cutoffs) {
+    for (const r of model.rotors) {
+      const [lo, hi] = [r.rangeRpm[0] / 60, r.rangeRpm[1] / 60];
+      if (hi >= fc * (1 - CUTOFF_PROXIMITY) && lo <= fc * (1 + CUTOFF_PROXIMITY)) {
+        out.push(`Stratum: the speed range of ${r.machine} ${r.rotor} (${r.rangeRpm[0]}-${r.rangeRpm[1]} rpm) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz): radiation damping changes abruptly there.`);
+      }
+    }
+    nominal.modes.forEach((m, i) => {
+      if (near(m.frequencyHz, fc)) {
+        out.push(`Stratum: mode ${i + 1} (${m.dominant}, ${m.frequencyHz.toFixed(2)} Hz) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz).`);
+      }
+    });
+  }
+  return out;
 }

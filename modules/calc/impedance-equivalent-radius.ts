@@ -1,12 +1,20 @@
 // Equivalent-radius half-space springs (Richart, Hall & Woods 1970, ch. 10) with Lysmer's
 // analog damping (Lysmer 1965 vertical; Hall 1967 horizontal and rocking; RHW 1970 ch. 7) and
 // the embedment factors of Arya, O'Neill & Pincus (1979) (recalled from memory).
+import { prefixed, stratumDetails, stratumWarnings } from "./impedance-gazetas";
 import {
   constantImpedance,
   dashpotFromRatio,
   type ImpedanceContext,
   type ImpedanceModel,
 } from "./impedance-model";
+import {
+  cutoffPerDof,
+  stratumCutoffs,
+  stratumFactorHorizontal,
+  stratumFactorRocking,
+  stratumFactorVertical,
+} from "./soil-stratum";
 
 export interface EquivalentRadii {
   /** Translations: circle of the same area, r0 = sqrt(A / pi). */
@@ -106,31 +114,62 @@ export function equivalentRadiusImpedance(ctx: ImpedanceContext): ImpedanceModel
     embedmentRocking(nu, h / r.rockingY),
     { stiffness: 1, damping: 1 },
   ];
-  const stiffness = kSurface.map((k, i) => k * (factors[i] as EmbedmentFactors).stiffness);
+  // A stratum over rigid base: Kausel's circular factors on the static springs (soil-stratum.ts),
+  // each with its own equivalent radius; torsion unfactored. The damping ratios keep the
+  // half-space dashpots above the cutoffs and drop to 0 below them.
+  const stratum = ctx.soil.stratum;
+  const H = stratum?.thickness ?? Infinity;
+  const strat = stratum
+    ? [
+        stratumFactorHorizontal(r.translation, H),
+        stratumFactorHorizontal(r.translation, H),
+        stratumFactorVertical(r.translation, H),
+        stratumFactorRocking(r.rockingX, H),
+        stratumFactorRocking(r.rockingY, H),
+        1,
+      ]
+    : [1, 1, 1, 1, 1, 1];
+  const stiffness = kSurface.map((k, i) => k * (factors[i] as EmbedmentFactors).stiffness * (strat[i] as number));
   const ratio = dSurface.map((d, i) => d * (factors[i] as EmbedmentFactors).damping);
-  const dashpot = stiffness.map((k, i) => dashpotFromRatio(ratio[i] as number, k, ctx.massDiagonal[i] as number));
+  // The dashpot is that of the half-space base (without the stratum factor on k), so that the
+  // stratum raises the stiffness without raising the radiated energy above the cutoff.
+  const dashpot = kSurface.map((k, i) =>
+    dashpotFromRatio(ratio[i] as number, k * (factors[i] as EmbedmentFactors).stiffness, ctx.massDiagonal[i] as number),
+  );
   const warnings: string[] = [];
   if (h > 0) {
     warnings.push(
       "Embedment factors of Arya, O'Neill & Pincus (1979) (recalled from memory) applied to x, y, z, rx, ry; torsion has no embedment factor there and is left unfactored.",
     );
   }
-  return constantImpedance(
-    "equivalent-radius",
-    stiffness,
-    dashpot,
-    {
-      r0Translation: r.translation,
-      r0RockingX: r.rockingX,
-      r0RockingY: r.rockingY,
-      r0Torsion: r.torsion,
-      massRatioX: massRatio[0],
-      massRatioY: massRatio[1],
-      massRatioZ: massRatio[2],
-      massRatioRx: massRatio[3],
-      massRatioRy: massRatio[4],
-      massRatioRz: massRatio[5],
+  const details: Record<string, number> = {
+    r0Translation: r.translation,
+    r0RockingX: r.rockingX,
+    r0RockingY: r.rockingY,
+    r0Torsion: r.torsion,
+    massRatioX: massRatio[0],
+    massRatioY: massRatio[1],
+    massRatioZ: massRatio[2],
+    massRatioRx: massRatio[3],
+    massRatioRy: massRatio[4],
+    massRatioRz: massRatio[5],
+    ...prefixed("embedmentFactor", factors.map((f) => f.stiffness)),
+  };
+  if (!stratum) return constantImpedance("equivalent-radius", stiffness, dashpot, details, warnings);
+  const cutoffHz = cutoffPerDof(stratumCutoffs(ctx.soil.shearWaveVelocity, nu, H));
+  warnings.push(...stratumWarnings(H, r.translation, h, "Equivalent radius"));
+  return {
+    method: "equivalent-radius",
+    staticStiffness: stiffness,
+    frequencyDependent: true,
+    evaluate(omega, k, c) {
+      const hz = omega / (2 * Math.PI);
+      for (let i = 0; i < 6; i++) {
+        k[i] = stiffness[i] as number;
+        c[i] = hz < (cutoffHz[i] as number) ? 0 : (dashpot[i] as number);
+      }
     },
+    details: { ...details, ...prefixed("stratumFactor", strat), ...stratumDetails(ctx, cutoffHz) },
     warnings,
-  );
+  };
 }

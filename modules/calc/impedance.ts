@@ -14,7 +14,7 @@ export function buildImpedance(input: ImpedanceInput, ctx: ImpedanceContext, fac
     case "equivalent-radius":
       return equivalentRadiusImpedance(ctx);
     case "gazetas":
-      return gazetasImpedance(ctx);
+      return gazetasImpedance(ctx, input.gazetasDynamic ?? "published");
     case "user":
       return userImpedance(ctx, input.stiffness, input.dampingRatio, factor);
   }

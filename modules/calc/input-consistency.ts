@@ -61,8 +61,25 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
   const soil = input.soil;
   const hasG = soil.shearModulus !== undefined;
   const hasVs = soil.shearWaveVelocity !== undefined;
-  if (hasG === hasVs) {
+  if (soil.layers !== undefined) {
+    // A layered profile gives the stiffness itself (soil-stratum.ts).
+    if (hasG) add(["soil", "shearModulus"], "leave out shearModulus when soil.layers give the profile");
+    if (hasVs) add(["soil", "shearWaveVelocity"], "leave out shearWaveVelocity when soil.layers give the profile");
+    soil.layers.forEach((layer, i) => {
+      if ((layer.shearModulus === undefined) === (layer.shearWaveVelocity === undefined)) {
+        add(["soil", "layers", i], "give exactly one of shearModulus and shearWaveVelocity");
+      }
+    });
+    const total = soil.layers.reduce((sum, l) => sum + l.thickness, 0);
+    if (soil.stratum !== undefined && Math.abs(soil.stratum.thickness - total) > 1e-3) {
+      add(["soil", "stratum", "thickness"], `must equal the sum of the layer thicknesses (${total} m), or be left out`);
+    }
+  } else if (hasG === hasVs) {
     add(["soil"], "give exactly one of shearModulus and shearWaveVelocity");
+  }
+  const depthToRock = soil.stratum?.thickness ?? soil.layers?.reduce((sum, l) => sum + l.thickness, 0);
+  if (depthToRock !== undefined && soil.embedmentDepth >= depthToRock) {
+    add(["soil", "embedmentDepth"], "the base must lie above the rigid base of the stratum");
   }
   if (input.impedance.method === "user" && soil.materialDamping === 0) {
     for (const [key, ratio] of Object.entries(input.impedance.dampingRatio)) {

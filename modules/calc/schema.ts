@@ -41,6 +41,17 @@ const blockSchema = z.strictObject({
   solids: z.array(solidSchema, { error: "must be a list of boxes" }).min(1, { error: "the block needs at least one solid" }).max(L.maxSolids, atMost(L.maxSolids, "solids")),
 });
 
+const soilLayerSchema = z.strictObject({
+  thickness: positive(),
+  shearWaveVelocity: positive().optional(),
+  shearModulus: positive().optional(),
+  density: positive(),
+  poissonRatio: finite()
+    .gt(0, { error: "Poisson's ratio must lie in (0, 0.5)" })
+    .lt(0.5, { error: "Poisson's ratio must lie in (0, 0.5)" })
+    .optional(),
+});
+
 const soilSchema = z.strictObject({
   shearModulus: positive().optional(),
   shearWaveVelocity: positive().optional(),
@@ -55,6 +66,10 @@ const soilSchema = z.strictObject({
   allowableBearingPressure: positive(),
   embedmentDepth: nonNegative().default(0),
   sidewallContactHeight: nonNegative().default(0),
+  // Optional (issue 13): a soil layer of thickness H over a rigid base, and/or a layered
+  // borehole profile reduced to one equivalent stratum (soil-stratum.ts).
+  stratum: z.strictObject({ thickness: positive(), base: z.literal("rigid", { error: 'base must be "rigid"' }) }).optional(),
+  layers: z.array(soilLayerSchema, { error: "must be a list of layers" }).min(1, { error: "give at least one layer, or leave the field out" }).max(20, { error: "at most 20 layers" }).optional(),
 });
 
 const dofStiffnessSchema = z.strictObject({
@@ -73,7 +88,11 @@ const impedanceSchema = z.discriminatedUnion(
   "method",
   [
     z.strictObject({ method: z.literal("equivalent-radius") }),
-    z.strictObject({ method: z.literal("gazetas") }),
+    z.strictObject({
+      method: z.literal("gazetas"),
+      // "published" (default): closed-form k(a0), c(a0); "simplified": k_z = k_y = 1, c = 1 (warned).
+      gazetasDynamic: z.enum(["published", "simplified"], { error: 'must be "published" or "simplified"' }).optional(),
+    }),
     z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
   ],
   { error: 'method must be "equivalent-radius", "gazetas" or "user"' },

@@ -60,6 +60,19 @@ export interface TransientRunForm {
   outputPoints: Num;
 }
 
+/** One layer of a borehole profile, top down; Vs or, when given that way, G. */
+export interface SoilLayerForm {
+  thickness: Num;
+  shearWaveVelocity: Num;
+  shearModulus: Num;
+  density: Num;
+  poissonRatio: Num;
+}
+
+export function newSoilLayer(): SoilLayerForm {
+  return { thickness: null, shearWaveVelocity: null, shearModulus: null, density: null, poissonRatio: null };
+}
+
 export interface DraftForm {
   block: { concreteDensity: Num; solids: SolidForm[] };
   soil: {
@@ -72,8 +85,19 @@ export interface DraftForm {
     allowableBearingPressure: Num;
     embedmentDepth: Num;
     sidewallContactHeight: Num;
+    /** Half-space (default), one layer over rock, or a layered borehole profile over rock. */
+    profile: "half-space" | "stratum" | "layers";
+    /** Depth from grade to the rigid base (profile "stratum"). */
+    stratumThickness: Num;
+    layers: SoilLayerForm[];
   };
-  impedance: { method: "equivalent-radius" | "gazetas" | "user"; stiffness: Dof6Form; dampingRatio: Dof6Form };
+  impedance: {
+    method: "equivalent-radius" | "gazetas" | "user";
+    stiffness: Dof6Form;
+    dampingRatio: Dof6Form;
+    /** Gazetas only: the published dynamic coefficients (default) or the simplified k = 1, c = 1. */
+    gazetasDynamic: "published" | "simplified";
+  };
   machines: MachineForm[];
   checkPoints: { name: string; position: Vec3Form }[];
   criteria: {
@@ -140,8 +164,11 @@ export function emptyDraftForm(): DraftForm {
       allowableBearingPressure: null,
       embedmentDepth: 0,
       sidewallContactHeight: 0,
+      profile: "half-space",
+      stratumThickness: null,
+      layers: [],
     },
-    impedance: { method: "equivalent-radius", stiffness: emptyDof(), dampingRatio: emptyDof() },
+    impedance: { method: "equivalent-radius", stiffness: emptyDof(), dampingRatio: emptyDof(), gazetasDynamic: "published" },
     machines: [newMachine(1)],
     checkPoints: [],
     criteria: { frequencySeparation: null, maxDisplacementPeak: null, maxVelocityPeak: null, minMassRatio: null, maxEccentricity: null, maxBearingRatio: null },
@@ -227,11 +254,21 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
       allowableBearingPressure: soil.allowableBearingPressure,
       embedmentDepth: soil.embedmentDepth ?? 0,
       sidewallContactHeight: soil.sidewallContactHeight ?? 0,
+      profile: soil.layers ? "layers" : soil.stratum ? "stratum" : "half-space",
+      stratumThickness: soil.stratum?.thickness ?? null,
+      layers: (soil.layers ?? []).map((l) => ({
+        thickness: l.thickness,
+        shearWaveVelocity: l.shearWaveVelocity ?? null,
+        shearModulus: l.shearModulus ?? null,
+        density: l.density,
+        poissonRatio: l.poissonRatio ?? null,
+      })),
     },
     impedance: {
       method: imp.method,
       stiffness: imp.method === "user" ? { ...imp.stiffness } : emptyDof(),
       dampingRatio: imp.method === "user" ? { ...imp.dampingRatio } : emptyDof(),
+      gazetasDynamic: imp.method === "gazetas" ? (imp.gazetasDynamic ?? "published") : "published",
     },
     machines: input.machines.map((m) => ({
       name: m.name,
@@ -289,7 +326,9 @@ function dropNulls<T extends Record<string, unknown>>(o: T): Partial<T> {
  */
 export function toInputDocument(f: DraftForm): unknown {
   const soil = f.soil;
-  const modulus = soil.modulusSource === "shearModulus" ? { shearModulus: soil.shearModulus } : { shearWaveVelocity: soil.shearWaveVelocity };
+  const layered = soil.profile === "layers";
+  // A layered profile gives the stiffness itself: the top-level G / Vs are then left out.
+  const modulus = layered ? {} : soil.modulusSource === "shearModulus" ? { shearModulus: soil.shearModulus } : { shearWaveVelocity: soil.shearWaveVelocity };
   const criteria = dropNulls(f.criteria);
   const band = dropNulls(f.soilBand);
   const sweep = dropNulls(f.sweep);
@@ -305,8 +344,24 @@ export function toInputDocument(f: DraftForm): unknown {
       allowableBearingPressure: soil.allowableBearingPressure,
       embedmentDepth: soil.embedmentDepth ?? 0,
       sidewallContactHeight: soil.sidewallContactHeight ?? 0,
+      ...(soil.profile === "stratum" ? { stratum: { thickness: soil.stratumThickness, base: "rigid" } } : {}),
+      ...(layered
+        ? {
+            layers: soil.layers.map((l) => ({
+              thickness: l.thickness,
+              ...(l.shearModulus !== null && l.shearWaveVelocity === null ? { shearModulus: l.shearModulus } : { shearWaveVelocity: l.shearWaveVelocity }),
+              density: l.density,
+              ...(l.poissonRatio !== null ? { poissonRatio: l.poissonRatio } : {}),
+            })),
+          }
+        : {}),
     },
-    impedance: f.impedance.method === "user" ? { method: "user", stiffness: f.impedance.stiffness, dampingRatio: f.impedance.dampingRatio } : { method: f.impedance.method },
+    impedance:
+      f.impedance.method === "user"
+        ? { method: "user", stiffness: f.impedance.stiffness, dampingRatio: f.impedance.dampingRatio }
+        : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
+          ? { method: "gazetas", gazetasDynamic: "simplified" }
+          : { method: f.impedance.method },
     machines: f.machines.map((m) => ({
       name: m.name,
       mass: m.mass,
@@ -412,12 +467,33 @@ export const draftFormSchema = yup.object({
       .number()
       .typeError("Must be a number")
       .nullable()
-      .when("modulusSource", { is: "shearModulus", then: () => positive("shear modulus") }),
+      .when(["modulusSource", "profile"], { is: (m: string, p: string) => m === "shearModulus" && p !== "layers", then: () => positive("shear modulus") }),
     shearWaveVelocity: yup
       .number()
       .typeError("Must be a number")
       .nullable()
-      .when("modulusSource", { is: "shearWaveVelocity", then: () => positive("shear-wave velocity") }),
+      .when(["modulusSource", "profile"], { is: (m: string, p: string) => m === "shearWaveVelocity" && p !== "layers", then: () => positive("shear-wave velocity") }),
+    profile: yup.string().oneOf(["half-space", "stratum", "layers"]),
+    stratumThickness: yup
+      .number()
+      .typeError("Must be a number")
+      .nullable()
+      .when("profile", { is: "stratum", then: () => positive("depth to rock") }),
+    layers: yup.array().when("profile", {
+      is: "layers",
+      then: (a) =>
+        a
+          .of(
+            yup.object({
+              thickness: positive("layer thickness"),
+              shearWaveVelocity: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
+              shearModulus: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
+              density: positive("layer density"),
+              poissonRatio: yup.number().typeError("Must be a number").nullable().moreThan(0, "Poisson's ratio must lie in (0, 0.5)").lessThan(0.5, "Poisson's ratio must lie in (0, 0.5)"),
+            }),
+          )
+          .min(1, "Add at least one layer"),
+    }),
     poissonRatio: req("Poisson's ratio").moreThan(0, "Poisson's ratio must lie in (0, 0.5)").lessThan(0.5, "Poisson's ratio must lie in (0, 0.5)"),
     density: positive("soil density"),
     materialDamping: optionalRatio("Material damping", 0.5),

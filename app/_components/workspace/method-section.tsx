@@ -31,7 +31,7 @@ const criteria: { key: keyof typeof CRITERIA_DEFAULTS; label: string; kind: Quan
 ];
 
 export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean; projectCriteria?: Record<string, number> }) {
-  const { values, handleChange } = useFormikContext<DraftForm>();
+  const { values, handleChange, setFieldValue } = useFormikContext<DraftForm>();
   return (
     <div className="space-y-4">
       <fieldset className="space-y-1.5" disabled={readOnly}>
@@ -43,6 +43,19 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
           </label>
         ))}
       </fieldset>
+      {values.impedance.method === "gazetas" ? (
+        <fieldset className="space-y-1.5" disabled={readOnly}>
+          <legend className="field-label">Dynamic coefficients k(a0), c(a0)</legend>
+          <label className="flex items-start gap-2 text-sm">
+            <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic !== "simplified"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "published")} className="mt-1" />
+            <span>Published closed forms (Gazetas 1991 Table 1; Pais &amp; Kausel 1988 as reprinted in NIST GCR 12-917-21), with sidewall dashpots when embedded</span>
+          </label>
+          <label className="flex items-start gap-2 text-sm">
+            <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "simplified"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "simplified")} className="mt-1" />
+            <span>Simplified: k_z = k_y = 1, every dashpot coefficient 1 (overstates rocking damping at low a0; warned)</span>
+          </label>
+        </fieldset>
+      ) : null}
       {values.impedance.method === "user" ? (
         <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
           {dofs.map(([k, label, kind]) => (

@@ -3,6 +3,7 @@
 import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries } from "@nivo/line";
 import { useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
+import { cutoffMarkers } from "@/modules/desk/soil-factors";
 import { Explain } from "./explain";
 import { useUnits } from "./units-context";
 
@@ -14,6 +15,8 @@ interface Bands {
   operating: { fromHz: number; toHz: number; label: string }[];
   avoidance: { fromHz: number; toHz: number }[];
   soil: { fromHz: number; toHz: number }[];
+  /** Stratum cutoff frequencies: no radiation damping below them. */
+  cutoffs: { hz: number; label: string }[];
 }
 
 function bandLayer(bands: Bands) {
@@ -34,6 +37,14 @@ function bandLayer(bands: Bands) {
         ))}
         {bands.avoidance.map((b, i) => (
           <rect key={`a${i}`} x={x(b.fromHz)} width={Math.max(1, x(b.toHz) - x(b.fromHz))} y={0} height={innerHeight} fill="url(#avoid-hatch)" />
+        ))}
+        {bands.cutoffs.map((c, i) => (
+          <g key={`c${i}`} data-testid="cutoff-marker">
+            <line x1={x(c.hz)} x2={x(c.hz)} y1={0} y2={innerHeight} stroke="#2b6233" strokeWidth={1.2} strokeDasharray="4 3" />
+            <text x={x(c.hz) + 3} y={24 + 11 * i} fontSize={9} fill="#2b6233">
+              {c.label}
+            </text>
+          </g>
         ))}
         {bands.operating.map((b, i) => (
           <g key={`o${i}`}>
@@ -91,8 +102,9 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
       operating: (sw.operatingRangesHz ?? []).map((o) => ({ fromHz: o.fromHz, toHz: Math.max(o.toHz, o.fromHz), label: `${o.machine} ${o.rotor}` })),
       avoidance: sw.avoidanceBandsHz ?? [],
       soil: lower.map((l, i) => ({ fromHz: Math.min(l, upper[i] ?? l), toHz: Math.max(l, upper[i] ?? l) })),
+      cutoffs: cutoffMarkers(result.impedance),
     };
-  }, [sw, result.bounds]);
+  }, [sw, result.bounds, result.impedance]);
   const picked = sw.series.filter((s) => `${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})` === chosen);
   const toSeries = (values: (s: (typeof picked)[number]) => number[], kind: "displacement" | "velocity"): Series[] =>
     picked.map((s) => ({ id: s.point, data: sw.frequencyHz.map((f, i) => ({ x: f, y: u.toDisplayNumber(kind, values(s)[i] ?? 0) })) }));
@@ -116,6 +128,9 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
         <span><span className="inline-block h-2 w-4 bg-ochre-300 align-middle" /> operating speed range</span>
         <span><span className="inline-block h-2 w-4 border border-brick-500 align-middle" /> separation band around each natural frequency</span>
         <span><span className="inline-block h-2 w-4 bg-basalt-200 align-middle" /> natural frequencies across the soil band</span>
+        {bands.cutoffs.length ? (
+          <span><span className="inline-block h-0 w-4 border-t border-dashed border-moss-700 align-middle" /> stratum cutoffs: no radiation damping below them</span>
+        ) : null}
       </div>
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-2">
         <div>

@@ -3,6 +3,7 @@
 import type { ReactNode } from "react";
 import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
+import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { DOF_KEYS } from "@/modules/calc";
 import { Explain } from "./explain";
 import { useUnits, type QuantityKey } from "./units-context";
@@ -122,6 +123,53 @@ export function MassTable({ result }: { result: AnalysisResult }) {
   );
 }
 
+function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
+  const rows = soilFactorRows(imp);
+  const strat = stratumSummary(imp);
+  if (!rows.length && !strat) return null;
+  return (
+    <div className="mt-3 space-y-2" data-testid="soil-factors">
+      {rows.length ? (
+        <table>
+          <thead>
+            <tr>
+              <th>Factor on the static stiffness</th>
+              {FACTOR_DOF_LABELS.map((l) => (
+                <th key={l} className="text-right">
+                  {l}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.label}>
+                <td className="text-xs">
+                  {r.label}
+                  <span className="block text-2xs text-basalt-400">{r.source}</span>
+                </td>
+                {r.values.map((v, i) => (
+                  <td key={i} className="text-right font-mono text-xs">
+                    {v.toFixed(3)}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+      {strat ? (
+        <p className="text-xs" data-testid="stratum-cutoffs">
+          Layer over rock, H = {strat.thickness.toPrecision(4)} m
+          {strat.profile ? ` (equivalent of the borehole layers: Vs = ${strat.profile.shearWaveVelocity.toPrecision(4)} m/s, ρ = ${strat.profile.density.toPrecision(4)} kg/m³, ν = ${strat.profile.poissonRatio.toPrecision(3)})` : ""}. Cutoff frequencies: vertical and rocking{" "}
+          {strat.cutoffCompressionHz.toFixed(2)} Hz, sliding and torsion {strat.cutoffShearHz.toFixed(2)} Hz; below them only material damping remains.
+          <span className="block text-2xs text-basalt-400">{strat.source}</span>
+        </p>
+      ) : null}
+    </div>
+  );
+}
+
 const dofLabel: Record<string, string> = { x: "sliding x", y: "sliding y", z: "vertical", rx: "rocking about x", ry: "rocking about y", rz: "torsion" };
 
 export function ImpedanceTable({ result }: { result: AnalysisResult }) {
@@ -160,20 +208,23 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
           ))}
         </tbody>
       </table>
+      <SoilFactorsTable imp={imp} />
       <Explain
         method={methodText}
         formula={
           imp.method === "equivalent-radius"
             ? "k_z = 4 G r0/(1−ν); k_x = 32(1−ν) G r0/(7−8ν); k_ψ = 8 G r0³/(3(1−ν)); k_θ = 16 G r0³/3; D_z = 0.425/√B_z …; c = 2 D √(k M_ii)"
             : imp.method === "gazetas"
-              ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; C_z = ρ V_La A_b c_z; material damping K(1 + 2iβ)"
+              ? imp.details?.publishedDynamicCoefficients === 0
+                ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; simplified k_z = k_y = 1, C = ρ V A with c = 1; material damping K(1 + 2iβ)"
+                : "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; k_z = 1 − (0.4 + 0.2/(L/B)) a0²/(10/(1 + 3(L/B − 1)) + a0²); C_rx = ρ V_La I_bx a0²/(2.2 − 0.4/(L/B)³ + a0²) …; material damping K(1 + 2iβ)"
               : "c = 2 D √(k M_ii)"
         }
         source={
           imp.method === "equivalent-radius"
             ? "Richart, Hall & Woods (1970), Vibrations of Soils and Foundations, ch. 7 and 10; Lysmer (1965); Hall (1967)"
             : imp.method === "gazetas"
-              ? "Gazetas (1991), J. Geotech. Eng. ASCE 117(9); chart coefficients replaced by closed-form limits where noted in the warnings"
+              ? "Gazetas (1991), J. Geotech. Eng. ASCE 117(9), Tables 1 and 2; chart-only coefficients from the closed forms of Pais & Kausel (1988) as reprinted in NIST GCR 12-917-21 (2012) Table 2-3a"
               : "User-entered values"
         }
         inputs={[

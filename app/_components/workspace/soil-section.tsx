@@ -1,9 +1,9 @@
 "use client";
 
-import { useFormikContext } from "formik";
+import { FieldArray, useFormikContext } from "formik";
 import { useState } from "react";
 import { soilHints, vsFromSpt } from "@/modules/desk/balance-grades";
-import type { DraftForm } from "@/modules/desk/draft-form";
+import { newSoilLayer, type DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
 import { useUnits } from "./units-context";
 
@@ -14,9 +14,75 @@ export function SoilSection({ readOnly }: { readOnly: boolean }) {
   const n = Number(spt);
   const vs = spt && Number.isFinite(n) && n > 0 ? vsFromSpt(n) : null;
   const useG = values.soil.modulusSource === "shearModulus";
+  const profile = values.soil.profile;
+  const layered = profile === "layers";
   return (
     <div className="space-y-4">
       <fieldset className="flex flex-wrap gap-4 text-sm" disabled={readOnly}>
+        <legend className="field-label">Ground below the base</legend>
+        {(
+          [
+            ["half-space", "uniform soil to great depth (half-space)"],
+            ["stratum", "one soil layer over rock"],
+            ["layers", "borehole layers over rock"],
+          ] as const
+        ).map(([value, label]) => (
+          <label key={value} className="flex items-center gap-1.5">
+            <input
+              type="radio"
+              name="soil.profile"
+              checked={profile === value}
+              onChange={() => {
+                void setFieldValue("soil.profile", value);
+                if (value === "layers" && values.soil.layers.length === 0) void setFieldValue("soil.layers", [newSoilLayer()]);
+              }}
+            />{" "}
+            {label}
+          </label>
+        ))}
+      </fieldset>
+      {profile === "stratum" ? (
+        <div className="grid grid-cols-1 gap-3 md:grid-cols-2 xl:grid-cols-3">
+          <NumberField
+            name="soil.stratumThickness"
+            label="Depth from grade to rock H"
+            kind="length"
+            hint="The soil above is taken as uniform; rock as a rigid base. No radiation damping below V_La/4H (vertical, rocking) and Vs/4H (sliding, torsion)."
+            readOnly={readOnly}
+          />
+        </div>
+      ) : null}
+      {layered ? (
+        <FieldArray name="soil.layers">
+          {(arr) => (
+            <div className="space-y-2" data-testid="soil-layers">
+              <p className="text-2xs text-basalt-400">
+                Top down, to rock. Reduced to one layer with the travel-time average Vs = Σh / Σ(h/Vs) over the depth (the Vs30 rule of ASCE 7-16 and EN 1998-1), thickness-weighted density and ν; the result shows the values used.
+              </p>
+              {values.soil.layers.map((layer, i) => (
+                <div key={i} className="grid grid-cols-2 items-end gap-2 md:grid-cols-6">
+                  <NumberField name={`soil.layers.${i}.thickness`} label={`Layer ${i + 1} thickness`} kind="length" readOnly={readOnly} compact />
+                  <NumberField name={`soil.layers.${i}.shearWaveVelocity`} label="Vs" kind="waveSpeed" readOnly={readOnly} compact />
+                  {layer.shearModulus !== null ? <NumberField name={`soil.layers.${i}.shearModulus`} label="or G" kind="modulus" readOnly={readOnly} compact /> : <span />}
+                  <NumberField name={`soil.layers.${i}.density`} label="ρ" kind="density" readOnly={readOnly} compact />
+                  <NumberField name={`soil.layers.${i}.poissonRatio`} label="ν (blank: the soil's)" kind="ratio" readOnly={readOnly} compact />
+                  {readOnly ? null : (
+                    <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" disabled={values.soil.layers.length === 1} onClick={() => arr.remove(i)} aria-label={`Remove layer ${i + 1}`}>
+                      Remove
+                    </button>
+                  )}
+                </div>
+              ))}
+              {readOnly ? null : (
+                <button type="button" className="btn-quiet text-xs" onClick={() => arr.push(newSoilLayer())}>
+                  Add a layer
+                </button>
+              )}
+            </div>
+          )}
+        </FieldArray>
+      ) : null}
+      <fieldset className="flex flex-wrap gap-4 text-sm" disabled={readOnly || layered}>
         <legend className="field-label">Stiffness given as</legend>
         <label className="flex items-center gap-1.5">
           <input type="radio" name="soil.modulusSource" checked={!useG} onChange={() => void setFieldValue("soil.modulusSource", "shearWaveVelocity")} /> shear-wave velocity Vs
@@ -26,7 +92,7 @@ export function SoilSection({ readOnly }: { readOnly: boolean }) {
         </label>
       </fieldset>
       <div className="grid grid-cols-1 gap-3 md:grid-cols-2 xl:grid-cols-3">
-        {useG ? (
+        {layered ? null : useG ? (
           <NumberField name="soil.shearModulus" label="Shear modulus G" kind="modulus" hint={soilHints.shearModulus} readOnly={readOnly} />
         ) : (
           <NumberField name="soil.shearWaveVelocity" label="Shear-wave velocity Vs" kind="waveSpeed" hint={soilHints.shearWaveVelocity} readOnly={readOnly} />
