@@ -24,7 +24,7 @@ const nextConfig = {
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   poweredByHeader: false,
   // Packages with Node-only code stay external to the server bundle.
-  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "exceljs", "smtp-server", "mailparser"],
+  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "exceljs", "smtp-server", "mailparser", "pdfkit", "@resvg/resvg-js"],
   async headers() {
     return [
       {
