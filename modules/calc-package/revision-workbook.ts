@@ -11,7 +11,8 @@ import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
 import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
 import { SPEED_RAMPS_SHEET, writeSpeedRampsSheet } from "./speed-ramps-sheet";
-import type { PackageRevisionSummary, RevisionPackageData } from "./types";
+import { applyPrintSetup, printLabels, revisionSignOffs } from "./print-setup";
+import type { PackageSignOff, RevisionPackageData } from "./types";
 
 export const PACKAGE_SHEETS = {
   cover: "Cover",
@@ -42,24 +43,29 @@ export const METHOD_NAMES = {
 } as const;
 
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
-const SHAPE_FORMAT = "0.000E+00";
-const SHARE_FORMAT = "0.000";
 const UTC = " (UTC)";
 
 export const UNIT_SYSTEM_NAMES = { si: "SI", us: "US customary" } as const;
 
-/** The revision's checked-by and approved-by names: the one decision a checker (or manager) made. */
-export function signatures(r: PackageRevisionSummary): { checked: string; approved: string } {
-  if (!r.decision) return { checked: "not yet", approved: "not yet" };
-  return { checked: r.decision.decidedByName, approved: r.decision.outcome === "approved" ? r.decision.decidedByName : "not approved (returned)" };
+/** The revision's checked-by and approved-by names, from the sign-off block. */
+export function signatures(signOffs: PackageSignOff[]): { checked: string; approved: string } {
+  return { checked: signOffs.find((s) => s.role === "Checked")?.name ?? "not yet", approved: signOffs.find((s) => s.role === "Approved")?.name ?? "not yet" };
 }
 
 function cover(w: SheetWriter, d: RevisionPackageData): void {
   const { project, foundation, revision } = d;
-  const sign = signatures(revision);
+  const signOffs = d.signOffs ?? revisionSignOffs(revision);
+  const labels = printLabels(d);
+  const sign = signatures(signOffs);
   w.title(`Calculation package: ${project.code} ${foundation.tag}, revision ${revision.label}`);
   w.note("Concrete block foundation of rotating machines: masses, soil springs, natural frequencies, response and checks as issued.");
   w.blank();
+  w.endTitleBlock();
+  w.pairs("Document", [
+    { label: "Document number", value: labels.documentNumber },
+    { label: "Revision", value: revision.label },
+    { label: "Status", value: labels.statusText },
+  ]);
   w.pairs("Project", [
     { label: "Project code", value: project.code },
     { label: "Project name", value: project.name },
@@ -76,6 +82,11 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
     "Revision block",
     [{ header: "Revision" }, { header: `Date${UTC}` }, { header: "By" }, { header: "Checked" }, { header: "Approved" }, { header: "Status" }],
     [[revision.label, revision.issuedAt, revision.issuedByName, sign.checked, sign.approved, revisionStatusLabels[revision.status]]],
+  );
+  w.table(
+    "Sign-off",
+    [{ header: "Role" }, { header: "Name" }, { header: `Date${UTC}` }],
+    signOffs.map((s) => [s.role, s.name, s.date ?? "—"]),
   );
   w.pairs("Record", [
     { label: "Decision date" + UTC, value: revision.decision?.decidedAt ?? "—" },
@@ -109,7 +120,6 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.handCheck, "vertical single-degree-of-freedom check as live formulas: change a yellow cell and see the effect"],
     ],
   );
-  w.widths([44, 30, 26, 26, 26, 22]);
 }
 
 function inputs(w: SheetWriter, d: RevisionPackageData): void {
@@ -231,7 +241,6 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
     ],
     "Reference",
   );
-  w.widths([44, 22, 14, 14, 14, 14, 14, 14, 12, 10, 10, 10]);
 }
 
 function mass(w: SheetWriter, d: RevisionPackageData): void {
@@ -271,7 +280,6 @@ function mass(w: SheetWriter, d: RevisionPackageData): void {
       DOF_KEYS.map((k, i) => [DOF_NAMES[k], translational(k) ? (diag[i]?.[i] ?? null) : null, translational(k) ? null : (diag[i]?.[i] ?? null)]),
     );
   }
-  w.widths([46, 18, 18, 18]);
 }
 
 function springs(w: SheetWriter, d: RevisionPackageData): void {
@@ -295,18 +303,17 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
   table("Rotations", ["rx", "ry", "rz"], "rotationalStiffness", "rotationalDashpot");
   w.table(
     "Intermediate values of the method (SI, as the engine reports them)",
-    [{ header: "Name" }, { header: "Value [SI]", numFmt: "0.0000E+00" }],
+    [{ header: "Name" }, { header: "Value [SI]", digits: 4 }],
     Object.entries(imp.details ?? {}).map(([k, v]) => [k, v]),
   );
-  w.widths([40, 20, 20, 16, 20]);
 }
 
 function modes(w: SheetWriter, d: RevisionPackageData): void {
   const r = d.result;
   w.title("Natural frequencies and mode shapes of the rigid block (undamped)");
   w.blank();
-  const share = (k: DofKey): Column => ({ header: `share ${k}`, kind: "ratio", numFmt: SHARE_FORMAT });
-  const shape = (k: DofKey): Column => ({ header: `shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]`, numFmt: SHAPE_FORMAT });
+  const share = (k: DofKey): Column => ({ header: `share ${k}`, kind: "ratio" });
+  const shape = (k: DofKey): Column => ({ header: `shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]` });
   w.table(
     "Modes",
     [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Dominant" }, ...DOF_KEYS.map(share), ...DOF_KEYS.map(shape)],
@@ -343,7 +350,6 @@ function modes(w: SheetWriter, d: RevisionPackageData): void {
     );
     w.note(cc.source);
   }
-  w.widths([34, 14, 14, 12, 12, 12, 12, 12, 12, 16, 16, 16, 16, 16, 16]);
 }
 
 function response(w: SheetWriter, d: RevisionPackageData): void {
@@ -426,7 +432,6 @@ function response(w: SheetWriter, d: RevisionPackageData): void {
       ]),
     ),
   );
-  w.widths([22, 14, 12, 12, 30, 12, 12, 12, 14, 14, 14, 14, 14, 14, 16, 16]);
 }
 
 function band(w: SheetWriter, d: RevisionPackageData): void {
@@ -466,7 +471,6 @@ function band(w: SheetWriter, d: RevisionPackageData): void {
     [{ header: "Soil" }, { header: "Machine" }, { header: "Rotor" }, ...Array.from({ length: n }, (_, i) => ({ header: `r mode ${i + 1}`, kind: "ratio" as const }))],
     (["lower", "upper"] as const).flatMap((k) => b[k].frequencyRatios.map((fr) => [k, fr.machine, fr.rotor, ...fr.ratios])),
   );
-  w.widths([16, 22, 22, 14, 14, 14, 14, 14, 14]);
 }
 
 function checkRows(checks: CheckResult[]): Cell[][] {
@@ -532,7 +536,6 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
       checkRows(mine),
     );
   }
-  w.widths([36, 20, 12, 12, 10, 26, 8, 14, 14, 10, 12, 10, 80]);
 }
 
 function history(w: SheetWriter, d: RevisionPackageData): void {
@@ -574,7 +577,6 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
     [{ header: `When${UTC}` }, { header: "Event" }, { header: "By" }, { header: "Revision" }],
     d.trail.map((t) => [t.createdAt, t.action.replace(/^revision\./, ""), t.actorName ?? "—", t.label ?? "—"]),
   );
-  w.widths([18, 10, 18, 22, 22, 12, 22, 18, 40, 10, 66, 10]);
 }
 
 /** The workbook of one revision. */
@@ -584,19 +586,27 @@ export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook 
   wb.created = d.generatedAt;
   wb.title = `${d.project.code} ${d.foundation.tag} revision ${d.revision.label}`;
   const sys = d.project.units;
-  const sheet = (name: string) => new SheetWriter(wb.addWorksheet(name), sys);
-  cover(sheet(PACKAGE_SHEETS.cover), d);
-  inputs(sheet(PACKAGE_SHEETS.inputs), d);
-  mass(sheet(PACKAGE_SHEETS.mass), d);
-  springs(sheet(PACKAGE_SHEETS.springs), d);
-  modes(sheet(PACKAGE_SHEETS.modes), d);
-  response(sheet(PACKAGE_SHEETS.response), d);
+  const labels = printLabels(d);
+  const sheet = (name: string, write: (w: SheetWriter, d: RevisionPackageData) => void, onePage = false) => {
+    const w = new SheetWriter(wb.addWorksheet(name), sys);
+    write(w, d);
+    w.finish();
+    applyPrintSetup(w.ws, labels, { lastColumn: w.columnCount, lastRow: w.lastRow, titleRows: w.titleRows || 1, onePage });
+  };
+  sheet(PACKAGE_SHEETS.cover, cover, true);
+  sheet(PACKAGE_SHEETS.inputs, inputs);
+  sheet(PACKAGE_SHEETS.mass, mass);
+  sheet(PACKAGE_SHEETS.springs, springs);
+  sheet(PACKAGE_SHEETS.modes, modes);
+  sheet(PACKAGE_SHEETS.response, response);
   // Only a revision with start-up or coast-down runs has this sheet (after the harmonic response it compares with).
-  if (d.result.transient?.length) writeSpeedRampsSheet(sheet(SPEED_RAMPS_SHEET), d);
-  band(sheet(PACKAGE_SHEETS.band), d);
-  checks(sheet(PACKAGE_SHEETS.checks), d);
-  history(sheet(PACKAGE_SHEETS.history), d);
-  addHandCheckSheet(wb.addWorksheet(PACKAGE_SHEETS.handCheck), d);
+  if (d.result.transient?.length) sheet(SPEED_RAMPS_SHEET, writeSpeedRampsSheet);
+  sheet(PACKAGE_SHEETS.band, band);
+  sheet(PACKAGE_SHEETS.checks, checks);
+  sheet(PACKAGE_SHEETS.history, history);
+  const hc = wb.addWorksheet(PACKAGE_SHEETS.handCheck);
+  const hcArea = addHandCheckSheet(hc, d);
+  applyPrintSetup(hc, labels, hcArea);
   return wb;
 }
 

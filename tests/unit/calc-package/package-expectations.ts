@@ -4,6 +4,7 @@ import type ExcelJS from "exceljs";
 import { expect } from "vitest";
 import { CRITERIA_DEFAULTS, DOF_KEYS, type AnalysisInput, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { CAUTIONS } from "@/modules/platform/cautions";
+import { deliverableSource } from "@/modules/calc-package/citations";
 import { readTables, tableByTitle, toStored, unitIn, type ReadTable } from "./read-tables";
 
 const REL = 1e-9;
@@ -126,7 +127,8 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
     const c = result.criteria?.[key];
     if (!c) throw new Error(`criterion ${key} missing from the result`);
     expectClose(toStored(crit.rows[i]?.[1] as number, String(crit.rows[i]?.[0])), c.value, `criterion ${i}`);
-    expect(crit.rows[i]?.[2]).toBe(c.source);
+    // Cited as the deliverable cites it: standard and clause, "verify against the edition in force", no "recalled".
+    expect(crit.rows[i]?.[2]).toBe(deliverableSource(c.source));
   });
 
   // Mass
@@ -274,7 +276,7 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
       expectNumber(t, i, "Value", c.value, c.key ?? c.label);
       expectNumber(t, i, "Limit", c.limit, c.key ?? c.label);
       expect(cellOf(t, i, "Verdict")).toBe(c.pass ? "pass" : "FAIL");
-      expect(cellOf(t, i, "Source")).toBe(c.source);
+      expect(cellOf(t, i, "Source")).toBe(deliverableSource(c.source));
       seen += 1;
     });
   });

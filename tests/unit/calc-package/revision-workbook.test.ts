@@ -66,7 +66,7 @@ describe("revision workbook", () => {
 });
 
 describe("formula injection", () => {
-  it("a box, machine, rotor or point named like a formula lands as text, never as a formula", async () => {
+  it("a box, machine, rotor or point named like a formula lands as a string cell exactly as typed, never as a formula", async () => {
     const input = exampleInput("raw-water-pump-train");
     const hostile = ['=HYPERLINK("http://example.invalid","open me")', "+1", "-2+3", "@SUM(A1:A9)"] as const;
     (input.block.solids[0] as { name: string }).name = hostile[0];
@@ -83,16 +83,19 @@ describe("formula injection", () => {
         row.eachCell((cell) => {
           if (ws.name !== PACKAGE_SHEETS.handCheck) expect(cell.type, `${ws.name}!${cell.address}`).not.toBe(ExcelJS.ValueType.Formula);
           if (typeof cell.value !== "string") return;
-          // No text cell starts with a formula character: the guard put an apostrophe first.
-          expect(/^[=+\-@]/.test(cell.value), `${ws.name}!${cell.address}: ${cell.value}`).toBe(false);
-          for (const h of [...hostile, "=1+1", "@evil"]) if (cell.value === `'${h}`) found.set(h, (found.get(h) ?? 0) + 1);
+          // No protective prefix in an .xlsx: a string cell is never evaluated, so the reader sees exactly what was typed.
+          expect(cell.value.startsWith("'="), `${ws.name}!${cell.address}: ${cell.value}`).toBe(false);
+          for (const h of [...hostile, "=1+1", "@evil"]) if (cell.value === h || cell.value.includes(h)) {
+            if (cell.value === h) expect(cell.type, `${ws.name}!${cell.address}`).toBe(ExcelJS.ValueType.String);
+            found.set(h, (found.get(h) ?? 0) + 1);
+          }
         }),
       ),
     );
     for (const h of [...hostile, "=1+1", "@evil"]) expect(found.get(h), h).toBeGreaterThan(0);
   });
 
-  it("safeText leaves ordinary text alone and guards each formula lead", () => {
+  it("safeText (CSV output only) leaves ordinary text alone and guards each formula lead", () => {
     expect(safeText("PH1-P101 pump")).toBe("PH1-P101 pump");
     expect(safeText("=A1")).toBe("'=A1");
     expect(safeText("+1")).toBe("'+1");

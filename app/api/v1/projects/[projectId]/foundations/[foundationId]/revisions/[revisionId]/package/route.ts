@@ -34,13 +34,13 @@ export const GET = defineRoute({
     ]);
     const summary = history.find((r) => r.id === revisionId);
     if (!project || !foundation || !summary) throw revisionNotFound();
-    const key = JSON.stringify([actor.userId, project.code, project.name, project.client, project.site, project.units, project.updatedAt, foundation, revisionId, history, trail.length]);
+    const key = JSON.stringify([actor.userId, project.code, project.name, project.client, project.site, project.units, project.paperSize, project.updatedAt, foundation, revisionId, history, trail.length]);
     const bytes = await built.get(key, async () => {
       const revision = await getRevision(actor, params.projectId, foundationId, revisionId);
       if (!revision) throw revisionNotFound();
       return new Uint8Array(
         await revisionWorkbookBytes({
-          project: { code: project.code, name: project.name, client: project.client, site: project.site, units: project.units },
+          project: { code: project.code, name: project.name, client: project.client, site: project.site, units: project.units, paperSize: project.paperSize },
           foundation: { tag: foundation.tag, machineTrain: foundation.machineTrain, location: foundation.location },
           revision,
           input: revision.input,
