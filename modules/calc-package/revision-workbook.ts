@@ -9,6 +9,7 @@ import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summ
 import { revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
+import { packageFigures, type PackageFigure } from "./figures";
 import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
 import { SPEED_RAMPS_SHEET, writeSpeedRampsSheet } from "./speed-ramps-sheet";
 import { applyPrintSetup, printLabels, revisionSignOffs } from "./print-setup";
@@ -20,6 +21,7 @@ export const PACKAGE_SHEETS = {
   mass: "Mass",
   springs: "Soil springs",
   modes: "Modes",
+  figures: "Figures",
   response: "Response",
   band: "Soil band",
   checks: "Checks",
@@ -110,6 +112,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.mass, "masses, centre of gravity, eccentricity, mass ratio, bearing pressure, inertia"],
       [PACKAGE_SHEETS.springs, "soil springs, damping ratios and dashpots per degree of freedom"],
       [PACKAGE_SHEETS.modes, "six natural frequencies, participation, mode shapes, frequency ratios, avoidance bands, closed-form cross-check"],
+      [PACKAGE_SHEETS.figures, "frequency-response curves with operating ranges and avoidance bands; plan and elevation of the block to scale"],
       [PACKAGE_SHEETS.response, "amplitude and velocity at every bearing and check point for every load case"],
       ...(d.result.transient?.length
         ? [[SPEED_RAMPS_SHEET, "start-up and coast-down runs through resonance (time integration): settings, peaks beside the harmonic steady state, envelope series"]]
@@ -350,6 +353,29 @@ function modes(w: SheetWriter, d: RevisionPackageData): void {
     );
     w.note(cc.source);
   }
+}
+
+/** Columns and their width on the figures sheet: together about the width of a printed page. */
+const FIGURE_COLUMNS = 10;
+const FIGURE_COLUMN_CHARS = 11;
+const FIGURE_WIDTH_PX = 740;
+const ROW_PX = 20;
+
+function figuresSheet(figs: PackageFigure[]) {
+  return (w: SheetWriter, d: RevisionPackageData): void => {
+    w.title(`Figures of revision ${d.revision.label}`);
+    w.note("Rendered on the server from the stored result and input, in this workbook's units. The curves envelope every point and load case of each rotor; shaded: each rotor's operating range (blue) and the avoidance band around every natural frequency (red).");
+    w.blank();
+    w.endTitleBlock();
+    w.reserveColumns(FIGURE_COLUMNS, FIGURE_COLUMN_CHARS - 2);
+    for (const f of figs) {
+      w.title(f.title);
+      const id = w.ws.workbook.addImage({ buffer: f.png as unknown as ExcelJS.Buffer, extension: "png" });
+      const height = Math.round((FIGURE_WIDTH_PX * f.height) / f.width);
+      w.ws.addImage(id, { tl: { col: 0, row: w.row - 1 }, ext: { width: FIGURE_WIDTH_PX, height } });
+      w.row += Math.ceil(height / ROW_PX) + 1;
+    }
+  };
 }
 
 function response(w: SheetWriter, d: RevisionPackageData): void {
@@ -598,6 +624,7 @@ export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook 
   sheet(PACKAGE_SHEETS.mass, mass);
   sheet(PACKAGE_SHEETS.springs, springs);
   sheet(PACKAGE_SHEETS.modes, modes);
+  sheet(PACKAGE_SHEETS.figures, figuresSheet(packageFigures(d)));
   sheet(PACKAGE_SHEETS.response, response);
   // Only a revision with start-up or coast-down runs has this sheet (after the harmonic response it compares with).
   if (d.result.transient?.length) sheet(SPEED_RAMPS_SHEET, writeSpeedRampsSheet);

@@ -82,6 +82,11 @@ export class SheetWriter {
     readonly system: UnitSystemKey,
   ) {}
 
+  /** Makes the first `n` columns at least `chars` wide (a sheet of figures spans them). */
+  reserveColumns(n: number, chars: number): void {
+    for (let c = 1; c <= n; c++) this.want(c, chars);
+  }
+
   private want(col: number, chars: number): void {
     this.need.set(col, Math.max(this.need.get(col) ?? 0, chars));
   }

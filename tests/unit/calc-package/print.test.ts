@@ -120,6 +120,19 @@ describe("page setup, widths, numbers and sources in the workbook", () => {
     expect(verify).toBeGreaterThan(5);
   });
 
+  it("the figures sheet carries the frequency-response plots and the plan and elevation as PNG images", () => {
+    const ws = wb.getWorksheet(PACKAGE_SHEETS.figures) as ExcelJS.Worksheet;
+    const images = ws.getImages();
+    expect(images.length).toBe(3);
+    for (const im of images) {
+      const media = wb.getImage(Number(im.imageId));
+      expect(media.extension).toBe("png");
+      const buf = media.buffer as unknown as Buffer;
+      expect(buf.subarray(1, 4).toString("latin1")).toBe("PNG");
+      expect(buf.length).toBeGreaterThan(20_000);
+    }
+  });
+
   it("the hand-check sheet states its damping (the 2 beta term) and why its transmissibility differs from the six-DOF value", () => {
     const hc = wb.getWorksheet(PACKAGE_SHEETS.handCheck) as ExcelJS.Worksheet;
     const texts: string[] = [];

@@ -1,9 +1,12 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import ExcelJS from "exceljs";
 import { packageFileName, registerFileName, revisionWorkbookBytes, PACKAGE_SHEETS, safeText } from "@/modules/calc-package";
 import { expectRevisionNumbers, expectUnitsEverywhere } from "./package-expectations";
 import { exampleInput, packageData, roundTrip } from "./fixtures";
 import { readTables, tableByTitle } from "./read-tables";
+
+// A workbook now carries three server-rendered figures (about a second on this machine), so a build takes longer than vitest's 5 s default when the suites run side by side.
+vi.setConfig({ testTimeout: 60_000 });
 
 const tableSheets = Object.values(PACKAGE_SHEETS).filter((s) => s !== PACKAGE_SHEETS.handCheck);
 

@@ -3,13 +3,16 @@
 // unit in every header, a number format on every number, the long series gathered without
 // losing a peak, and names typed like formulas kept as text.
 import ExcelJS from "exceljs";
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { analyse, DOF_KEYS, type AnalysisInput, type TransientRequestDocument, type TransientResult } from "@/modules/calc";
 import { PACKAGE_SHEETS, revisionWorkbookBytes, SPEED_RAMP_MAX_ROWS, SPEED_RAMPS_SHEET } from "@/modules/calc-package";
 import { parseAnalysisInput } from "@/modules/calc";
 import { expectClose, expectUnitsEverywhere } from "./package-expectations";
 import { exampleInput, packageData, roundTrip } from "./fixtures";
 import { readTables, tableByTitle, toStored, type ReadTable } from "./read-tables";
+
+// A workbook now carries three server-rendered figures (about a second on this machine), so a build takes longer than vitest's 5 s default when the suites run side by side.
+vi.setConfig({ testTimeout: 60_000 });
 
 const MOTOR = "Motor RWM-101";
 const PUMP = "Raw-water pump RWP-101";
