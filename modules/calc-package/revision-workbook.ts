@@ -606,7 +606,7 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
 }
 
 /** The workbook of one revision. */
-export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook {
+export function buildRevisionWorkbook(d: RevisionPackageData, figures: PackageFigure[] = packageFigures(d)): ExcelJS.Workbook {
   const wb = new ExcelJS.Workbook();
   wb.creator = "Plinthwise";
   wb.created = d.generatedAt;
@@ -624,7 +624,7 @@ export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook 
   sheet(PACKAGE_SHEETS.mass, mass);
   sheet(PACKAGE_SHEETS.springs, springs);
   sheet(PACKAGE_SHEETS.modes, modes);
-  sheet(PACKAGE_SHEETS.figures, figuresSheet(packageFigures(d)));
+  sheet(PACKAGE_SHEETS.figures, figuresSheet(figures));
   sheet(PACKAGE_SHEETS.response, response);
   // Only a revision with start-up or coast-down runs has this sheet (after the harmonic response it compares with).
   if (d.result.transient?.length) sheet(SPEED_RAMPS_SHEET, writeSpeedRampsSheet);
