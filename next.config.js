@@ -23,7 +23,7 @@ const nextConfig = {
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   poweredByHeader: false,
   // Packages with Node-only code stay external to the server bundle.
-  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "exceljs", "smtp-server", "mailparser", "pdfjs-dist"],
+  serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "exceljs", "smtp-server", "mailparser", "pdfjs-dist", "pdfkit", "@resvg/resvg-js"],
   async headers() {
     return [
       {

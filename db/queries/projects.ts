@@ -56,12 +56,12 @@ export async function getProjectForMember(actor: Actor, projectId: string): Prom
 
 export async function createProject(
   actor: Actor,
-  input: { code: string; name: string; client: string; site: string; units: "si" | "us"; criteriaDefaults?: Record<string, number> },
+  input: { code: string; name: string; client: string; site: string; units: "si" | "us"; criteriaDefaults?: Record<string, number>; paperSize?: "a4" | "letter" },
 ): Promise<ProjectRow> {
   return getDb().transaction(async (tx) => {
     const inserted = await tx
       .insert(projects)
-      .values({ ...input, criteriaDefaults: input.criteriaDefaults ?? {}, createdById: actor.userId })
+      .values({ ...input, criteriaDefaults: input.criteriaDefaults ?? {}, paperSize: input.paperSize ?? (input.units === "us" ? "letter" : "a4"), createdById: actor.userId })
       .returning();
     const project = inserted[0];
     if (!project) throw new Error("project insert returned nothing");
@@ -215,7 +215,7 @@ export async function createFoundation(
 export async function updateProjectSettings(
   actor: Actor,
   projectId: string,
-  settings: { units: "si" | "us"; revisionScheme: "letters" | "numbers"; criteriaDefaults: Record<string, number>; soilBand: { lowerFactor?: number; upperFactor?: number } },
+  settings: { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize?: "a4" | "letter"; criteriaDefaults: Record<string, number>; soilBand: { lowerFactor?: number; upperFactor?: number } },
 ): Promise<ProjectRow | undefined> {
   const membership = await getMembership(actor, projectId);
   if (!membership || membership.role !== "manager") return undefined;

@@ -25,6 +25,8 @@ export const projects = pgTable("projects", {
   soilBand: jsonb("soil_band").$type<{ lowerFactor?: number; upperFactor?: number }>().notNull().default({}),
   // Revision labels: letters A, B, C while in check, or numbers 0, 1, 2 for issue for construction.
   revisionScheme: text("revision_scheme", { enum: ["letters", "numbers"] }).notNull().default("letters"),
+  // Paper of the printed calculation package (workbook page setup and PDF): A4 or US Letter.
+  paperSize: text("paper_size", { enum: ["a4", "letter"] }).notNull().default("a4"),
   createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
   ...stamps,
 });

@@ -7,6 +7,11 @@ export function packageFileName(projectCode: string, foundationTag: string, revi
   return `${part(projectCode)}_${part(foundationTag)}_rev-${part(revisionLabel)}.xlsx`;
 }
 
+/** The PDF rendition's name: the workbook's with .pdf. */
+export function packagePdfFileName(projectCode: string, foundationTag: string, revisionLabel: string): string {
+  return packageFileName(projectCode, foundationTag, revisionLabel).replace(/\.xlsx$/, ".pdf");
+}
+
 export function registerFileName(projectCode: string, on: Date): string {
   return `${part(projectCode)}_register_${on.toISOString().slice(0, 10)}.xlsx`;
 }

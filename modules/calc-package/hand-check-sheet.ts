@@ -6,9 +6,9 @@
 import type ExcelJS from "exceljs";
 import { CRITERIA_DEFAULTS } from "@/modules/calc";
 import type { UnitSystemKey } from "@/modules/units";
-import { factorToStored, numberFormat, packageUnit, toPackageUnit, type PackageKind } from "./package-units";
-import { safeText } from "./safe-text";
-import { INPUT_FILL, TITLE_FONT } from "./sheet-writer";
+import { significantExcelFormat } from "@/modules/units";
+import { factorToStored, packageUnit, toPackageUnit, type PackageKind } from "./package-units";
+import { cellText, HEADER_FILL, HEADER_FONT, INPUT_FILL, TITLE_FONT } from "./sheet-writer";
 import type { RevisionPackageData } from "./types";
 
 /** Column letters of the hand-check table. */
@@ -79,7 +79,19 @@ export function handCheckValues(i: { k_z: number; zeta_z: number; beta: number; 
   return { omega, e, U, F0, omega_n, f_n, r, D, M_r, A, v, TR, F_T: TR * F0, sep: Math.abs(r - 1) };
 }
 
-export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData): void {
+/** Why the hand check's transmissibility is not the six-degree-of-freedom value (printed on the sheet). */
+export function handCheckDampingNote(beta: number): string {
+  return (
+    `Damping: the damping term is D = 2 zeta_z r + 2 beta, with zeta_z the vertical radiation damping ratio and beta = ${beta} the soil's material (hysteretic) damping, ` +
+    "which multiplies the spring by (1 + 2 i beta) as in the six-degree-of-freedom model; with beta = 0 the forms are Chopra's viscous ones. " +
+    "The transmissibility here differs from the six-degree-of-freedom value because this is one vertical spring and dashpot under the whole mass: " +
+    "it ignores the coupling of the vertical mode with rocking and sliding when the centre of gravity or the load is off the base centroid, " +
+    "the force of the other rotors, and the frequency dependence of the springs away from the speed they were evaluated at; " +
+    "the six-degree-of-freedom model transmits the force through all six springs and dashpots at O. A difference of a few per cent is expected for a block whose centre of gravity lies over the base centroid; a large one points to coupling."
+  );
+}
+
+export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData): { lastColumn: number; lastRow: number; titleRows: number } {
   const sys: UnitSystemKey = d.project.units;
   const C = HAND_CHECK_COLUMNS;
   ws.getCell("A1").value = "Hand check: vertical single-degree-of-freedom response of the block (live formulas)";
@@ -96,9 +108,9 @@ export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData)
   const rotor = machine?.rotors.find((x) => x.name === rotorResult?.rotor);
   if (!rotorResult || !rotor) {
     ws.getCell("A5").value = "This revision has no rotor, so there is no unbalance to check.";
-    return;
+    return { lastColumn: 9, lastRow: 5, titleRows: 1 };
   }
-  ws.getCell("A4").value = safeText(`Rotor: ${rotorResult.machine} ${rotorResult.rotor}, static unbalance, vertical load case at rated speed.`);
+  ws.getCell("A4").value = `Rotor: ${rotorResult.machine} ${rotorResult.rotor}, static unbalance, vertical load case at rated speed.`;
 
   const criteria = r.criteria;
   const beta = r.impedance.materialDamping ?? d.input.soil.materialDamping ?? 0;
@@ -157,15 +169,16 @@ export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData)
   head.forEach((h, i) => {
     const cell = ws.getCell(HAND_CHECK_FIRST_ROW, i + 1);
     cell.value = h;
-    cell.font = { bold: true, color: { argb: "FFFFFFFF" } };
-    cell.fill = { type: "pattern", pattern: "solid", fgColor: { argb: "FF3D4F5C" } };
+    cell.font = HEADER_FONT;
+    cell.fill = HEADER_FILL;
+    cell.alignment = { wrapText: true, vertical: "middle" };
   });
 
   for (const row of rows) {
     const n = rowOf.get(row.symbol) as number;
     ws.getCell(`${C.symbol}${n}`).value = row.symbol;
     ws.getCell(`${C.quantity}${n}`).value = row.quantity;
-    ws.getCell(`${C.source}${n}`).value = row.source;
+    ws.getCell(`${C.source}${n}`).value = cellText(row.source);
     const shown = ws.getCell(`${C.shown}${n}`);
     if (row.verdict || !row.kind) {
       shown.value = { formula: ref(row.formula ?? "", C.si), result: cachedOf(row.symbol) };
@@ -175,24 +188,27 @@ export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData)
     const factor = factorToStored(kind, sys);
     ws.getCell(`${C.unit}${n}`).value = packageUnit(kind, sys).symbol || "ratio";
     ws.getCell(`${C.factor}${n}`).value = factor;
-    ws.getCell(`${C.factor}${n}`).numFmt = "0.000000E+00";
+    ws.getCell(`${C.factor}${n}`).numFmt = significantExcelFormat(factor, 4);
     ws.getCell(`${C.siUnit}${n}`).value = siSymbol(kind);
     const si = ws.getCell(`${C.si}${n}`);
-    si.numFmt = "0.0000E+00";
-    shown.numFmt = numberFormat(kind, sys, 3);
+    // Four significant figures: a hand check is read against the engine's value to the last figure.
     if (row.input !== undefined) {
       shown.value = toPackageUnit(kind, row.input, sys);
       shown.fill = INPUT_FILL;
+      shown.numFmt = significantExcelFormat(shown.value, 4);
       si.value = { formula: `${C.shown}${n}*${C.factor}${n}`, result: row.input };
+      si.numFmt = significantExcelFormat(row.input, 4);
     } else {
       const v = cachedOf(row.symbol) as number;
       si.value = { formula: ref(row.formula ?? "", C.si), result: v };
+      si.numFmt = significantExcelFormat(v, 4);
       shown.value = { formula: `${C.si}${n}/${C.factor}${n}`, result: v / factor };
+      shown.numFmt = significantExcelFormat(v / factor, 4);
     }
     if (row.engine !== undefined) {
       const e = ws.getCell(`${C.engine}${n}`);
       e.value = toPackageUnit(kind, row.engine, sys);
-      e.numFmt = shown.numFmt;
+      e.numFmt = significantExcelFormat(e.value, 4);
     }
   }
 
@@ -208,14 +224,36 @@ export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData)
     const n = last + 1 + i;
     ws.getCell(`B${n}`).value = label;
     const cell = ws.getCell(`C${n}`);
-    cell.value = value === undefined ? "—" : toPackageUnit(kind, value, sys);
-    cell.numFmt = numberFormat(kind, sys, 3);
+    const shown = value === undefined ? undefined : toPackageUnit(kind, value, sys);
+    cell.value = shown ?? "—";
+    if (shown !== undefined) cell.numFmt = significantExcelFormat(shown, 4);
     ws.getCell(`D${n}`).value = packageUnit(kind, sys).symbol || "ratio";
   });
 
-  [10, 62, 16, 10, 16, 16, 10, 18, 70].forEach((w, i) => {
+  // The damping this check uses and why its transmissibility is not the six-DOF one.
+  const noteRow = last + six.length + 2;
+  ws.getCell(`A${noteRow}`).value = "Damping and the difference from the six-degree-of-freedom model";
+  ws.getCell(`A${noteRow}`).font = TITLE_FONT;
+  const note = ws.getCell(`A${noteRow + 1}`);
+  note.value = handCheckDampingNote(beta);
+  note.alignment = { wrapText: true, vertical: "top" };
+  ws.mergeCells(noteRow + 1, 1, noteRow + 1, 9);
+  ws.getRow(noteRow + 1).height = 15 * 6;
+  for (const r of [1, 2, 3, 4]) {
+    ws.mergeCells(r, 1, r, 9);
+    ws.getCell(`A${r}`).alignment = { wrapText: true, vertical: "top" };
+  }
+  ws.getRow(2).height = 30;
+  ws.getRow(3).height = 30;
+
+  // Widths from the content: the quantity and source columns wrap.
+  [8, 44, 12, 10, 14, 12, 8, 14, 44].forEach((w, i) => {
     ws.getColumn(i + 1).width = w;
   });
+  for (let n = HAND_CHECK_FIRST_ROW + 1; n < HAND_CHECK_FIRST_ROW + 1 + rows.length; n++) {
+    for (const col of [C.quantity, C.source]) ws.getCell(`${col}${n}`).alignment = { wrapText: true, vertical: "top" };
+  }
+  return { lastColumn: 9, lastRow: noteRow + 1, titleRows: 1 };
 }
 
 /** The coherent SI unit a kind's stored value is in. */

@@ -3,8 +3,12 @@
 export { buildRevisionWorkbook, revisionWorkbookBytes, PACKAGE_SHEETS, DOF_NAMES, checkKind } from "./revision-workbook";
 export { buildRegisterWorkbook, registerWorkbookBytes, REGISTER_SHEETS } from "./register-workbook";
 export { addHandCheckSheet, handCheckValues, HAND_CHECK_COLUMNS, HAND_CHECK_FIRST_ROW, type HandCheckSymbol } from "./hand-check-sheet";
-export { packageFileName, registerFileName, attachmentDisposition, XLSX_CONTENT_TYPE } from "./file-names";
+export { packageFileName, packagePdfFileName, registerFileName, attachmentDisposition, XLSX_CONTENT_TYPE } from "./file-names";
 export { safeText, looksLikeFormula } from "./safe-text";
 export { SPEED_RAMPS_SHEET, SPEED_RAMP_MAX_ROWS } from "./speed-ramps-sheet";
 export { packageUnit, toPackageUnit, factorToStored, type PackageKind } from "./package-units";
 export type * from "./types";
+export { revisionPdfBytes, PDF_CONTENT_TYPE } from "./revision-pdf";
+export { applyPrintSetup, packageDocumentNumber, packageStatusText, printLabels, revisionSignOffs, type PrintLabels } from "./print-setup";
+export { deliverableSource, VERIFY_EDITION } from "./citations";
+export { packageFigures, type PackageFigure } from "./figures";

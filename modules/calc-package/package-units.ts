@@ -51,9 +51,3 @@ export function unitTag(kind: PackageKind, system: UnitSystemKey): string {
   if (kind === "count") return "";
   return `[${packageUnit(kind, system).symbol || "-"}]`;
 }
-
-/** An Excel number format with the kind's decimals (plus `extra` where a hand check wants more). */
-export function numberFormat(kind: PackageKind, system: UnitSystemKey, extra = 0): string {
-  const d = kindOf(kind).decimals[system] + extra;
-  return d === 0 ? "#,##0" : `#,##0.${"0".repeat(d)}`;
-}

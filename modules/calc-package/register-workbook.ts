@@ -5,6 +5,7 @@ import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { revisionStatusLabels } from "@/modules/revisions";
 import { checkKind, signatures, UNIT_SYSTEM_NAMES, verdictWithJustification } from "./revision-workbook";
+import { revisionSignOffs } from "./print-setup";
 import { SheetWriter, type Cell } from "./sheet-writer";
 import type { RegisterData } from "./types";
 
@@ -24,7 +25,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
   const rows: Cell[][] = d.rows.map((r) => {
     const l = r.latest;
     const gov = l ? sortChecksGoverningFirst(l.result.checks)[0] : undefined;
-    const sign = l ? signatures(l) : null;
+    const sign = l ? signatures(revisionSignOffs(l)) : null;
     return [
       r.tag,
       r.machineTrain,
@@ -66,7 +67,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
     ],
     rows,
   );
-  w.widths([16, 30, 24, 10, 10, 22, 18, 20, 20, 20, 40, 10, 10, 10, 10, 40]);
+  w.finish();
 
   // The governing check of each latest revision with its value and limit, grouped by the
   // quantity so every column has one unit.
@@ -86,7 +87,8 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
       mine.map(({ r, gov, label }) => [r.tag, label, gov.label, gov.point ?? null, gov.value, gov.limit, verdictWithJustification(gov), gov.source]),
     );
   }
-  g.widths([16, 10, 40, 26, 14, 14, 10, 80]);
+
+  g.finish();
 
   const a = new SheetWriter(wb.addWorksheet(REGISTER_SHEETS.about), sys);
   a.title(CAUTIONS_TITLE);
@@ -94,7 +96,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
   a.blank();
   a.note("Governing check: the failing check that exceeds its limit most, or, when all pass, the one closest to its limit, from the latest revision as issued.");
   a.note("Flags: an approved revision whose vendor data the draft has since replaced, and a draft that differs from the latest revision.");
-  a.widths([120]);
+  a.finish();
   return wb;
 }
 

@@ -3,16 +3,18 @@
 // the project's unit system with the unit in every header, and a hand-check sheet whose
 // single-degree-of-freedom values are live formulas.
 import ExcelJS from "exceljs";
-import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, type CheckResult, type DofKey } from "@/modules/calc";
+import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, soilCaseText, type CheckResult, type DofKey } from "@/modules/calc";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
+import { packageFigures, type PackageFigure } from "./figures";
 import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
 import { SPEED_RAMPS_SHEET, writeSpeedRampsSheet } from "./speed-ramps-sheet";
-import type { PackageRevisionSummary, RevisionPackageData } from "./types";
+import { applyPrintSetup, printLabels, revisionSignOffs } from "./print-setup";
+import type { PackageSignOff, RevisionPackageData } from "./types";
 
 export const PACKAGE_SHEETS = {
   cover: "Cover",
@@ -20,6 +22,7 @@ export const PACKAGE_SHEETS = {
   mass: "Mass",
   springs: "Soil springs",
   modes: "Modes",
+  figures: "Figures",
   response: "Response",
   band: "Soil band",
   checks: "Checks",
@@ -43,24 +46,29 @@ export const METHOD_NAMES = {
 } as const;
 
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
-const SHAPE_FORMAT = "0.000E+00";
-const SHARE_FORMAT = "0.000";
 const UTC = " (UTC)";
 
 export const UNIT_SYSTEM_NAMES = { si: "SI", us: "US customary" } as const;
 
-/** The revision's checked-by and approved-by names: the one decision a checker (or manager) made. */
-export function signatures(r: PackageRevisionSummary): { checked: string; approved: string } {
-  if (!r.decision) return { checked: "not yet", approved: "not yet" };
-  return { checked: r.decision.decidedByName, approved: r.decision.outcome === "approved" ? r.decision.decidedByName : "not approved (returned)" };
+/** The revision's checked-by and approved-by names, from the sign-off block. */
+export function signatures(signOffs: PackageSignOff[]): { checked: string; approved: string } {
+  return { checked: signOffs.find((s) => s.role === "Checked")?.name ?? "not yet", approved: signOffs.find((s) => s.role === "Approved")?.name ?? "not yet" };
 }
 
 function cover(w: SheetWriter, d: RevisionPackageData): void {
   const { project, foundation, revision } = d;
-  const sign = signatures(revision);
+  const signOffs = d.signOffs ?? revisionSignOffs(revision);
+  const labels = printLabels(d);
+  const sign = signatures(signOffs);
   w.title(`Calculation package: ${project.code} ${foundation.tag}, revision ${revision.label}`);
   w.note("Concrete block foundation of rotating machines: masses, soil springs, natural frequencies, response and checks as issued.");
   w.blank();
+  w.endTitleBlock();
+  w.pairs("Document", [
+    { label: "Document number", value: labels.documentNumber },
+    { label: "Revision", value: revision.label },
+    { label: "Status", value: labels.statusText },
+  ]);
   w.pairs("Project", [
     { label: "Project code", value: project.code },
     { label: "Project name", value: project.name },
@@ -77,6 +85,11 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
     "Revision block",
     [{ header: "Revision" }, { header: `Date${UTC}` }, { header: "By" }, { header: "Checked" }, { header: "Approved" }, { header: "Status" }],
     [[revision.label, revision.issuedAt, revision.issuedByName, sign.checked, sign.approved, revisionStatusLabels[revision.status]]],
+  );
+  w.table(
+    "Sign-off",
+    [{ header: "Role" }, { header: "Name" }, { header: `Date${UTC}` }],
+    signOffs.map((s) => [s.role, s.name, s.date ?? "—"]),
   );
   w.pairs("Record", [
     { label: "Decision date" + UTC, value: revision.decision?.decidedAt ?? "—" },
@@ -100,6 +113,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.mass, "masses, centre of gravity, eccentricity, mass ratio, bearing pressure, inertia"],
       [PACKAGE_SHEETS.springs, "soil springs, damping ratios and dashpots per degree of freedom"],
       [PACKAGE_SHEETS.modes, "six natural frequencies, participation, mode shapes, frequency ratios, avoidance bands, closed-form cross-check"],
+      [PACKAGE_SHEETS.figures, "frequency-response curves with operating ranges and avoidance bands; plan and elevation of the block to scale"],
       [PACKAGE_SHEETS.response, "amplitude and velocity at every bearing and check point for every load case"],
       ...(d.result.transient?.length
         ? [[SPEED_RAMPS_SHEET, "start-up and coast-down runs through resonance (time integration): settings, peaks beside the harmonic steady state, envelope series"]]
@@ -110,7 +124,6 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.handCheck, "vertical single-degree-of-freedom check as live formulas: change a yellow cell and see the effect"],
     ],
   );
-  w.widths([44, 30, 26, 26, 26, 22]);
 }
 
 function inputs(w: SheetWriter, d: RevisionPackageData): void {
@@ -245,7 +258,6 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
     ],
     "Reference",
   );
-  w.widths([44, 22, 14, 14, 14, 14, 14, 14, 12, 10, 10, 10]);
 }
 
 function mass(w: SheetWriter, d: RevisionPackageData): void {
@@ -285,7 +297,6 @@ function mass(w: SheetWriter, d: RevisionPackageData): void {
       DOF_KEYS.map((k, i) => [DOF_NAMES[k], translational(k) ? (diag[i]?.[i] ?? null) : null, translational(k) ? null : (diag[i]?.[i] ?? null)]),
     );
   }
-  w.widths([46, 18, 18, 18]);
 }
 
 function springs(w: SheetWriter, d: RevisionPackageData): void {
@@ -334,18 +345,17 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
   }
   w.table(
     "Intermediate values of the method (SI, as the engine reports them)",
-    [{ header: "Name" }, { header: "Value [SI]", numFmt: "0.0000E+00" }],
+    [{ header: "Name" }, { header: "Value [SI]", digits: 4 }],
     Object.entries(imp.details ?? {}).map(([k, v]) => [k, v]),
   );
-  w.widths([40, 20, 20, 16, 20]);
 }
 
 function modes(w: SheetWriter, d: RevisionPackageData): void {
   const r = d.result;
   w.title("Natural frequencies and mode shapes of the rigid block (undamped)");
   w.blank();
-  const share = (k: DofKey): Column => ({ header: `share ${k}`, kind: "ratio", numFmt: SHARE_FORMAT });
-  const shape = (k: DofKey): Column => ({ header: `shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]`, numFmt: SHAPE_FORMAT });
+  const share = (k: DofKey): Column => ({ header: `share ${k}`, kind: "ratio" });
+  const shape = (k: DofKey): Column => ({ header: `shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]` });
   w.table(
     "Modes",
     [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Dominant" }, ...DOF_KEYS.map(share), ...DOF_KEYS.map(shape)],
@@ -382,7 +392,29 @@ function modes(w: SheetWriter, d: RevisionPackageData): void {
     );
     w.note(cc.source);
   }
-  w.widths([34, 14, 14, 12, 12, 12, 12, 12, 12, 16, 16, 16, 16, 16, 16]);
+}
+
+/** Columns and their width on the figures sheet: together about the width of a printed page. */
+const FIGURE_COLUMNS = 10;
+const FIGURE_COLUMN_CHARS = 11;
+const FIGURE_WIDTH_PX = 740;
+const ROW_PX = 20;
+
+function figuresSheet(figs: PackageFigure[]) {
+  return (w: SheetWriter, d: RevisionPackageData): void => {
+    w.title(`Figures of revision ${d.revision.label}`);
+    w.note("Rendered on the server from the stored result and input, in this workbook's units. The curves envelope every point and load case of each rotor; shaded: each rotor's operating range (blue) and the avoidance band around every natural frequency (red).");
+    w.blank();
+    w.endTitleBlock();
+    w.reserveColumns(FIGURE_COLUMNS, FIGURE_COLUMN_CHARS - 2);
+    for (const f of figs) {
+      w.title(f.title);
+      const id = w.ws.workbook.addImage({ buffer: f.png as unknown as ExcelJS.Buffer, extension: "png" });
+      const height = Math.round((FIGURE_WIDTH_PX * f.height) / f.width);
+      w.ws.addImage(id, { tl: { col: 0, row: w.row - 1 }, ext: { width: FIGURE_WIDTH_PX, height } });
+      w.row += Math.ceil(height / ROW_PX) + 1;
+    }
+  };
 }
 
 function response(w: SheetWriter, d: RevisionPackageData): void {
@@ -465,7 +497,6 @@ function response(w: SheetWriter, d: RevisionPackageData): void {
       ]),
     ),
   );
-  w.widths([22, 14, 12, 12, 30, 12, 12, 12, 14, 14, 14, 14, 14, 14, 16, 16]);
 }
 
 function band(w: SheetWriter, d: RevisionPackageData): void {
@@ -505,12 +536,33 @@ function band(w: SheetWriter, d: RevisionPackageData): void {
     [{ header: "Soil" }, { header: "Machine" }, { header: "Rotor" }, ...Array.from({ length: n }, (_, i) => ({ header: `r mode ${i + 1}`, kind: "ratio" as const }))],
     (["lower", "upper"] as const).flatMap((k) => b[k].frequencyRatios.map((fr) => [k, fr.machine, fr.rotor, ...fr.ratios])),
   );
-  w.widths([16, 22, 22, 14, 14, 14, 14, 14, 14]);
 }
 
-function checkRows(checks: CheckResult[]): Cell[][] {
+/**
+ * The sources of a list of checks, keyed S1, S2, ... in order of first use: the check rows
+ * carry the key and one table quotes each source once (with the soil-band checks a source
+ * repeated on every row made the sheet several pages longer).
+ */
+export function sourceKeys(checks: CheckResult[]): Map<string, string> {
+  const keys = new Map<string, string>();
+  for (const c of checks) if (!keys.has(c.source)) keys.set(c.source, `S${keys.size + 1}`);
+  return keys;
+}
+
+/** A check's label in the package: the soil bound goes to its own column, so it is not repeated in the text. */
+export function packageCheckLabel(c: CheckResult): string {
+  return c.soilCase ? c.label.replace(/^At the (?:lower|upper) soil bound[^:]*: /, "") : c.label;
+}
+
+/** The soil column: "nominal", or the bound with its factor ("upper, G x 1.5"). */
+export function packageSoilText(c: CheckResult): string {
+  return c.soilCase ? soilCaseText(c).replace(" soil bound", ",").replace(/[()]/g, "") : "nominal";
+}
+
+function checkRows(checks: CheckResult[], keys: Map<string, string>): Cell[][] {
   return checks.map((c) => [
-    c.label,
+    packageCheckLabel(c),
+    packageSoilText(c),
     c.machine ?? null,
     c.rotor ?? null,
     c.case ?? null,
@@ -523,7 +575,7 @@ function checkRows(checks: CheckResult[]): Cell[][] {
     checkUtilisation(c),
     packageVerdict(c),
     c.acceptance?.justification ?? null,
-    c.source,
+    keys.get(c.source) ?? c.source,
   ]);
 }
 
@@ -561,6 +613,7 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
     { title: "Displacement at bearings and check points (enveloped over the speed range)", kind: "displacement" },
     { title: "Velocity at bearings and check points (enveloped over the speed range)", kind: "velocity" },
   ];
+  const keys = sourceKeys(all);
   for (const g of groups) {
     const mine = all.filter((c) => checkKind(c) === g.kind);
     if (!mine.length) continue;
@@ -568,6 +621,7 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
       g.title,
       [
         { header: "Check" },
+        { header: "Soil" },
         { header: "Machine" },
         { header: "Rotor" },
         { header: "Case" },
@@ -582,10 +636,14 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
         { header: "Justification" },
         { header: "Source" },
       ],
-      checkRows(mine),
+      checkRows(mine, keys),
     );
   }
-  w.widths([36, 20, 12, 12, 10, 26, 8, 14, 14, 10, 12, 10, 40, 80]);
+  w.table(
+    "Sources of the limits",
+    [{ header: "Key" }, { header: "Reference" }],
+    [...keys].map(([source, key]) => [key, source]),
+  );
 }
 
 function history(w: SheetWriter, d: RevisionPackageData): void {
@@ -627,29 +685,37 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
     [{ header: `When${UTC}` }, { header: "Event" }, { header: "By" }, { header: "Revision" }],
     d.trail.map((t) => [t.createdAt, t.action.replace(/^revision\./, ""), t.actorName ?? "—", t.label ?? "—"]),
   );
-  w.widths([18, 10, 18, 22, 22, 12, 22, 18, 40, 10, 66, 10]);
 }
 
 /** The workbook of one revision. */
-export function buildRevisionWorkbook(d: RevisionPackageData): ExcelJS.Workbook {
+export function buildRevisionWorkbook(d: RevisionPackageData, figures: PackageFigure[] = packageFigures(d)): ExcelJS.Workbook {
   const wb = new ExcelJS.Workbook();
   wb.creator = "Plinthwise";
   wb.created = d.generatedAt;
   wb.title = `${d.project.code} ${d.foundation.tag} revision ${d.revision.label}`;
   const sys = d.project.units;
-  const sheet = (name: string) => new SheetWriter(wb.addWorksheet(name), sys);
-  cover(sheet(PACKAGE_SHEETS.cover), d);
-  inputs(sheet(PACKAGE_SHEETS.inputs), d);
-  mass(sheet(PACKAGE_SHEETS.mass), d);
-  springs(sheet(PACKAGE_SHEETS.springs), d);
-  modes(sheet(PACKAGE_SHEETS.modes), d);
-  response(sheet(PACKAGE_SHEETS.response), d);
+  const labels = printLabels(d);
+  const sheet = (name: string, write: (w: SheetWriter, d: RevisionPackageData) => void, onePage = false) => {
+    const w = new SheetWriter(wb.addWorksheet(name), sys);
+    write(w, d);
+    w.finish();
+    applyPrintSetup(w.ws, labels, { lastColumn: w.columnCount, lastRow: w.lastRow, titleRows: w.titleRows || 1, onePage });
+  };
+  sheet(PACKAGE_SHEETS.cover, cover, true);
+  sheet(PACKAGE_SHEETS.inputs, inputs);
+  sheet(PACKAGE_SHEETS.mass, mass);
+  sheet(PACKAGE_SHEETS.springs, springs);
+  sheet(PACKAGE_SHEETS.modes, modes);
+  sheet(PACKAGE_SHEETS.figures, figuresSheet(figures));
+  sheet(PACKAGE_SHEETS.response, response);
   // Only a revision with start-up or coast-down runs has this sheet (after the harmonic response it compares with).
-  if (d.result.transient?.length) writeSpeedRampsSheet(sheet(SPEED_RAMPS_SHEET), d);
-  band(sheet(PACKAGE_SHEETS.band), d);
-  checks(sheet(PACKAGE_SHEETS.checks), d);
-  history(sheet(PACKAGE_SHEETS.history), d);
-  addHandCheckSheet(wb.addWorksheet(PACKAGE_SHEETS.handCheck), d);
+  if (d.result.transient?.length) sheet(SPEED_RAMPS_SHEET, writeSpeedRampsSheet);
+  sheet(PACKAGE_SHEETS.band, band);
+  sheet(PACKAGE_SHEETS.checks, checks);
+  sheet(PACKAGE_SHEETS.history, history);
+  const hc = wb.addWorksheet(PACKAGE_SHEETS.handCheck);
+  const hcArea = addHandCheckSheet(hc, d);
+  applyPrintSetup(hc, labels, hcArea);
   return wb;
 }
 

@@ -1,9 +1,9 @@
-// Every string a person typed (names of boxes, machines, rotors, points, people, notes)
-// passes through safeText before it reaches a cell. exceljs writes strings as string
-// cells, so Excel never evaluates them as written; but a cell that is copied, re-typed
-// or saved as CSV is read again by a spreadsheet, which takes a leading =, +, - or @
-// (and tab or carriage return) as the start of a formula. A leading apostrophe is the
-// usual guard (OWASP, "CSV Injection"): the text then stays text everywhere.
+// For CSV output only. In an .xlsx file every string is a string cell, which a spreadsheet
+// never evaluates, so the package writes text exactly as typed. A CSV file has no cell
+// types: a spreadsheet opening it takes a leading =, +, - or @ (and tab or carriage
+// return) as the start of a formula. There a leading apostrophe is the usual guard
+// (OWASP, "CSV Injection"), so every string a person typed passes through safeText before
+// it is written to a CSV field.
 const formulaLead = /^[=+\-@\t\r]/;
 
 /** The text as it must be written to a cell: unchanged, or with a leading apostrophe when a spreadsheet would read it as a formula. */

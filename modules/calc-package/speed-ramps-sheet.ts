@@ -16,8 +16,6 @@ export const SPEED_RAMPS_SHEET = "Speed ramps";
  */
 export const SPEED_RAMP_MAX_ROWS = 500;
 
-const SMALL_TIME_FORMAT = "0.000E+00";
-const RATIO_FORMAT = "0.000";
 
 const dofNames: Record<DofKey, string> = { x: "x sliding", y: "y sliding", z: "z vertical", rx: "rx rocking about x", ry: "ry rocking about y", rz: "rz torsion" };
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
@@ -35,7 +33,7 @@ function peakColumns(kind: PackageKind, word: string): Column[] {
     { header: `Steady-state ${word} at that speed`, kind },
     { header: `Largest steady-state ${word} in the ramp`, kind },
     { header: "at speed", kind: "speed" },
-    { header: "Peak over largest steady state", kind: "ratio", numFmt: RATIO_FORMAT },
+    { header: "Peak over largest steady state", kind: "ratio" },
   ];
 }
 
@@ -70,9 +68,9 @@ export function writeSpeedRampsSheet(w: SheetWriter, d: RevisionPackageData): vo
       { header: "Duration", kind: "time" },
       { header: "Angular acceleration", kind: "angularAcceleration" },
       { header: "Plot intervals", kind: "count" },
-      { header: "Time step", kind: "time", numFmt: SMALL_TIME_FORMAT },
+      { header: "Time step", kind: "time" },
       { header: "Steps", kind: "count" },
-      { header: "Steps per shortest period", kind: "ratio", numFmt: "0.0" },
+      { header: "Steps per shortest period", kind: "ratio" },
       { header: "Springs frozen at", kind: "frequency" },
     ],
     runs.map((r, i) => [
@@ -150,5 +148,4 @@ export function writeSpeedRampsSheet(w: SheetWriter, d: RevisionPackageData): vo
       rows.timeS.map((t, j) => [t, rows.speedRpm[j], ...rows.displacement.map((b) => b[j]), ...rows.velocity.map((b) => b[j])]),
     );
   });
-  w.widths([12, 24, 22, 14, 16, 14, 14, 14, 34, 16, 16, 14, 12, 14, 14]);
 }

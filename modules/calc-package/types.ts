@@ -10,6 +10,17 @@ export interface PackageProject {
   client: string;
   site: string;
   units: UnitSystemKey;
+  /** Paper of the printed package (projects.paper_size); A4 when absent. */
+  paperSize?: PaperSize;
+}
+
+export type PaperSize = "a4" | "letter";
+
+/** One line of the cover's sign-off block: who did what and when. */
+export interface PackageSignOff {
+  role: string;
+  name: string;
+  date: Date | null;
 }
 
 export interface PackageFoundation {
@@ -50,6 +61,15 @@ export interface RevisionPackageData {
   trail: PackageTrailEntry[];
   generatedAt: Date;
   generatedByName: string;
+  /**
+   * The cover's sign-off block; when absent it is filled from what the revision records
+   * (issuer, the checker's decision). A later two-step sign-off passes its own list.
+   */
+  signOffs?: PackageSignOff[];
+  /** The status printed in every page header; from the revision's status when absent. */
+  statusText?: string;
+  /** The document number in every page header; from project code and foundation tag when absent. */
+  documentNumber?: string;
 }
 
 export interface RegisterRow {

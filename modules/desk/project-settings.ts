@@ -11,6 +11,8 @@ export const projectSettingsFormSchema = z.object({
   projectId: z.uuid(),
   units: z.enum(["si", "us"], "Pick SI or US customary"),
   revisionScheme: z.enum(["letters", "numbers"], "Pick a revision-label scheme"),
+  // Optional so a form (or a client) that predates the setting keeps the stored paper.
+  paperSize: z.enum(["a4", "letter"], "Pick A4 or Letter").optional(),
   frequencySeparation: optionalNumber((n) => n.gt(0, "Must lie in (0, 1)").lt(1, "Must lie in (0, 1)")),
   maxDisplacementPeakUm: optionalNumber((n) => n.gt(0, "Must be greater than 0").max(10_000, "At most 10 000 µm")),
   maxVelocityPeakMmS: optionalNumber((n) => n.gt(0, "Must be greater than 0").max(1_000, "At most 1 000 mm/s")),
@@ -21,11 +23,20 @@ export const projectSettingsFormSchema = z.object({
   soilBandUpper: optionalNumber((n) => n.min(1, "Must be 1 or more").max(10, "At most 10")),
 });
 
+export type PaperSize = "a4" | "letter";
+export const PAPER_SIZE_NAMES: Record<PaperSize, string> = { a4: "A4 (210 × 297 mm)", letter: "Letter (8.5 × 11 in)" };
+/** The paper a new project starts with: Letter where US customary units are chosen, else A4. */
+export function defaultPaperSize(units: "si" | "us"): PaperSize {
+  return units === "us" ? "letter" : "a4";
+}
+
 export type ProjectSettingsForm = z.infer<typeof projectSettingsFormSchema>;
 
 export interface ProjectSettings {
   units: "si" | "us";
   revisionScheme: "letters" | "numbers";
+  /** Absent: keep the stored paper size. */
+  paperSize?: PaperSize;
   criteriaDefaults: Record<string, number>;
   soilBand: { lowerFactor?: number; upperFactor?: number };
 }
@@ -41,6 +52,7 @@ export function settingsFromForm(f: ProjectSettingsForm): ProjectSettings {
   return {
     units: f.units,
     revisionScheme: f.revisionScheme,
+    ...(f.paperSize ? { paperSize: f.paperSize } : {}),
     criteriaDefaults: criteria,
     soilBand: {
       ...(f.soilBandLower !== undefined ? { lowerFactor: f.soilBandLower } : {}),

@@ -4,3 +4,4 @@ export { quantityKinds, quantityKindKeys, displayUnit, defineQuantityKind, type 
 export { convertValue, fromDisplay, toDisplay, unitSymbol } from "./convert";
 export { formatFeetInches, formatNumber, formatQuantity, parseFeetInches, parseQuantity, type FormatOptions, type ParseQuantityResult } from "./format";
 export * as units from "./unit-definitions";
+export { formatSignificant, significantDecimals, significantExcelFormat, SCI_LARGE, SCI_SMALL, type SignificantOptions } from "./format-number";

@@ -24,8 +24,15 @@ describe("calculation package", () => {
       await page.goto(`/projects/${projectId}/foundations/${foundationId}/revisions/${latest.id}`);
       const pkg = await downloadByTestId(page, "package-download");
       expect(pkg.fileName).toBe(`WRP-PH1_PH1-P101_rev-${latest.label}.xlsx`);
-      expect(pkg.workbook.worksheets.map((w) => w.name)).toEqual(["Cover", "Inputs", "Mass", "Soil springs", "Modes", "Response", "Soil band", "Checks", "Revision trail", "Hand check"]);
+      expect(pkg.workbook.worksheets.map((w) => w.name)).toEqual(["Cover", "Inputs", "Mass", "Soil springs", "Modes", "Figures", "Response", "Soil band", "Checks", "Revision trail", "Hand check"]);
       expect(JSON.stringify(pkg.workbook.getWorksheet("Cover")?.getSheetValues())).toContain(`revision ${latest.label}`);
+      // The PDF rendition beside it.
+      const pdfHref = await page.getByTestId("package-pdf-download").getAttribute("href");
+      expect(pdfHref).toBe(`${packageUrl}/pdf`);
+      const pdf = await page.request.get(pdfHref ?? "");
+      expect(pdf.status()).toBe(200);
+      expect(pdf.headers()["content-type"]).toBe("application/pdf");
+      expect((await pdf.body()).subarray(0, 5).toString("latin1")).toBe("%PDF-");
     });
   });
 

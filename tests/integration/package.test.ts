@@ -7,16 +7,20 @@ import { closeDb } from "@/db/client";
 import { listFoundations } from "@/db/queries/projects";
 import { getRevision, listRevisions } from "@/db/queries/revisions";
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
-import { PACKAGE_SHEETS, REGISTER_SHEETS } from "@/modules/calc-package";
+import { checkKind, PACKAGE_SHEETS, REGISTER_SHEETS, toPackageUnit } from "@/modules/calc-package";
+import { packageCheckLabel } from "@/modules/calc-package/revision-workbook";
+import { formatSignificant } from "@/modules/units";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { revisionStatusLabels } from "@/modules/revisions";
 import { CAUTIONS } from "@/modules/platform/cautions";
 import { callRoute, getFixture, type Fixture } from "./support/fixture";
 import { expectClose, expectRevisionNumbers, expectUnitsEverywhere } from "../unit/calc-package/package-expectations";
 import { readTables, tableByTitle, toStored } from "../unit/calc-package/read-tables";
+import { ensureLibreOffice, pdfPages } from "../unit/calc-package/libreoffice";
 
 const PACKAGE = "v1/projects/[projectId]/foundations/[foundationId]/revisions/[revisionId]/package";
 const REGISTER = "v1/projects/[projectId]/register";
+const PACKAGE_PDF = `${PACKAGE}/pdf`;
 const XLSX = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
 
 let fx: Fixture;
@@ -24,6 +28,7 @@ let manager: { userId: string; isAdmin: boolean };
 let pump: { id: string; tag: string };
 
 beforeAll(async () => {
+  ensureLibreOffice(); // poppler-utils for pdftotext, through the same install script
   fx = await getFixture();
   manager = { userId: fx.userIds.manager, isAdmin: false };
   const f = (await listFoundations(manager, fx.projectId)).find((x) => x.tag === "PH1-P101");
@@ -100,6 +105,48 @@ describe("revision package", () => {
     if (!other) throw new Error("no second foundation");
     expect((await callRoute(PACKAGE, "GET", { ...params, foundationId: other.id }, { cookie: fx.cookies.manager })).status).toBe(404);
     expect((await callRoute(PACKAGE, "GET", { ...params, revisionId: "not-a-uuid" }, { cookie: fx.cookies.manager })).status).toBe(404);
+  });
+});
+
+describe("PDF rendition", () => {
+  it("revision B of PH1-P101 as a PDF: its text names the stored natural frequencies, governing check, status and sign-offs on labelled pages; the workbook prints on the project's paper", async () => {
+    const revisions = await listRevisions(manager, fx.projectId, pump.id);
+    const b = revisions.find((r) => r.label === "B");
+    if (!b) throw new Error("demo revision B missing");
+    const params = { projectId: fx.projectId, foundationId: pump.id, revisionId: b.id };
+    const res = await callRoute(PACKAGE_PDF, "GET", params, { cookie: fx.cookies.checker });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    expect(res.headers.get("content-disposition")).toBe('attachment; filename="WRP-PH1_PH1-P101_rev-B.pdf"');
+    expect(res.headers.get("cache-control")).toBe("private, no-store");
+    const pages = pdfPages(Buffer.from(await res.arrayBuffer()));
+    const stored = await getRevision(manager, fx.projectId, pump.id, b.id);
+    if (!stored) throw new Error("stored revision missing");
+    const all = pages.join("\n").replace(/\s+/g, " ");
+    pages.forEach((p, i) => {
+      expect(p, `page ${i + 1}`).toContain("WRP-PH1 · WRP-PH1-PH1-P101-CP");
+      expect(p, `page ${i + 1}`).toContain(`Revision B`);
+      expect(p, `page ${i + 1}`).toContain(`${revisionStatusLabels[stored.status]}${stored.status === "approved" ? "" : ": not for construction"}`);
+      expect(p, `page ${i + 1}`).toContain(`Page ${i + 1} of ${pages.length}`);
+    });
+    for (const m of stored.result.modes) expect(all).toContain(formatSignificant(m.frequencyHz));
+    const gov = sortChecksGoverningFirst(stored.result.checks)[0];
+    if (!gov) throw new Error("no governing check");
+    // The package prints the soil bound in its own column and a long label wraps: match its first words.
+    const after = all.split(packageCheckLabel(gov).replace(/\s+/g, " ").slice(0, 36)).slice(1).join(" ");
+    expect(after).toContain(formatSignificant(toPackageUnit(checkKind(gov), gov.value, "si")));
+    expect(all).toContain(stored.issuedByName);
+    expect(all).toContain(CAUTIONS[0]?.slice(0, 50) ?? "missing caution");
+    expect((await callRoute(PACKAGE_PDF, "GET", params, { cookie: fx.cookies.vendor })).status).toBe(403);
+
+    // Letter on the project: the workbook's page setup follows (Excel paper code 1).
+    await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { paperSize: "letter" } });
+    try {
+      const wb = await load(await callRoute(PACKAGE, "GET", params, { cookie: fx.cookies.manager }));
+      for (const ws of wb.worksheets) expect(ws.pageSetup.paperSize, ws.name).toBe(1);
+    } finally {
+      await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { paperSize: "a4" } });
+    }
   });
 });
 

@@ -11,7 +11,7 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   // Leave the demo project as seeded for the suites after this one.
-  await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { units: "si", revisionScheme: "letters", criteriaDefaults: {}, soilBand: {} } });
+  await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { units: "si", revisionScheme: "letters", paperSize: "a4", criteriaDefaults: {}, soilBand: {} } });
   await closeDb();
 });
 
@@ -52,6 +52,25 @@ describe("project settings", () => {
     expect(bad.status).toBe(400);
     const err = (await bad.json()) as { error: { issues: { path: string }[] } };
     expect(err.error.issues.map((i) => i.path)).toContain("criteriaDefaults.frequencySeparation");
+  });
+
+  it("the package's paper: A4 by default, Letter through the form or PATCH, a bad size refused by field, kept when omitted", async () => {
+    const me = { userId: fx.userIds.manager, isAdmin: false };
+    expect((await getProjectForMember(me, fx.projectId))?.paperSize).toBe("a4");
+    const { state } = await callAction(updateProjectSettingsAction, { projectId: fx.projectId, units: "si", revisionScheme: "letters", paperSize: "letter" }, fx.cookies.manager);
+    expect(state.ok).toBe(true);
+    expect((await getProjectForMember(me, fx.projectId))?.paperSize).toBe("letter");
+    // A form without the field keeps it.
+    expect((await callAction(updateProjectSettingsAction, { projectId: fx.projectId, units: "si", revisionScheme: "letters" }, fx.cookies.manager)).state.ok).toBe(true);
+    expect((await getProjectForMember(me, fx.projectId))?.paperSize).toBe("letter");
+    const badForm = await callAction(updateProjectSettingsAction, { projectId: fx.projectId, units: "si", revisionScheme: "letters", paperSize: "a3" }, fx.cookies.manager);
+    expect(badForm.state.ok).toBe(false);
+    if (!badForm.state.ok) expect(badForm.state.fieldErrors?.paperSize?.[0]).toBe("Pick A4 or Letter");
+    const bad = await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { paperSize: "a3" } });
+    expect(bad.status).toBe(400);
+    expect(((await bad.json()) as { error: { issues: { path: string }[] } }).error.issues.map((i) => i.path)).toContain("paperSize");
+    const ok = await callRoute("v1/projects/[projectId]", "PATCH", { projectId: fx.projectId }, { cookie: fx.cookies.manager, body: { paperSize: "a4" } });
+    expect(((await ok.json()) as { project: { paperSize: string } }).project.paperSize).toBe("a4");
   });
 
   it("a designer may not change settings", async () => {

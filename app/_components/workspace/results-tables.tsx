@@ -5,6 +5,7 @@ import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResu
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { DOF_KEYS } from "@/modules/calc";
+import { formatSignificant as sig } from "@/modules/units";
 import { Explain } from "./explain";
 import { useUnits, type QuantityKey } from "./units-context";
 
@@ -56,11 +57,11 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
                 <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : c.acceptance ? "bg-ochre-100/40" : "bg-brick-100/40"} data-verdict={checkVerdict(c)} data-check-key={c.key}>
                   <td className="text-xs">{c.label}</td>
                   <td className="whitespace-nowrap text-right font-mono text-xs">
-                    {units.toDisplayText(kind, c.value)} {units.unitLabel(kind)}
+                    {units.toResultText(kind, c.value)} {units.unitLabel(kind)}
                   </td>
                   <td className="whitespace-nowrap text-right font-mono text-xs">
                     {c.comparison === "min" ? "≥ " : "≤ "}
-                    {units.toDisplayText(kind, c.limit)} {units.unitLabel(kind)}
+                    {units.toResultText(kind, c.limit)} {units.unitLabel(kind)}
                   </td>
                   <td className="align-top">
                     <span className={`tag whitespace-nowrap ${verdictTag[checkVerdict(c)]}`}>{CHECK_VERDICT_LABELS[checkVerdict(c)]}</span>
@@ -94,7 +95,7 @@ function Row({ k, v }: { k: string; v: string }) {
 export function MassTable({ result }: { result: AnalysisResult }) {
   const u = useUnits();
   const mp = result.massProperties;
-  const f = (k: QuantityKey, v: number) => `${u.toDisplayText(k, v)} ${u.unitLabel(k)}`;
+  const f = (k: QuantityKey, v: number) => `${u.toResultText(k, v)} ${u.unitLabel(k)}`;
   return (
     <div>
       <table className="w-full">
@@ -102,10 +103,10 @@ export function MassTable({ result }: { result: AnalysisResult }) {
           <Row k="Concrete block mass" v={f("mass", mp.blockMass)} />
           <Row k="Machine mass" v={f("mass", mp.machineMass)} />
           <Row k="Total mass" v={f("mass", mp.totalMass)} />
-          <Row k="Combined centre of gravity (x, y, z)" v={mp.cg.map((c) => u.toDisplayText("length", c)).join(", ") + ` ${u.unitLabel("length")}`} />
+          <Row k="Combined centre of gravity (x, y, z)" v={mp.cg.map((c) => u.toResultText("length", c)).join(", ") + ` ${u.unitLabel("length")}`} />
           <Row k="Base contact area" v={f("area", mp.baseArea)} />
-          <Row k="Mass ratio (block / machines)" v={mp.massRatio.toFixed(2)} />
-          <Row k="Eccentricity x, y (fraction of base)" v={mp.eccentricity.map((e) => (e * 100).toFixed(2) + " %").join(", ")} />
+          <Row k="Mass ratio (block / machines)" v={sig(mp.massRatio)} />
+          <Row k="Eccentricity x, y (fraction of base)" v={mp.eccentricity.map((e) => sig(e * 100) + " %").join(", ")} />
           <Row k="Static bearing pressure" v={f("pressure", mp.staticBearingPressure)} />
           {mp.baseThickness !== undefined ? <Row k="Thinnest base solid" v={f("length", mp.baseThickness)} /> : null}
         </tbody>
@@ -198,12 +199,12 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
             <tr key={d}>
               <td className="text-xs">{dofLabel[d]}</td>
               <td className="text-right font-mono text-xs">
-                {u.toDisplayText(kindFor(d), imp.staticStiffness[d])} {u.unitLabel(kindFor(d))}
+                {u.toResultText(kindFor(d), imp.staticStiffness[d])} {u.unitLabel(kindFor(d))}
               </td>
               <td className="text-right font-mono text-xs">
-                {u.toDisplayText(kindFor(d), imp.stiffness[d])} {u.unitLabel(kindFor(d))}
+                {u.toResultText(kindFor(d), imp.stiffness[d])} {u.unitLabel(kindFor(d))}
               </td>
-              <td className="text-right font-mono text-xs">{(imp.dampingRatio[d] * 100).toFixed(1)} %</td>
+              <td className="text-right font-mono text-xs">{sig(imp.dampingRatio[d] * 100)} %</td>
             </tr>
           ))}
         </tbody>
@@ -228,10 +229,10 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
               : "User-entered values"
         }
         inputs={[
-          ...(imp.shearModulus !== undefined ? ([["G", `${u.toDisplayText("modulus", imp.shearModulus)} ${u.unitLabel("modulus")}`]] as [string, string][]) : []),
-          ...(imp.shearWaveVelocity !== undefined ? ([["Vs", `${u.toDisplayText("waveSpeed", imp.shearWaveVelocity)} ${u.unitLabel("waveSpeed")}`]] as [string, string][]) : []),
+          ...(imp.shearModulus !== undefined ? ([["G", `${u.toResultText("modulus", imp.shearModulus)} ${u.unitLabel("modulus")}`]] as [string, string][]) : []),
+          ...(imp.shearWaveVelocity !== undefined ? ([["Vs", `${u.toResultText("waveSpeed", imp.shearWaveVelocity)} ${u.unitLabel("waveSpeed")}`]] as [string, string][]) : []),
           ...(imp.materialDamping !== undefined ? ([["β", String(imp.materialDamping)]] as [string, string][]) : []),
-          ...Object.entries(imp.details ?? {}).map(([k, v]) => [k, Number(v.toPrecision(4)).toString()] as [string, string]),
+          ...Object.entries(imp.details ?? {}).map(([k, v]) => [k, sig(v, { digits: 4 })] as [string, string]),
         ]}
       />
     </div>
@@ -262,17 +263,17 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
             {result.modes.map((m, i) => (
               <tr key={i}>
                 <td className="font-mono text-xs">{i + 1}</td>
-                <td className="text-right font-mono text-xs">{m.frequencyHz.toFixed(2)}</td>
+                <td className="text-right font-mono text-xs">{sig(m.frequencyHz)}</td>
                 <td className="text-xs">
                   {dofLabel[m.dominant]} ({(m.participation[m.dominant] * 100).toFixed(0)} %)
                 </td>
-                <td className="text-right font-mono text-xs">{lower && upper ? `${lower[i]?.toFixed(2)} – ${upper[i]?.toFixed(2)}` : "—"}</td>
+                <td className="text-right font-mono text-xs">{lower && upper ? `${sig(lower[i] ?? Number.NaN)} – ${sig(upper[i] ?? Number.NaN)}` : "—"}</td>
                 {result.rotors.map((r) => {
                   const ratio = r.frequencyRatios[i] ?? 0;
                   const near = Math.abs(ratio - 1) < 0.2;
                   return (
                     <td key={`${r.machine}-${r.rotor}`} className={`text-right font-mono text-xs ${near ? "font-semibold text-brick-700" : ""}`}>
-                      {ratio.toFixed(2)}
+                      {sig(ratio)}
                     </td>
                   );
                 })}
@@ -285,7 +286,7 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
         method="Undamped generalised eigenproblem K φ = ω² M φ of the rigid block with six degrees of freedom at O (mass matrix about O, springs at O); frequency ratio r = rated speed / natural frequency."
         formula="det(K − ω² M) = 0; f = ω / 2π; participation = M_ii φ_i² / Σ M_jj φ_j²"
         source="Standard structural dynamics (e.g. Chopra, Dynamics of Structures); soil band: G / 1.5 and 1.5 G, common practice (ASCE 4, recalled from memory)"
-        inputs={result.rotors.map((r) => [`${r.machine} ${r.rotor} rated`, `${r.speedRpm} rpm = ${(r.speedRpm / 60).toFixed(2)} Hz`] as [string, string])}
+        inputs={result.rotors.map((r) => [`${r.machine} ${r.rotor} rated`, `${r.speedRpm} rpm = ${sig(r.speedRpm / 60)} Hz`] as [string, string])}
       />
     </div>
   );
@@ -298,7 +299,7 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
       {result.rotors.map((r) => (
         <div key={`${r.machine}-${r.rotor}`}>
           <p className="text-xs font-semibold text-basalt-700">
-            {r.machine} · {r.rotor} · {r.speedRpm} rpm · force amplitude {u.toDisplayText("force", r.forceAmplitude)} {u.unitLabel("force")}
+            {r.machine} · {r.rotor} · {r.speedRpm} rpm · force amplitude {u.toResultText("force", r.forceAmplitude)} {u.unitLabel("force")}
           </p>
           <div className="overflow-x-auto">
             <table>
@@ -318,11 +319,11 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
                     <tr key={`${c.case}-${c.unbalanceMode}-${pi}`}>
                       <td className="text-xs">{pi === 0 ? `${c.case} (${c.unbalanceMode})` : ""}</td>
                       <td className="text-xs">{p.name}</td>
-                      <td className="text-right font-mono text-xs">{p.displacementPeak.map((d) => u.toDisplayText("displacement", d)).join(", ")}</td>
-                      <td className="text-right font-mono text-xs">{p.velocityPeak.map((d) => u.toDisplayText("velocity", d)).join(", ")}</td>
-                      <td className="text-right font-mono text-xs">{pi === 0 ? c.transmissibility.toFixed(3) : ""}</td>
+                      <td className="text-right font-mono text-xs">{p.displacementPeak.map((d) => u.toResultText("displacement", d)).join(", ")}</td>
+                      <td className="text-right font-mono text-xs">{p.velocityPeak.map((d) => u.toResultText("velocity", d)).join(", ")}</td>
+                      <td className="text-right font-mono text-xs">{pi === 0 ? sig(c.transmissibility) : ""}</td>
                       <td className="text-right font-mono text-xs">
-                        {pi === 0 ? `${u.toDisplayText("displacement", c.maxOverSpeedRange.displacementPeak)} at ${Math.round(c.maxOverSpeedRange.atRpm)} rpm` : ""}
+                        {pi === 0 ? `${u.toResultText("displacement", c.maxOverSpeedRange.displacementPeak)} at ${Math.round(c.maxOverSpeedRange.atRpm)} rpm` : ""}
                       </td>
                     </tr>
                   )),
@@ -367,11 +368,11 @@ export function CrossCheckTable({ result }: { result: AnalysisResult }) {
           {rows.map(([k, v]) => (
             <tr key={k}>
               <td className="text-xs">{k}</td>
-              <td className="text-right font-mono text-xs">{v.closedFormHz.toFixed(2)}</td>
+              <td className="text-right font-mono text-xs">{sig(v.closedFormHz)}</td>
               <td className="text-right font-mono text-xs">
-                {v.nearestModeHz.toFixed(2)} (mode {v.nearestMode})
+                {sig(v.nearestModeHz)} (mode {v.nearestMode})
               </td>
-              <td className="text-right font-mono text-xs">{(((v.nearestModeHz - v.closedFormHz) / v.closedFormHz) * 100).toFixed(1)} %</td>
+              <td className="text-right font-mono text-xs">{sig(((v.nearestModeHz - v.closedFormHz) / v.closedFormHz) * 100)} %</td>
             </tr>
           ))}
         </tbody>

@@ -2,7 +2,7 @@
 
 import { createContext, useContext, useMemo, useState, type ReactNode } from "react";
 import { setUnitsPreferenceAction } from "../../(desk)/actions";
-import { fromDisplay, quantityKinds, toDisplay, type QuantityKindKey, type UnitSystemKey } from "@/modules/units";
+import { formatSignificant, fromDisplay, quantityKinds, toDisplay, type QuantityKindKey, type UnitSystemKey } from "@/modules/units";
 
 export type QuantityKey = QuantityKindKey;
 export type UnitSystem = UnitSystemKey;
@@ -13,6 +13,8 @@ export interface UnitsApi {
   unitLabel: (k: QuantityKey) => string;
   toDisplayNumber: (k: QuantityKey, si: number) => number;
   toDisplayText: (k: QuantityKey, si: number | null | undefined) => string;
+  /** A result in display units with engineering significant figures (the package's formatter too). */
+  toResultText: (k: QuantityKey, si: number | null | undefined) => string;
   /** Parses what the user typed in display units; blank is null, junk is NaN (the form reports it). */
   fromDisplayText: (k: QuantityKey, text: string) => number | null;
 }
@@ -40,6 +42,7 @@ export function UnitsProvider({ initial, children }: { initial: UnitSystem; chil
       unitLabel: (k) => (k === "ratio" ? "" : quantityKinds[k][system].symbol),
       toDisplayNumber: (k, si) => toDisplay(k, si, system),
       toDisplayText: (k, si) => (si === null || si === undefined ? "" : trimNumber(toDisplay(k, si, system), quantityKinds[k].decimals[system])),
+      toResultText: (k, si) => (si === null || si === undefined ? "—" : formatSignificant(toDisplay(k, si, system))),
       fromDisplayText: (k, text) => {
         const t = text.trim().replace(",", ".");
         if (t === "") return null;

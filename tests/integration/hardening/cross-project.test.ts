@@ -53,6 +53,7 @@ function idRoutes(o: HardeningProject): Call[] {
     { route: `${F}/revisions/compare`, method: "GET", query: `from=${o.revisionId}&to=${o.revisionId}` },
     { route: R, method: "GET" },
     { route: `${R}/package`, method: "GET" },
+    { route: `${R}/package/pdf`, method: "GET" },
     { route: `${R}/decision`, method: "POST", body: { outcome: "approved", note: "" } },
     { route: `${R}/comments`, method: "GET" },
     { route: `${R}/comments`, method: "POST", body: { body: "cross-project probe" } },

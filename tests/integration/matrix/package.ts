@@ -1,5 +1,5 @@
 // Role-matrix rows for the calculation-package downloads: the package of a demo revision
-// (everyone but vendors) and the project register (managers only).
+// and its PDF rendition (everyone but vendors) and the project register (managers only).
 import { listFoundations } from "@/db/queries/projects";
 import { listRevisions } from "@/db/queries/revisions";
 import { permissionMap } from "@/modules/platform/permissions";
@@ -18,6 +18,12 @@ async function demoRevision(fx: Fixture): Promise<Record<string, string>> {
 export const routeCases: RouteCase[] = [
   {
     route: "v1/projects/[projectId]/foundations/[foundationId]/revisions/[revisionId]/package",
+    method: "GET",
+    allowed: [...permissionMap["package.export"]],
+    request: async (fx) => ({ params: await demoRevision(fx) }),
+  },
+  {
+    route: "v1/projects/[projectId]/foundations/[foundationId]/revisions/[revisionId]/package/pdf",
     method: "GET",
     allowed: [...permissionMap["package.export"]],
     request: async (fx) => ({ params: await demoRevision(fx) }),

@@ -41,3 +41,40 @@ export async function recalculate(wb: ExcelJS.Workbook): Promise<ExcelJS.Workboo
     rmSync(dir, { recursive: true, force: true });
   }
 }
+
+/** Installs poppler-utils (pdfinfo, pdftotext) when missing, through the same script. */
+export function ensurePdfTools(): void {
+  ensureLibreOffice();
+}
+
+/** The workbook printed to PDF by LibreOffice headless (its page setup, headers and footers as a reader's print). */
+export function workbookToPdf(xlsx: Buffer): Buffer {
+  const dir = mkdtempSync(path.join(tmpdir(), "plinth-lo-pdf-"));
+  try {
+    const profile = path.join(dir, "profile");
+    mkdirSync(path.join(profile, "user"), { recursive: true });
+    const source = path.join(dir, "package.xlsx");
+    writeFileSync(source, xlsx);
+    execFileSync("soffice", [`-env:UserInstallation=file://${profile}`, "--headless", "--norestore", "--convert-to", "pdf", "--outdir", dir, source], { stdio: "pipe", timeout: 180_000 });
+    return readFileSync(path.join(dir, "package.pdf"));
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}
+
+/** Page count and the text of every page (pdfinfo and pdftotext from poppler-utils). */
+export function pdfPages(pdf: Buffer): string[] {
+  const dir = mkdtempSync(path.join(tmpdir(), "plinth-pdf-"));
+  try {
+    const file = path.join(dir, "doc.pdf");
+    writeFileSync(file, pdf);
+    const info = execFileSync("pdfinfo", [file], { encoding: "utf8" });
+    const pages = Number(/^Pages:\s+(\d+)/m.exec(info)?.[1] ?? "0");
+    const text = execFileSync("pdftotext", ["-layout", "-enc", "UTF-8", file, "-"], { encoding: "utf8", maxBuffer: 64 * 1024 * 1024 });
+    const split = text.split("\f");
+    // pdftotext ends every page with a form feed, so the last piece is empty.
+    return split.slice(0, pages);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}

@@ -4,6 +4,8 @@ import type ExcelJS from "exceljs";
 import { expect } from "vitest";
 import { CRITERIA_DEFAULTS, DOF_KEYS, type AnalysisInput, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { CAUTIONS } from "@/modules/platform/cautions";
+import { deliverableSource } from "@/modules/calc-package/citations";
+import { packageCheckLabel } from "@/modules/calc-package/revision-workbook";
 import { readTables, tableByTitle, toStored, unitIn, type ReadTable } from "./read-tables";
 
 const REL = 1e-9;
@@ -126,7 +128,8 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
     const c = result.criteria?.[key];
     if (!c) throw new Error(`criterion ${key} missing from the result`);
     expectClose(toStored(crit.rows[i]?.[1] as number, String(crit.rows[i]?.[0])), c.value, `criterion ${i}`);
-    expect(crit.rows[i]?.[2]).toBe(c.source);
+    // Cited as the deliverable cites it: standard and clause, "verify against the edition in force", no "recalled".
+    expect(crit.rows[i]?.[2]).toBe(deliverableSource(c.source));
   });
 
   // Mass
@@ -262,6 +265,8 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
 
   // Checks: value, limit, verdict and source, group by group, in the engine's order.
   const checkTables = sheet("Checks").filter((t) => t.headers[0] === "Check");
+  const sources = sheet("Checks").find((t) => t.headers[0] === "Key") as ReadTable;
+  expect(sources.rows.length).toBe(new Set(result.checks.map((c) => c.source)).size);
   const kindOf = (c: CheckResult) => (c.unit === "m" ? 1 : c.unit === "m/s" ? 2 : 0);
   const groups = [0, 1, 2].map((g) => result.checks.filter((c) => kindOf(c) === g)).filter((g) => g.length);
   expect(checkTables).toHaveLength(groups.length);
@@ -270,13 +275,17 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
     const t = checkTables[gi] as ReadTable;
     expect(t.rows).toHaveLength(g.length);
     g.forEach((c, i) => {
-      expect(cellOf(t, i, "Check")).toBe(c.label);
+      expect(cellOf(t, i, "Check")).toBe(packageCheckLabel(c));
+      expect(cellOf(t, i, "Soil")).toBe(c.soilCase ? `${c.soilCase}, G x ${Number(c.soilFactor!.toPrecision(3))}` : "nominal");
       expectNumber(t, i, "Value", c.value, c.key ?? c.label);
       expectNumber(t, i, "Limit", c.limit, c.key ?? c.label);
       // a band failure accepted with a justification still reads as a failure, with the text beside it
       expect(cellOf(t, i, "Verdict")).toBe(c.pass ? "pass" : c.acceptance ? "FAIL, accepted with justification" : "FAIL");
       expect(cellOf(t, i, "Justification") ?? null).toBe(c.acceptance?.justification ?? null);
-      expect(cellOf(t, i, "Source")).toBe(c.source);
+      // the row names its source by key; the sources table quotes it once
+      const key = cellOf(t, i, "Source");
+      const quoted = sources.rows.find((r) => r[0] === key)?.[1];
+      expect(quoted, String(key)).toBe(deliverableSource(c.source));
       seen += 1;
     });
   });

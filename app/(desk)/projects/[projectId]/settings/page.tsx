@@ -23,6 +23,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ proje
         initial={{
           units: project.units,
           revisionScheme: project.revisionScheme,
+          paperSize: project.paperSize,
           frequencySeparation: num(c.frequencySeparation),
           maxDisplacementPeakUm: num(c.maxDisplacementPeak, 1e6),
           maxVelocityPeakMmS: num(c.maxVelocityPeak, 1e3),

@@ -23,7 +23,7 @@ export function SettingsForm({
   defaults,
 }: {
   projectId: string;
-  initial: Record<Key, string> & { units: "si" | "us"; revisionScheme: "letters" | "numbers" };
+  initial: Record<Key, string> & { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize: "a4" | "letter" };
   defaults: Record<Key, [string, string]>;
 }) {
   const [state, action] = useActionState(updateProjectSettingsAction as unknown as (s: FormState, f: FormData) => Promise<FormState>, null);
@@ -49,6 +49,16 @@ export function SettingsForm({
             <option value="letters">Letters A, B, C (while in check)</option>
             <option value="numbers">Numbers 0, 1, 2 (issued for construction)</option>
           </select>
+        </div>
+        <div>
+          <label htmlFor="f-paper" className="field-label">
+            Paper of the calculation package
+          </label>
+          <select id="f-paper" name="paperSize" defaultValue={initial.paperSize} className="field-input">
+            <option value="a4">A4 (210 × 297 mm)</option>
+            <option value="letter">Letter (8.5 × 11 in)</option>
+          </select>
+          <p className="mt-1 text-2xs text-basalt-400">Page setup of the workbook and the size of the PDF.</p>
         </div>
       </div>
       <div className="slab grid grid-cols-1 gap-4 p-5 sm:grid-cols-2">

@@ -29,6 +29,7 @@ const criteriaSchema = z.strictObject({
 const patchSchema = z.strictObject({
   units: z.enum(["si", "us"]).optional(),
   revisionScheme: z.enum(["letters", "numbers"]).optional(),
+  paperSize: z.enum(["a4", "letter"]).optional(),
   criteriaDefaults: criteriaSchema.optional(),
   soilBand: z.strictObject({ lowerFactor: z.number().gt(0).max(1).optional(), upperFactor: z.number().min(1).max(10).optional() }).optional(),
 });
@@ -43,6 +44,7 @@ export const PATCH = defineRoute({
     const settings = {
       units: body.units ?? current.units,
       revisionScheme: body.revisionScheme ?? current.revisionScheme,
+      paperSize: body.paperSize ?? current.paperSize,
       criteriaDefaults: body.criteriaDefaults ?? current.criteriaDefaults,
       soilBand: body.soilBand ?? current.soilBand,
     };

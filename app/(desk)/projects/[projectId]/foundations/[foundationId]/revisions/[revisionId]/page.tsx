@@ -81,6 +81,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           <p className="mt-3">
             <a className="btn-quiet" href={`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions/${revision.id}/package`} download data-testid="package-download">
               Download the calculation package (.xlsx)
+            </a>{" "}
+            <a className="btn-quiet" href={`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions/${revision.id}/package/pdf`} download data-testid="package-pdf-download">
+              The same as a PDF
             </a>
           </p>
         ) : null}

@@ -1,0 +1,41 @@
+import { getFoundation } from "@/db/queries/foundations";
+import { getProjectForMember, type Actor } from "@/db/queries/projects";
+import { getRevision, getUserContact, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import type { RevisionPackageData } from "@/modules/calc-package";
+import { idOf, revisionNotFound, type RevisionParams } from "../../revision-params";
+
+/**
+ * What the workbook and the PDF of one revision are built from. The light rows first: they
+ * make the cache key, and the revision's stored result (about a megabyte with its sweep) is
+ * read only by `load`, when a file is actually built. The queries scope by membership.
+ */
+export async function readPackageRows(actor: Actor, params: RevisionParams) {
+  const foundationId = idOf(params.foundationId, "foundation");
+  const revisionId = idOf(params.revisionId, "revision");
+  const [project, foundation, history, trail, me] = await Promise.all([
+    getProjectForMember(actor, params.projectId),
+    getFoundation(actor, params.projectId, foundationId),
+    listRevisions(actor, params.projectId, foundationId),
+    listRevisionHistory(actor, params.projectId, foundationId),
+    getUserContact(actor.userId),
+  ]);
+  const summary = history.find((r) => r.id === revisionId);
+  if (!project || !foundation || !summary) throw revisionNotFound();
+  const key = JSON.stringify([actor.userId, project.code, project.name, project.client, project.site, project.units, project.paperSize, project.updatedAt, foundation, revisionId, history, trail.length]);
+  const load = async (): Promise<RevisionPackageData> => {
+    const revision = await getRevision(actor, params.projectId, foundationId, revisionId);
+    if (!revision) throw revisionNotFound();
+    return {
+      project: { code: project.code, name: project.name, client: project.client, site: project.site, units: project.units, paperSize: project.paperSize },
+      foundation: { tag: foundation.tag, machineTrain: foundation.machineTrain, location: foundation.location },
+      revision,
+      input: revision.input,
+      result: revision.result,
+      history,
+      trail,
+      generatedAt: new Date(),
+      generatedByName: me?.name ?? "",
+    };
+  };
+  return { project, foundation, summary, key, load };
+}

@@ -1,0 +1,1 @@
+ALTER TABLE "projects" ADD COLUMN "paper_size" text DEFAULT 'a4' NOT NULL;
