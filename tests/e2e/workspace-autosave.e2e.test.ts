@@ -1,0 +1,128 @@
+import { describe, expect, it } from "vitest";
+import type { Dialog, Page } from "playwright-core";
+import { asDemo, sharedBrowser } from "./support/fixtures";
+import { screenshot } from "./support/browser";
+import { DeskHeader, pathOf, projectIdOf, textOf } from "./support/desk";
+import { WorkspacePage, example, getDraft, seededFoundation, workspaceUrl } from "./support/workspace";
+
+const browser = sharedBrowser();
+
+/** Answers the next dialog (confirm or beforeunload) and resolves with it. */
+function nextDialog(page: Page, answer: "accept" | "dismiss"): Promise<Dialog> {
+  return new Promise((resolve) => {
+    page.once("dialog", (d) => {
+      void (answer === "accept" ? d.accept() : d.dismiss()).then(() => resolve(d));
+    });
+  });
+}
+
+/** Fails the test if a dialog opens while `action` runs. */
+async function withoutDialog(page: Page, action: () => Promise<void>): Promise<void> {
+  let opened: string | null = null;
+  const onDialog = (d: Dialog) => {
+    opened = d.message();
+    void d.dismiss();
+  };
+  page.on("dialog", onDialog);
+  try {
+    await action();
+  } finally {
+    page.off("dialog", onDialog);
+  }
+  expect(opened).toBeNull();
+}
+
+describe("no silent loss of edits in the workspace", () => {
+  it("an edit saves itself after a pause and is there after leaving by a header link and coming back", async () => {
+    await asDemo(browser(), "designer", async ({ context, page }) => {
+      const projectId = projectIdOf(page.url());
+      const { id, tag } = await seededFoundation(context.request, projectId, "E2E-AUTOSAVE", example("raw-water-pump-train.json"));
+      const ws = new WorkspacePage(page);
+      await page.reload(); // the foundations table lists the new foundation
+      await ws.openFromTable(tag);
+      await ws.waitForState("fresh");
+      expect(await ws.saveStatus()).toBe("clean");
+      expect(await ws.shownVersion()).toBe(1);
+
+      await ws.setNumber(ws.box(1, "x", "to", "m"), "4.1");
+      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      // No button pressed: the draft saves itself once typing pauses.
+      await ws.waitForSaveStatus("saved");
+      expect(await textOf(ws.saveState)).toMatch(/^saved .* · v2$/);
+      const stored = await getDraft(context.request, projectId, id);
+      expect(stored.version).toBe(2);
+      expect(stored.input!.block.solids[0]!.x).toEqual([-3.8, 4.1]);
+
+      // Saved, so leaving asks nothing.
+      await withoutDialog(page, async () => {
+        await new DeskHeader(page).nav("Foundations").click();
+        await page.waitForURL((u) => !workspaceUrl.test(u.pathname), { timeout: 20_000 });
+      });
+      await page.getByTestId("foundation-table").waitFor({ state: "visible" });
+      await ws.openFromTable(tag);
+      await ws.waitForState("fresh");
+      expect(await ws.box(1, "x", "to", "m").inputValue()).toBe("4.1");
+      expect(await ws.shownVersion()).toBe(2);
+    });
+  });
+
+  it("leaving with unsaved changes asks first: a header link, the back button, closing the tab", async () => {
+    await asDemo(browser(), "designer", async ({ context, page }) => {
+      const projectId = projectIdOf(page.url());
+      const { id, tag } = await seededFoundation(context.request, projectId, "E2E-LEAVE", example("raw-water-pump-train.json"));
+      const ws = new WorkspacePage(page);
+      await page.reload();
+      await ws.openFromTable(tag);
+      const here = pathOf(page);
+      await ws.waitForState("fresh");
+
+      // A header link straight after an edit (before the pause is over): asked; staying keeps the edit.
+      await ws.setNumber(ws.box(1, "y", "to", "m"), "1.9");
+      const asked = nextDialog(page, "dismiss");
+      await new DeskHeader(page).nav("Team").click();
+      const dialog = await asked;
+      expect(dialog.type()).toBe("confirm");
+      expect(dialog.message()).toContain("not saved");
+      expect(pathOf(page)).toBe(here);
+      expect(await ws.box(1, "y", "to", "m").inputValue()).toBe("1.9");
+      // Having stayed, the edit is saved at once.
+      await ws.waitForSaveStatus("saved");
+      expect((await getDraft(context.request, projectId, id)).input!.block.solids[0]!.y).toEqual([-1.6, 1.9]);
+
+      // The browser's back button with unsaved changes: asked; staying keeps the page and the edit.
+      await ws.setNumber(ws.box(1, "y", "to", "m"), "2.0");
+      const askedBack = nextDialog(page, "dismiss");
+      await page.goBack({ timeout: 5000 }).catch(() => null);
+      expect((await askedBack).message()).toContain("not saved");
+      await page.waitForURL((u) => u.pathname === here, { timeout: 10_000 });
+      await ws.heading.waitFor({ state: "visible" });
+      expect(await ws.box(1, "y", "to", "m").inputValue()).toBe("2.0");
+      await ws.waitForSaveStatus("saved");
+
+      // A form that cannot be saved (a field in error) is never sent on its own: it stays
+      // unsaved, says so, and leaving still asks.
+      const before = await getDraft(context.request, projectId, id);
+      await ws.setNumber(ws.box(1, "y", "to", "m"), "wide");
+      await ws.waitForSaveStatus("invalid");
+      expect(await textOf(ws.saveState)).toContain("fix the fields marked in red");
+      await page.waitForTimeout(3000); // longer than the autosave pause
+      expect(await ws.saveStatus()).toBe("invalid");
+      expect((await getDraft(context.request, projectId, id)).version).toBe(before.version);
+      await screenshot(page, "designer-autosave-invalid");
+
+      // Closing the tab: the browser's own leave-page question (beforeunload), and staying keeps it open.
+      const askedClose = nextDialog(page, "dismiss");
+      await page.close({ runBeforeUnload: true });
+      expect((await askedClose).type()).toBe("beforeunload");
+      expect(page.isClosed()).toBe(false);
+      expect(await ws.box(1, "y", "to", "m").inputValue()).toBe("wide");
+
+      // Agreeing to leave by a link goes, and the unsaved junk never reached the server.
+      const leave = nextDialog(page, "accept");
+      await new DeskHeader(page).nav("Foundations").click();
+      await leave;
+      await page.waitForURL((u) => u.pathname !== here, { timeout: 20_000 });
+      expect((await getDraft(context.request, projectId, id)).input!.block.solids[0]!.y).toEqual([-1.6, 2.0]);
+    });
+  });
+});
