@@ -4,6 +4,17 @@ import { useEffect, useRef } from "react";
 import { isInAppLeave } from "@/modules/desk/draft-autosave";
 
 /**
+ * Sent (cancelable) on window by code that navigates without a link, e.g. the header's project
+ * switcher: a guard that is active asks, and cancels the event when the person stays.
+ */
+export const BEFORE_LEAVE_EVENT = "plinthwise:before-leave";
+
+/** True when the page may be left (no guard, or the person agreed). */
+export function confirmLeave(): boolean {
+  return window.dispatchEvent(new Event(BEFORE_LEAVE_EVENT, { cancelable: true }));
+}
+
+/**
  * Asks before the page is left while `active`: closing or reloading the tab (beforeunload),
  * an in-app link (the header's, the breadcrumb's: Next's Link navigates without unloading, so
  * beforeunload never fires), a form outside `root` (signing out), and the browser's back and
@@ -89,11 +100,17 @@ export function useLeaveGuard(active: boolean, message: string, root: React.RefO
       }
     };
 
+    const onBeforeLeave = (e: Event) => {
+      if (!ask()) e.preventDefault();
+    };
+
+    window.addEventListener(BEFORE_LEAVE_EVENT, onBeforeLeave);
     window.addEventListener("beforeunload", onBeforeUnload);
     window.addEventListener("click", onClick, true);
     window.addEventListener("submit", onSubmit, true);
     window.addEventListener("popstate", onPopState, true);
     return () => {
+      window.removeEventListener(BEFORE_LEAVE_EVENT, onBeforeLeave);
       window.removeEventListener("beforeunload", onBeforeUnload);
       window.removeEventListener("click", onClick, true);
       window.removeEventListener("submit", onSubmit, true);
