@@ -3,6 +3,15 @@
 import { useEffect, useRef } from "react";
 import { isInAppLeave } from "@/modules/desk/draft-autosave";
 
+// The parts of the Navigation API used here (not yet in TypeScript's DOM library).
+interface NavigateEventLike extends Event {
+  navigationType: "push" | "replace" | "reload" | "traverse";
+}
+interface NavigationLike {
+  addEventListener(type: "navigate", listener: (e: NavigateEventLike) => void): void;
+  removeEventListener(type: "navigate", listener: (e: NavigateEventLike) => void): void;
+}
+
 /**
  * Sent (cancelable) on window by code that navigates without a link, e.g. the header's project
  * switcher: a guard that is active asks, and cancels the event when the person stays.
@@ -18,8 +27,11 @@ export function confirmLeave(): boolean {
  * Asks before the page is left while `active`: closing or reloading the tab (beforeunload),
  * an in-app link (the header's, the breadcrumb's: Next's Link navigates without unloading, so
  * beforeunload never fires), a form outside `root` (signing out), and the browser's back and
- * forward buttons (popstate). The listeners sit on window in the capture phase, so they run
- * before React's and Next's own handlers and can stop them.
+ * forward buttons. Clicks and submits are caught on window in the capture phase, before React's
+ * and Next's own handlers. Back and forward are caught by the Navigation API's cancelable
+ * `navigate` event (traverse), which comes before the history moves: popstate comes too late,
+ * since Next's popstate listener, registered first on window, runs first and unmounts this page
+ * synchronously. A browser without the Navigation API is not asked on back and forward.
  */
 export function useLeaveGuard(active: boolean, message: string, root: React.RefObject<HTMLElement | null>, onStay?: () => void): void {
   const activeRef = useRef(active);
@@ -34,12 +46,7 @@ export function useLeaveGuard(active: boolean, message: string, root: React.RefO
   useEffect(() => {
     // Set once the person has agreed to leave, so the unload that follows does not ask again.
     let leaving = false;
-    let ignoreNextPop = false;
-    let replaying = false;
-    // Where this page sits in the session history (Navigation API, Chromium and others), so a
-    // refused back or forward can step back to it whichever way the browser went.
-    const here = (): number | undefined => (window as unknown as { navigation?: { currentEntry?: { index: number } } }).navigation?.currentEntry?.index;
-    const homeIndex = here();
+    const navigation = (window as unknown as { navigation?: NavigationLike }).navigation;
     const ask = (): boolean => {
       if (!activeRef.current || leaving) return true;
       const ok = window.confirm(messageRef.current);
@@ -75,27 +82,11 @@ export function useLeaveGuard(active: boolean, message: string, root: React.RefO
       }
     };
 
-    const onPopState = (e: PopStateEvent) => {
-      if (replaying) return;
-      if (ignoreNextPop) {
-        // The step forward that undid a refused back: the page is still this one.
-        ignoreNextPop = false;
-        e.stopImmediatePropagation();
-        return;
-      }
-      if (!activeRef.current || leaving) return;
-      // The history has already moved; Next has not rendered the other page yet.
-      e.stopImmediatePropagation();
-      if (window.confirm(messageRef.current)) {
-        leaving = true;
-        // Hand the same event to Next's router, which now shows the page the browser went to.
-        replaying = true;
-        window.dispatchEvent(new PopStateEvent("popstate", { state: e.state as unknown }));
-        replaying = false;
-      } else {
-        const now = here();
-        ignoreNextPop = true;
-        window.history.go(homeIndex !== undefined && now !== undefined && now !== homeIndex ? homeIndex - now : 1);
+    const onNavigate = (e: NavigateEventLike) => {
+      if (e.navigationType !== "traverse" || !e.cancelable || !activeRef.current || leaving) return;
+      if (window.confirm(messageRef.current)) leaving = true;
+      else {
+        e.preventDefault();
         onStayRef.current?.();
       }
     };
@@ -104,17 +95,17 @@ export function useLeaveGuard(active: boolean, message: string, root: React.RefO
       if (!ask()) e.preventDefault();
     };
 
+    navigation?.addEventListener("navigate", onNavigate);
     window.addEventListener(BEFORE_LEAVE_EVENT, onBeforeLeave);
     window.addEventListener("beforeunload", onBeforeUnload);
     window.addEventListener("click", onClick, true);
     window.addEventListener("submit", onSubmit, true);
-    window.addEventListener("popstate", onPopState, true);
     return () => {
+      navigation?.removeEventListener("navigate", onNavigate);
       window.removeEventListener(BEFORE_LEAVE_EVENT, onBeforeLeave);
       window.removeEventListener("beforeunload", onBeforeUnload);
       window.removeEventListener("click", onClick, true);
       window.removeEventListener("submit", onSubmit, true);
-      window.removeEventListener("popstate", onPopState, true);
     };
   }, [root]);
 }
