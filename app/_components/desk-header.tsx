@@ -6,6 +6,7 @@ import { useActionState } from "react";
 import { roleHomePath, roleLabels, type ProjectRole } from "@/modules/platform/permissions";
 import { signOutAction } from "../(auth)/actions";
 import { BrandMark } from "./brand";
+import { confirmLeave } from "./workspace/use-leave-guard";
 import type { FormState } from "./form-kit";
 
 interface HeaderProject {
@@ -45,6 +46,11 @@ export function DeskHeader({ user, projects }: { user: { name: string; email: st
             className="rounded-plinth border border-basalt-600 bg-basalt-800 px-2 py-1 text-sm text-white"
             value={current?.id ?? ""}
             onChange={(e) => {
+              // The workspace asks first when it holds unsaved changes (use-leave-guard).
+              if (!confirmLeave()) {
+                e.target.value = current?.id ?? "";
+                return;
+              }
               const next = projects.find((p) => p.id === e.target.value);
               router.push(next ? roleHomePath(next.id, next.role) : "/");
             }}

@@ -61,19 +61,21 @@ export function matDimensionsOfForm(form: DraftForm): Record<SizingDimension, nu
 }
 
 /**
- * Starting bounds for the panel: from 80 % to 130 % of the current plan size and from the
- * current thickness less 0.2 m to 0.5 m more, on the default step (a rule of thumb for a first
- * search, not a design rule: the designer sets the bounds).
+ * Starting bounds for the panel: the search starts from the present mat and grows from it,
+ * up to 130 % of the present plan size and 0.5 m more thickness, on the default step (a rule
+ * of thumb for a first search, not a design rule: the designer sets the bounds). The lower
+ * bound is the present size rounded down to the step, so the bounds always contain the present
+ * mat and, when it is on the grid, the present mat is the first candidate of its volume.
  */
 export function suggestedMatBounds(form: DraftForm): Record<SizingDimension, MatBounds> | null {
   const d = matDimensionsOfForm(form);
   if (!d) return null;
   const step = DEFAULT_STEP_M;
-  const plan = (v: number): MatBounds => ({ min: onGrid(0.8 * v, step, "down"), max: onGrid(1.3 * v, step, "up"), step });
+  const grow = (present: number, upTo: number): MatBounds => ({ min: onGrid(present, step, "down"), max: Math.max(onGrid(upTo, step, "up"), onGrid(present, step, "up")), step });
   return {
-    length: plan(d.length),
-    width: plan(d.width),
-    thickness: { min: onGrid(d.thickness - 0.2, step, "down"), max: onGrid(d.thickness + 0.5, step, "up"), step },
+    length: grow(d.length, 1.3 * d.length),
+    width: grow(d.width, 1.3 * d.width),
+    thickness: grow(d.thickness, d.thickness + 0.5),
   };
 }
 

@@ -71,6 +71,8 @@ export interface FailureCount {
 export interface NearestCandidate {
   dimensions: MatDimensions;
   concreteVolume: number;
+  /** Where the mat goes, as for a proposal, so the candidate can be loaded like one. */
+  placement: Placement & { mode: CentreMode };
   /** The failing checks, worst first. */
   failing: CheckSummary[];
 }
@@ -379,6 +381,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
         ? {
             dimensions: nearest.c.dimensions,
             concreteVolume: nearest.c.volume,
+            placement: { mode, ...placementFor(mat, mode, nearest.c.dimensions) },
             failing: worstFirst(nearest.e.checks.filter((ch) => !ch.pass)).map(summarise),
           }
         : null,

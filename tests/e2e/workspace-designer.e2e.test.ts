@@ -61,7 +61,8 @@ describe("designer in the foundation workspace", () => {
       expect(await ws.state()).toBe("stale");
       await ws.setNumber(ws.box(1, "x", "to", "m"), String(half));
       expect(await ws.state()).toBe("stale");
-      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      // Unsaved, or already saving itself when the machine is slow (autosave after a 2 s pause).
+      expect(["unsaved", "saving", "saved"]).toContain(await ws.saveStatus());
       // The drawing follows the table at once: the plan's overall length is the new one.
       expect(await textOf(ws.page.getByTestId("drawing-plan"))).toContain(`${Number((2 * half).toFixed(3))} m`);
       await ws.waitForState("fresh");
@@ -93,7 +94,8 @@ describe("designer in the foundation workspace", () => {
       await screenshot(page, "designer-p101-accepted");
 
       const saved = await ws.save();
-      expect(saved).toBe(before.version + 1);
+      // One more version; two when the draft saved itself between the two ends on a slow machine.
+      expect([before.version + 1, before.version + 2]).toContain(saved);
       expect(await ws.saveButton.isDisabled()).toBe(true);
       const stored = await getDraft(context.request, projectId, foundationId);
       expect(stored.version).toBeGreaterThanOrEqual(saved);
@@ -183,9 +185,12 @@ describe("designer in the foundation workspace", () => {
       expect(await textOf(ws.summary)).toBe(`all ${first.total} checks pass`);
       expect(await ws.checkRows("fail").count()).toBe(0);
 
-      expect(await ws.save()).toBe(1);
+      // The draft also saved itself along the way (each pause in typing once the form was
+      // complete), so the version is 1 or more; what is stored is the last state of the form.
+      const savedVersion = await ws.save();
+      expect(savedVersion).toBeGreaterThanOrEqual(1);
       const stored = await getDraft(context.request, projectId, foundationId);
-      expect(stored.version).toBe(1);
+      expect(stored.version).toBe(savedVersion);
       const input = stored.input!;
       expect(input.soil).toMatchObject({ shearWaveVelocity: 180, poissonRatio: 0.33, density: 1850, materialDamping: 0.03, allowableBearingPressure: 150_000 });
       expect(input.block.solids[0]).toMatchObject({ x: [-2.5, 2.5], y: [-1.8, 1.8], z: [0, 1.2] });
@@ -252,7 +257,7 @@ describe("designer in the foundation workspace", () => {
 
       await first.getByRole("button", { name: "Load size 1 into the draft" }).click();
       expect(await ws.box(1, "x", "to", "m").inputValue()).toBe(String(length / 2));
-      expect(await textOf(ws.saveState)).toBe("unsaved changes");
+      expect(["unsaved", "saving", "saved"]).toContain(await ws.saveStatus());
       await panel.getByTestId("sizing-loaded").waitFor({ state: "visible" });
       await ws.waitForState("fresh");
       const after = await ws.checks();

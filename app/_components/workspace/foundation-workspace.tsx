@@ -1,9 +1,10 @@
 "use client";
 
 import { Formik, useFormikContext } from "formik";
-import { useCallback, useEffect, useMemo, useState, type ReactNode } from "react";
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { draftFormSchema, formFromInput, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
 import { Cautions } from "../cautions";
@@ -18,6 +19,8 @@ import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, Re
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
 import { useCalculation, type CalcIssue } from "./use-calculation";
+import { useDraftSave } from "./use-draft-save";
+import { useLeaveGuard } from "./use-leave-guard";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
 
 export interface WorkspaceProps {
@@ -52,13 +55,6 @@ function issuesByField(issues: CalcIssue[]): Record<string, string> {
   return out;
 }
 
-type SaveState =
-  | { kind: "idle" }
-  | { kind: "saving" }
-  | { kind: "saved"; at: string }
-  | { kind: "error"; message: string }
-  | { kind: "conflict"; currentVersion: number; current: AnalysisInputDocument | null };
-
 function diffSummary(mine: unknown, theirs: unknown, prefix = ""): string[] {
   if (typeof mine !== "object" || mine === null || typeof theirs !== "object" || theirs === null) {
     return JSON.stringify(mine) === JSON.stringify(theirs) ? [] : [`${prefix || "(input)"}: yours ${JSON.stringify(mine)} · stored ${JSON.stringify(theirs)}`];
@@ -77,53 +73,48 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   const toDocument = useCallback((form: DraftForm) => withProjectDefaults(toInputDocument(form), props.projectDefaults), [props.projectDefaults]);
   const document = useMemo(() => toDocument(values), [values, toDocument]);
   const { result, error, stale, pending } = useCalculation(document, true);
-  const [save, setSave] = useState<SaveState>({ kind: "idle" });
-  const [savedBody, setSavedBody] = useState(() => (props.initialInput ? JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)) : ""));
-  const dirty = JSON.stringify(document) !== savedBody;
+  const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues) }), [setStatus]);
+  const saver = useDraftSave({
+    url: `/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`,
+    document,
+    // A foundation without a stored draft starts from the empty form: untouched, it has nothing to save.
+    initialSavedBody: JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)),
+    version: props.version,
+    setVersion: props.setVersion,
+    valid: isValid,
+    readOnly: props.readOnly,
+    onIssues,
+  });
+  const rootRef = useRef<HTMLDivElement>(null);
+  useLeaveGuard(
+    !props.readOnly && hasUnsavedWork(saver.status),
+    saver.status === "invalid" || saver.status === "conflict" || saver.status === "error"
+      ? "This draft has changes that are not saved (see the save line at the top). Leave the page and lose them?"
+      : "The latest changes to this draft are not saved yet. Leave the page and lose them? (Stay, and they save in a moment.)",
+    rootRef,
+    saver.flush,
+  );
 
   useEffect(() => {
     setStatus({ serverIssues: error ? issuesByField(error.issues) : {} });
   }, [error, setStatus]);
 
-  const onSave = useCallback(async () => {
-    setSave({ kind: "saving" });
-    const res = await fetch(`/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`, {
-      method: "PUT",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify({ version: props.version, input: document }),
-    });
-    const body = (await res.json().catch(() => ({}))) as {
-      draft?: { version: number };
-      error?: { message?: string; currentVersion?: number; issues?: CalcIssue[] };
-      current?: { version: number; input: AnalysisInputDocument | null };
-    };
-    if (res.ok && body.draft) {
-      props.setVersion(body.draft.version);
-      setSavedBody(JSON.stringify(document));
-      setSave({ kind: "saved", at: new Date().toLocaleTimeString() });
-    } else if (res.status === 409) {
-      setSave({ kind: "conflict", currentVersion: body.error?.currentVersion ?? body.current?.version ?? 0, current: body.current?.input ?? null });
-    } else {
-      if (body.error?.issues) setStatus({ serverIssues: issuesByField(body.error.issues) });
-      setSave({ kind: "error", message: body.error?.message ?? `Saving failed (${res.status})` });
-    }
-  }, [document, props, setStatus]);
-
+  const conflict = saver.conflict;
   const reloadStored = () => {
-    if (save.kind !== "conflict") return;
-    if (save.current) {
-      const form = formFromInput(save.current);
+    if (!conflict) return;
+    let storedBody: string | null = null;
+    if (conflict.current) {
+      const form = formFromInput(conflict.current);
       resetForm({ values: form });
-      setSavedBody(JSON.stringify(withProjectDefaults(toInputDocument(form), props.projectDefaults)));
+      storedBody = JSON.stringify(withProjectDefaults(toInputDocument(form), props.projectDefaults));
     }
-    props.setVersion(save.currentVersion);
-    setSave({ kind: "idle" });
+    saver.acceptStored(storedBody);
   };
 
   const calcState = error && !pending ? "error" : stale ? "stale" : "fresh";
 
   return (
-    <div className="space-y-4">
+    <div className="space-y-4" ref={rootRef}>
       <div className="sticky top-0 z-10 -mx-6 flex flex-wrap items-center gap-3 border-b border-grout-300 bg-grout-50/95 px-6 py-2 backdrop-blur">
         <h1 className="mr-auto text-lg">
           Foundation <span className="font-mono">{props.tag}</span>
@@ -139,27 +130,33 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
         </span>
         {props.readOnly ? null : (
           <>
-            <span className="text-2xs text-basalt-500" data-testid="save-state">
-              {save.kind === "saving" ? "saving…" : save.kind === "saved" ? `saved ${save.at} · v${props.version}` : dirty ? "unsaved changes" : `v${props.version}`}
+            <span
+              className={`text-2xs ${saver.status === "conflict" || saver.status === "error" || saver.status === "invalid" ? "text-brick-700" : saver.status === "unsaved" ? "text-ochre-700" : "text-basalt-500"}`}
+              data-testid="save-state"
+              data-state={saver.status}
+              role="status"
+            >
+              {draftSaveLabel(saver.status, props.version, saver.savedAt)}
             </span>
-            <button type="button" className="btn-primary" onClick={() => void onSave()} disabled={save.kind === "saving" || !dirty}>
+            <button type="button" className="btn-primary" onClick={() => void saver.saveNow()} disabled={saver.status === "saving" || !saver.dirty}>
               Save draft
             </button>
           </>
         )}
       </div>
-      {save.kind === "error" ? (
+      {saver.failure ? (
         <p role="alert" className="rounded-plinth border border-brick-500 bg-brick-100 px-3 py-2 text-sm text-brick-700">
-          {save.message}
+          {saver.failure}
         </p>
       ) : null}
-      {save.kind === "conflict" ? (
+      {conflict && !conflict.dismissed ? (
         <div role="alertdialog" aria-label="Save conflict" className="rounded-plinth border border-brick-500 bg-white p-4 shadow-slab" data-testid="conflict">
-          <p className="font-semibold text-brick-700">Someone saved this draft after you opened it (now version {save.currentVersion}). Nothing was overwritten.</p>
+          <p className="font-semibold text-brick-700">Someone saved this draft after you opened it (now version {conflict.currentVersion}). Nothing was overwritten.</p>
+          <p className="mt-1 text-xs text-basalt-600">Automatic saving is paused until you choose; your changes stay in this form.</p>
           <details className="mt-2 text-xs">
             <summary className="cursor-pointer">See the difference</summary>
             <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono">
-              {diffSummary(document, save.current)
+              {diffSummary(document, conflict.current)
                 .slice(0, 60)
                 .map((d) => (
                   <li key={d}>{d}</li>
@@ -170,7 +167,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
             <button type="button" className="btn-primary" onClick={reloadStored}>
               Load the stored version
             </button>
-            <button type="button" className="btn-quiet" onClick={() => setSave({ kind: "idle" })}>
+            <button type="button" className="btn-quiet" onClick={saver.dismissConflict}>
               Keep mine for now
             </button>
           </div>

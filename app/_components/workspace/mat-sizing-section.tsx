@@ -1,10 +1,10 @@
 "use client";
 
 import { useFormikContext } from "formik";
-import { useId, useState } from "react";
-import { DEFAULT_STEP_M, type CentreMode, type SizingProposal, type SizingResult } from "@/modules/sizing";
+import { useId, useMemo, useState } from "react";
+import { DEFAULT_STEP_M, type CentreMode, type NearestCandidate, type ProposalToApply, type SizingProposal, type SizingResult } from "@/modules/sizing";
 import type { DraftForm } from "@/modules/desk/draft-form";
-import { loadProposalIntoForm, SIZING_API_DEFAULT_ANALYSES, SIZING_API_MAX_ANALYSES, SIZING_DIMENSIONS, suggestedMatBounds, type SizingDimension } from "@/modules/desk/mat-sizing";
+import { loadProposalIntoForm, matDimensionsOfForm, SIZING_API_DEFAULT_ANALYSES, SIZING_API_MAX_ANALYSES, SIZING_DIMENSIONS, suggestedMatBounds, type SizingDimension } from "@/modules/desk/mat-sizing";
 import { Cautions } from "../cautions";
 import { useMatSizing, type SizingOptionsBody } from "./use-mat-sizing";
 import { useUnits, type QuantityKey } from "./units-context";
@@ -79,11 +79,17 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const { values, setValues } = useFormikContext<DraftForm>();
   const units = useUnits();
   const ids = useId();
-  const [rows, setRows] = useState(() => startingRows(values));
+  // The bounds start from the present mat and follow it (a typed change, a loaded size) until
+  // the designer edits one of them; "Start from the present mat" goes back to following.
+  const [editedRows, setEditedRows] = useState<Record<SizingDimension, BoundRow> | null>(null);
+  const presentRows = useMemo(() => startingRows(values), [values]);
+  const rows = editedRows ?? presentRows;
+  const present = matDimensionsOfForm(values);
   const [centre, setCentre] = useState<CentreMode>("current");
   const [requireSoilBand, setRequireSoilBand] = useState(false);
   const [maxAnalyses, setMaxAnalyses] = useState<SiValue>(SIZING_API_DEFAULT_ANALYSES);
-  const [loaded, setLoaded] = useState<{ rank: number; body: string; searched: string } | null>(null);
+  /** rank null: the closest-to-passing candidate of a search that found nothing. */
+  const [loaded, setLoaded] = useState<{ rank: number | null; body: string; searched: string } | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
   const { run, data, error, busy } = useMatSizing();
 
@@ -93,13 +99,13 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const fieldErrors: Record<string, string> = {};
   for (const i of error?.issues ?? []) fieldErrors[i.path] ??= i.message;
 
-  const setRow = (d: SizingDimension, patch: Partial<BoundRow>) => setRows((r) => ({ ...r, [d]: { ...r[d], ...patch } }));
+  const setRow = (d: SizingDimension, patch: Partial<BoundRow>) => setEditedRows((r) => ({ ...(r ?? presentRows), [d]: { ...(r ?? presentRows)[d], ...patch } }));
   const search = () => {
     setLoaded(null);
     setLoadError(null);
     void run({ input: document, options: optionsFrom(rows, centre, requireSoilBand, maxAnalyses) });
   };
-  const load = (p: SizingProposal) => {
+  const load = (p: ProposalToApply, rank: number | null) => {
     if (!data) return;
     const out = loadProposalIntoForm(values, p);
     if (!out.ok) {
@@ -108,7 +114,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
     }
     setLoadError(null);
     void setValues(out.form, true);
-    setLoaded({ rank: p.rank, body: JSON.stringify(toDocument(out.form)), searched: data.body });
+    setLoaded({ rank, body: JSON.stringify(toDocument(out.form)), searched: data.body });
   };
 
   const lengthUnit = units.unitLabel("length");
@@ -152,6 +158,18 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
             ))}
           </tbody>
         </table>
+      </div>
+      <div className="flex flex-wrap items-center gap-3 text-2xs text-basalt-500" data-testid="sizing-present">
+        <span>
+          {present
+            ? `Present mat ${units.toDisplayText("length", present.length)} × ${units.toDisplayText("length", present.width)} × ${units.toDisplayText("length", present.thickness)} ${lengthUnit}; ${editedRows ? "bounds as you set them." : `the bounds start from it and grow (to 130 % of the plan, ${units.toDisplayText("length", 0.5)} ${lengthUnit} thicker).`}`
+            : "The bounds start from the present mat once its coordinates are complete."}
+        </span>
+        {editedRows ? (
+          <button type="button" className="btn-quiet px-2 py-0.5 text-2xs" onClick={() => setEditedRows(null)}>
+            Start from the present mat
+          </button>
+        ) : null}
       </div>
       <p className="text-2xs text-basalt-400">
         Unticked dimensions keep their present value. Step {units.toDisplayText("length", DEFAULT_STEP_M)} {lengthUnit} by default: common practice in detailing (100 mm formwork modules), not a
@@ -215,17 +233,31 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
           <Cautions />
           {loaded && current ? (
             <p className="rounded-plinth bg-moss-100 px-3 py-1.5 text-xs text-moss-700" role="status" data-testid="sizing-loaded">
-              Size {loaded.rank} is loaded into the draft and the results follow it. Save the draft to keep it.
+              {loaded.rank === null
+                ? "The closest size is loaded into the draft and the results follow it; it still fails the checks named above. The draft saves it like typed input."
+                : `Size ${loaded.rank} is loaded into the draft and the results follow it. The draft saves it like typed input.`}
             </p>
           ) : null}
-          <SizingOutcome result={data.result} canLoad={!readOnly && Boolean(current)} readOnly={readOnly} onLoad={load} />
+          <SizingOutcome result={data.result} canLoad={!readOnly && Boolean(current)} readOnly={readOnly} onLoad={(p) => load(p, p.rank)} onLoadNearest={(p) => load(p, null)} />
         </div>
       ) : null}
     </div>
   );
 }
 
-function SizingOutcome({ result, canLoad, readOnly, onLoad }: { result: SizingResult; canLoad: boolean; readOnly: boolean; onLoad: (p: SizingProposal) => void }) {
+function SizingOutcome({
+  result,
+  canLoad,
+  readOnly,
+  onLoad,
+  onLoadNearest,
+}: {
+  result: SizingResult;
+  canLoad: boolean;
+  readOnly: boolean;
+  onLoad: (p: SizingProposal) => void;
+  onLoadNearest: (p: NearestCandidate) => void;
+}) {
   const u = useUnits();
   const len = (v: number) => u.toDisplayText("length", v);
   const dims = (d: { length: number; width: number; thickness: number }) => `${len(d.length)} × ${len(d.width)} × ${len(d.thickness)} ${u.unitLabel("length")}`;
@@ -306,10 +338,23 @@ function SizingOutcome({ result, canLoad, readOnly, onLoad }: { result: SizingRe
             </ul>
           )}
           {result.nearest ? (
-            <p className="text-basalt-700">
-              Closest to passing: {dims(result.nearest.dimensions)} ({vol(result.nearest.concreteVolume)}), failing{" "}
-              {result.nearest.failing.map((c) => `${c.label} (short by ${percent(-c.margin)})`).join("; ")}.
-            </p>
+            <div className="flex flex-wrap items-center gap-3 text-basalt-700" data-testid="sizing-nearest">
+              <p>
+                Closest to passing: {dims(result.nearest.dimensions)} ({vol(result.nearest.concreteVolume)}), failing{" "}
+                {result.nearest.failing.map((c) => `${c.label} (short by ${percent(-c.margin)})`).join("; ")}.
+              </p>
+              {readOnly ? null : (
+                <button
+                  type="button"
+                  className="btn-quiet whitespace-nowrap px-2 py-0.5 text-2xs"
+                  disabled={!canLoad}
+                  onClick={() => result.nearest && onLoadNearest(result.nearest)}
+                  aria-label="Load the closest size into the draft"
+                >
+                  Load into draft (still failing)
+                </button>
+              )}
+            </div>
           ) : null}
         </div>
       )}

@@ -5,6 +5,7 @@ import { useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { cutoffMarkers } from "@/modules/desk/soil-factors";
 import { Explain } from "./explain";
+import { CurveLegend, FrequencyMarks, MODE_COLOUR, type FrequencyBand, type ModeMark, type OperatingBand } from "./plot-marks";
 import { useUnits } from "./units-context";
 
 type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
@@ -12,45 +13,28 @@ type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
 const palette = ["#2e3d46", "#d49a1e", "#3f8a4a", "#b8432f", "#647d88", "#8f650f", "#2b6233", "#84291b"];
 
 interface Bands {
-  operating: { fromHz: number; toHz: number; label: string }[];
-  avoidance: { fromHz: number; toHz: number }[];
-  soil: { fromHz: number; toHz: number }[];
+  operating: OperatingBand[];
+  avoidance: FrequencyBand[];
+  soil: FrequencyBand[];
+  modes: ModeMark[];
   /** Stratum cutoff frequencies: no radiation damping below them. */
   cutoffs: { hz: number; label: string }[];
 }
 
-function bandLayer(bands: Bands) {
-  // Shading drawn under the curves: operating speed range (ochre), the band each
-  // natural frequency must keep clear of (brick hatch), and where the natural
-  // frequencies move within the soil band (slate).
-  function BandLayer({ xScale, innerHeight }: LineCustomSvgLayerProps<Series>) {
+function bandLayer(bands: Bands, idPrefix: string) {
+  // Drawn under the curves: operating speed range (ochre), the band each natural frequency
+  // must keep clear of (brick hatch), where the natural frequencies move within the soil band
+  // (slate), and the natural frequencies themselves as dashed lines.
+  function BandLayer({ xScale, innerWidth, innerHeight }: LineCustomSvgLayerProps<Series>) {
     const x = (v: number) => xScale(v as never);
     return (
       <g>
-        <defs>
-          <pattern id="avoid-hatch" width="5" height="5" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-            <line x1="0" y1="0" x2="0" y2="5" stroke="#b8432f" strokeWidth="1" opacity="0.35" />
-          </pattern>
-        </defs>
-        {bands.soil.map((b, i) => (
-          <rect key={`s${i}`} x={x(b.fromHz)} width={Math.max(1, x(b.toHz) - x(b.fromHz))} y={0} height={innerHeight} fill="#647d88" opacity={0.12} />
-        ))}
-        {bands.avoidance.map((b, i) => (
-          <rect key={`a${i}`} x={x(b.fromHz)} width={Math.max(1, x(b.toHz) - x(b.fromHz))} y={0} height={innerHeight} fill="url(#avoid-hatch)" />
-        ))}
+        <FrequencyMarks x={x} innerWidth={innerWidth} innerHeight={innerHeight} idPrefix={idPrefix} {...bands} />
         {bands.cutoffs.map((c, i) => (
           <g key={`c${i}`} data-testid="cutoff-marker">
             <line x1={x(c.hz)} x2={x(c.hz)} y1={0} y2={innerHeight} stroke="#2b6233" strokeWidth={1.2} strokeDasharray="4 3" />
             <text x={x(c.hz) + 3} y={24 + 11 * i} fontSize={9} fill="#2b6233">
               {c.label}
-            </text>
-          </g>
-        ))}
-        {bands.operating.map((b, i) => (
-          <g key={`o${i}`}>
-            <rect x={x(b.fromHz)} width={Math.max(2, x(b.toHz) - x(b.fromHz))} y={0} height={innerHeight} fill="#d49a1e" opacity={0.25} />
-            <text x={x(b.fromHz) + 3} y={12} fontSize={9} fill="#8f650f">
-              {b.label}
             </text>
           </g>
         ))}
@@ -61,29 +45,34 @@ function bandLayer(bands: Bands) {
 }
 
 function Plot({ series, bands, yLabel, testId }: { series: Series[]; bands: Bands; yLabel: string; testId: string }) {
-  const layer = useMemo(() => bandLayer(bands), [bands]);
+  const layer = useMemo(() => bandLayer(bands, testId), [bands, testId]);
   return (
-    <div className="h-64 w-full" data-testid={testId}>
-      <ResponsiveLine
-        data={series}
-        margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
-        xScale={{ type: "linear", min: "auto", max: "auto" }}
-        yScale={{ type: "linear", min: 0, max: "auto" }}
-        curve="linear"
-        colors={palette}
-        lineWidth={1.6}
-        enablePoints={false}
-        enableGridX={false}
-        useMesh
-        animate={false}
-        axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
-        axisLeft={{ legend: yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
-        layers={[layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
-        theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
-      />
+    <div data-testid={testId}>
+      <div className="h-64 w-full">
+        <ResponsiveLine
+          data={series}
+          margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
+          xScale={{ type: "linear", min: "auto", max: "auto" }}
+          yScale={{ type: "linear", min: 0, max: "auto" }}
+          curve="linear"
+          colors={palette}
+          lineWidth={1.6}
+          enablePoints={false}
+          enableGridX={false}
+          useMesh
+          animate={false}
+          axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
+          axisLeft={{ legend: yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
+          layers={[layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
+          theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
+        />
+      </div>
+      <CurveLegend items={series.map((s, i) => ({ id: s.id, colour: palette[i % palette.length] ?? MODE_COLOUR }))} testId={`${testId}-legend`} />
     </div>
   );
 }
+
+const dofWords: Record<string, string> = { x: "sliding along x", y: "sliding along y", z: "vertical", rx: "rocking about x", ry: "rocking about y", rz: "torsion about z" };
 
 export function ResponsePlots({ result }: { result: AnalysisResult }) {
   const u = useUnits();
@@ -102,9 +91,15 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
       operating: (sw.operatingRangesHz ?? []).map((o) => ({ fromHz: o.fromHz, toHz: Math.max(o.toHz, o.fromHz), label: `${o.machine} ${o.rotor}` })),
       avoidance: sw.avoidanceBandsHz ?? [],
       soil: lower.map((l, i) => ({ fromHz: Math.min(l, upper[i] ?? l), toHz: Math.max(l, upper[i] ?? l) })),
+      modes: result.modes.map((m, i) => ({
+        hz: m.frequencyHz,
+        label: `f${i + 1}`,
+        title: `natural frequency ${i + 1}: ${m.frequencyHz.toFixed(2)} Hz, mostly ${dofWords[m.dominant] ?? m.dominant}`,
+        colour: MODE_COLOUR,
+      })),
       cutoffs: cutoffMarkers(result.impedance),
     };
-  }, [sw, result.bounds, result.impedance]);
+  }, [sw, result.bounds, result.modes, result.impedance]);
   const picked = sw.series.filter((s) => `${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})` === chosen);
   const toSeries = (values: (s: (typeof picked)[number]) => number[], kind: "displacement" | "velocity"): Series[] =>
     picked.map((s) => ({ id: s.point, data: sw.frequencyHz.map((f, i) => ({ x: f, y: u.toDisplayNumber(kind, values(s)[i] ?? 0) })) }));
@@ -128,6 +123,7 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
         <span><span className="inline-block h-2 w-4 bg-ochre-300 align-middle" /> operating speed range</span>
         <span><span className="inline-block h-2 w-4 border border-brick-500 align-middle" /> separation band around each natural frequency</span>
         <span><span className="inline-block h-2 w-4 bg-basalt-200 align-middle" /> natural frequencies across the soil band</span>
+        <span><span className="inline-block w-4 border-t border-dashed border-basalt-700 align-middle" /> natural frequency f1 … f6 (hover for the mode)</span>
         {bands.cutoffs.length ? (
           <span><span className="inline-block h-0 w-4 border-t border-dashed border-moss-700 align-middle" /> stratum cutoffs: no radiation damping below them</span>
         ) : null}

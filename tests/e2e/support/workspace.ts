@@ -117,9 +117,21 @@ export class WorkspacePage {
     if (!m) throw new Error(`save-state is "${text}", not a bare version`);
     return Number(m[1]);
   }
-  /** Clicks Save draft and waits for "saved … · vN"; returns N. */
+  /** What the save line says: clean, unsaved, invalid, saving, saved, conflict or error. */
+  async saveStatus(): Promise<string | null> {
+    return this.saveState.getAttribute("data-state");
+  }
+  /** Waits until the save line is in `status` (autosave runs about 2 s after the last change). */
+  async waitForSaveStatus(status: string, timeout = 20_000): Promise<void> {
+    await this.page.locator(`[data-testid="save-state"][data-state="${status}"]`).waitFor({ state: "visible", timeout });
+  }
+  /**
+   * Saves now and waits for "saved … · vN"; returns N. The draft also saves itself after a
+   * pause, so when autosave got there first (the button is disabled: nothing left to save)
+   * there is nothing to click.
+   */
   async save(): Promise<number> {
-    await this.saveButton.click();
+    if (await this.saveButton.isEnabled()) await this.saveButton.click({ timeout: 3000 }).catch(() => undefined);
     await this.page.getByTestId("save-state").filter({ hasText: /^saved .* · v\d+$/ }).waitFor({ state: "visible", timeout: 20_000 });
     const m = /· v(\d+)$/.exec(await textOf(this.saveState));
     if (!m) throw new Error("no version in the save-state");

@@ -5,7 +5,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
-import { applySizingProposal } from "@/modules/sizing";
+import { applySizingProposal, proposeBlockSizes } from "@/modules/sizing";
 import { emptyDraftForm, formFromInput, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { loadProposalIntoForm, matDimensionsOfForm, suggestedMatBounds } from "@/modules/desk/mat-sizing";
 
@@ -13,14 +13,44 @@ const pumpTrainForm = (): DraftForm =>
   formFromInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples/raw-water-pump-train.json"), "utf8")) as AnalysisInputDocument);
 
 describe("starting bounds", () => {
-  it("reads the demo mat (7.6 m x 3.2 m x 1.1 m) and brackets it on the 0.1 m grid", () => {
+  it("reads the demo mat (7.6 m x 3.2 m x 1.1 m) and starts the bounds from it, growing on the 0.1 m grid", () => {
     const form = pumpTrainForm();
     expect(matDimensionsOfForm(form)).toEqual({ length: 7.6, width: expect.closeTo(3.2, 12), thickness: expect.closeTo(1.1, 12) });
     expect(suggestedMatBounds(form)).toEqual({
-      length: { min: 6.0, max: 9.9, step: 0.1 },
-      width: { min: 2.5, max: 4.2, step: 0.1 },
-      thickness: { min: 0.9, max: 1.6, step: 0.1 },
+      length: { min: 7.6, max: 9.9, step: 0.1 },
+      width: { min: 3.2, max: 4.2, step: 0.1 },
+      thickness: { min: 1.1, max: 1.6, step: 0.1 },
     });
+  });
+
+  it("contains the present mat when it is off the grid, with no smaller candidate than one step below it", () => {
+    const form = pumpTrainForm();
+    form.block.solids[0]!.x = [-3.825, 3.825]; // 7.65 m
+    form.block.solids[0]!.y = [-1.5, 1.5]; // 3 m exactly
+    form.block.solids[0]!.z = [0, 0.95];
+    const b = suggestedMatBounds(form)!;
+    const present = matDimensionsOfForm(form)!;
+    for (const d of ["length", "width", "thickness"] as const) {
+      expect(b[d].min).toBeLessThanOrEqual(present[d] + 1e-9);
+      expect(b[d].max).toBeGreaterThan(present[d]);
+      expect(present[d] - b[d].min).toBeLessThan(b[d].step);
+    }
+    expect(b.length).toEqual({ min: 7.6, max: 10, step: 0.1 });
+    expect(b.width).toEqual({ min: 3, max: 3.9, step: 0.1 });
+    expect(b.thickness).toEqual({ min: 0.9, max: 1.5, step: 0.1 });
+  });
+
+  it("gives bounds the assistant accepts, and its first candidate is no smaller than the present mat on the grid", () => {
+    const form = pumpTrainForm();
+    const b = suggestedMatBounds(form)!;
+    const out = proposeBlockSizes(toInputDocument(form), { dimensions: b, maxAnalyses: 50 });
+    if (!out.ok) throw new Error(JSON.stringify(out.issues));
+    for (const p of out.result.proposals) {
+      expect(p.dimensions.length).toBeGreaterThanOrEqual(7.6);
+      expect(p.dimensions.width).toBeGreaterThanOrEqual(3.2 - 1e-9);
+      expect(p.dimensions.thickness).toBeGreaterThanOrEqual(1.1 - 1e-9);
+    }
+    expect(out.result.found).toBe(true);
   });
 
   it("takes the lowest solid that is not a void, wherever it is listed", () => {
@@ -74,6 +104,22 @@ describe("loading a proposal into the form", () => {
     if (!parsed.ok) throw new Error(JSON.stringify(parsed.issues));
     // nominal soil: the separation at the upper soil bound is a band check (band-checks.test.ts)
     expect(analyse(parsed.input).checks.filter((c) => !c.pass && !c.soilCase)).toEqual([]);
+  });
+
+  it("loads the closest-to-passing candidate of a search that found nothing, like a proposal", () => {
+    const form = pumpTrainForm();
+    // Only sizes up to the present mat: every one is too light (the demo's mass ratio is 2.916 < 3).
+    const out = proposeBlockSizes(toInputDocument(form), { dimensions: { length: { min: 7.4, max: 7.6 } } });
+    if (!out.ok) throw new Error(JSON.stringify(out.issues));
+    const nearest = out.result.nearest;
+    expect(out.result.found).toBe(false);
+    if (!nearest) throw new Error("no closest candidate");
+    const loaded = loadProposalIntoForm(form, nearest);
+    if (!loaded.ok) throw new Error(JSON.stringify(loaded.issues));
+    expect(matDimensionsOfForm(loaded.form)).toEqual({ length: nearest.dimensions.length, width: expect.closeTo(3.2, 9), thickness: expect.closeTo(1.1, 9) });
+    const applied = applySizingProposal(toInputDocument(form), nearest);
+    if (!applied.ok) throw new Error(JSON.stringify(applied.issues));
+    expect(toInputDocument(loaded.form)).toEqual(applied.document);
   });
 
   it("refuses a size that cannot hold the plinths, naming the dimension", () => {

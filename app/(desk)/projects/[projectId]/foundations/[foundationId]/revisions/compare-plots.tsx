@@ -4,6 +4,7 @@ import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries } from "@
 import { useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { UnitsProvider, useUnits, type UnitSystem } from "@/app/_components/workspace/units-context";
+import { FrequencyMarks, type ModeMark, type OperatingBand } from "@/app/_components/workspace/plot-marks";
 
 type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
 
@@ -20,22 +21,15 @@ function envelope(result: AnalysisResult, key: string, pick: (s: AnalysisResult[
   return result.sweep.frequencyHz.map((_, i) => series.reduce((m, s) => Math.max(m, pick(s)[i] ?? 0), 0));
 }
 
-function operatingLayer(ranges: { fromHz: number; toHz: number }[]) {
-  function OperatingLayer({ xScale, innerHeight }: LineCustomSvgLayerProps<Series>) {
-    const x = (v: number) => xScale(v as never);
-    return (
-      <g>
-        {ranges.map((r, i) => (
-          <rect key={i} x={x(r.fromHz)} width={Math.max(2, x(r.toHz) - x(r.fromHz))} y={0} height={innerHeight} fill="#d49a1e" opacity={0.18} />
-        ))}
-      </g>
-    );
+function marksLayer(ranges: OperatingBand[], modes: ModeMark[], idPrefix: string) {
+  function MarksLayer({ xScale, innerWidth, innerHeight }: LineCustomSvgLayerProps<Series>) {
+    return <FrequencyMarks x={(v) => xScale(v as never)} innerWidth={innerWidth} innerHeight={innerHeight} operating={ranges} modes={modes} idPrefix={idPrefix} />;
   }
-  return OperatingLayer;
+  return MarksLayer;
 }
 
-function Overlay({ series, yLabel, ranges, testId }: { series: Series[]; yLabel: string; ranges: { fromHz: number; toHz: number }[]; testId: string }) {
-  const layer = useMemo(() => operatingLayer(ranges), [ranges]);
+function Overlay({ series, yLabel, ranges, modes, testId }: { series: Series[]; yLabel: string; ranges: OperatingBand[]; modes: ModeMark[]; testId: string }) {
+  const layer = useMemo(() => marksLayer(ranges, modes, testId), [ranges, modes, testId]);
   return (
     <div className="h-64 w-full" data-testid={testId}>
       <ResponsiveLine
@@ -63,7 +57,15 @@ function Plots({ older, newer }: { older: { label: string; result: AnalysisResul
   const options = useMemo(() => [...new Set([...newer.result.sweep.series, ...older.result.sweep.series].map(caseKey))], [older, newer]);
   const [pick, setPick] = useState(0);
   const chosen = options[Math.min(pick, options.length - 1)] ?? "";
-  const ranges = newer.result.sweep.operatingRangesHz ?? [];
+  const ranges = useMemo(() => (newer.result.sweep.operatingRangesHz ?? []).map((o) => ({ fromHz: o.fromHz, toHz: Math.max(o.toHz, o.fromHz), label: `${o.machine} ${o.rotor}` })), [newer]);
+  // Each revision's natural frequencies as dashed lines in its curve's colour, labelled with the revision.
+  const modes = useMemo(
+    () =>
+      [older, newer].flatMap((rev, r) =>
+        rev.result.modes.map((m, i) => ({ hz: m.frequencyHz, label: `${rev.label}:f${i + 1}`, title: `revision ${rev.label}, natural frequency ${i + 1}: ${m.frequencyHz.toFixed(2)} Hz`, colour: colours[r] ?? "#2e3d46" })),
+      ),
+    [older, newer],
+  );
   if (!options.length) return <p className="text-sm text-basalt-400">No rotor to plot.</p>;
   const both = (kind: "displacement" | "velocity"): Series[] =>
     [older, newer].map((rev) => {
@@ -90,19 +92,20 @@ function Plots({ older, newer }: { older: { label: string; result: AnalysisResul
         <span><span className="inline-block h-0.5 w-4 align-middle" style={{ background: colours[0] }} /> revision {older.label}</span>
         <span><span className="inline-block h-0.5 w-4 align-middle" style={{ background: colours[1] }} /> revision {newer.label}</span>
         <span><span className="inline-block h-2 w-4 bg-ochre-300 align-middle" /> operating speed range (revision {newer.label})</span>
+        <span><span className="inline-block w-4 border-t border-dashed border-basalt-500 align-middle" /> natural frequencies, dashed in each revision&apos;s colour</span>
       </div>
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-2">
         <div>
           <p className="text-xs font-semibold">Displacement amplitude, largest over the points</p>
-          <Overlay series={both("displacement")} ranges={ranges} yLabel={`peak (${u.unitLabel("displacement")})`} testId="compare-plot-displacement" />
+          <Overlay series={both("displacement")} ranges={ranges} modes={modes} yLabel={`peak (${u.unitLabel("displacement")})`} testId="compare-plot-displacement" />
         </div>
         <div>
           <p className="text-xs font-semibold">Velocity amplitude, largest over the points</p>
-          <Overlay series={both("velocity")} ranges={ranges} yLabel={`peak (${u.unitLabel("velocity")})`} testId="compare-plot-velocity" />
+          <Overlay series={both("velocity")} ranges={ranges} modes={modes} yLabel={`peak (${u.unitLabel("velocity")})`} testId="compare-plot-velocity" />
         </div>
         <div>
           <p className="text-xs font-semibold">Transmissibility</p>
-          <Overlay series={tr} ranges={ranges} yLabel="TR" testId="compare-plot-transmissibility" />
+          <Overlay series={tr} ranges={ranges} modes={modes} yLabel="TR" testId="compare-plot-transmissibility" />
         </div>
       </div>
     </div>
