@@ -69,6 +69,11 @@ export function decideProxy(request: Request, env: ProxyEnv, nonce: string = new
     if (foreign) {
       return { kind: "refuse", response: refusal(403, "cross_site", `Cross-site request refused: ${foreign}. Open the desk at its own address and try again.`, responseHeaders) };
     }
+    // A chunked body has no length to check here, and Next would refuse it past its own limit
+    // with a 500 after reading: browsers always send Content-Length for forms, so ask for it.
+    if (request.headers.get("content-length") === null && /chunked/i.test(request.headers.get("transfer-encoding") ?? "")) {
+      return { kind: "refuse", response: refusal(411, "length_required", "A form must be sent with its length (Content-Length); send it again from the page.", responseHeaders) };
+    }
     const declared = Number(request.headers.get("content-length") ?? "0");
     if (declared > ACTION_BODY_LIMIT_BYTES) {
       return {

@@ -132,6 +132,16 @@ describe("proxy.ts decisions", () => {
     expect(config.experimental?.serverActions).toBeUndefined();
   });
 
+  it("refuses a chunked server-action body without a length with 411, before Next reads it", async () => {
+    const d = decideProxy(action({ origin: "http://127.0.0.1:3100", "transfer-encoding": "chunked" }), plainHttp);
+    expect(d.kind).toBe("refuse");
+    if (d.kind === "refuse") {
+      expect(d.response.status).toBe(411);
+      expect(((await d.response.json()) as { error: { code: string } }).error.code).toBe("length_required");
+    }
+    expect(decideProxy(action({ origin: "http://127.0.0.1:3100", "content-length": "10" }), plainHttp).kind).toBe("pass");
+  });
+
   it("sets a script policy with a fresh nonce and 'strict-dynamic' and no 'unsafe-inline', on the answer and for Next's renderer", () => {
     const page = () => new Request("http://127.0.0.1:3100/sign-in", { headers: { host: "127.0.0.1:3100" } });
     const a = decideProxy(page(), plainHttp);
