@@ -25,6 +25,8 @@ export interface RevisionSummary {
   issuedAt: Date;
   /** Who edited the draft since the previous revision (besides or including the issuer): with the issuer, its authors. */
   editors: { id: string; name: string }[];
+  /** The designer's revision note (what changed and why); '' on revisions issued before notes existed. */
+  note: string;
   status: RevisionStatus;
   decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedAt: Date } | null;
   openComments: number;
@@ -72,6 +74,7 @@ const summaryColumns = {
   issuedById: revisions.issuedById,
   issuedAt: revisions.issuedAt,
   editorIds: revisions.editorIds,
+  note: revisions.note,
 };
 
 async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
@@ -112,6 +115,7 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
       issuedByName: issuerName,
       issuedAt: r.issuedAt,
       editors: r.editorIds.map((id) => ({ id, name: editorNames.get(id) ?? "(former account)" })),
+      note: r.note,
       status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence),
       decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedAt: d.decidedAt } : null,
       openComments: openBy.get(r.id) ?? 0,
@@ -224,7 +228,7 @@ export async function issueRevision(
   foundationId: string,
   // `analyse`: the server passes its analysis pool (off the request thread); the engine in
   // this thread by default (scripts and tests). An AppError from it (busy, time limit) is passed on.
-  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult> } = {},
+  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult>; note?: string } = {},
 ): Promise<IssueOutcome> {
   const analyseDraft = opts.analyse ?? (async (input: AnalysisInput) => analyse(input));
   if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
@@ -270,6 +274,7 @@ export async function issueRevision(
         vendorSubmissionId: draft.vendorSubmissionId,
         issuedById: actor.userId,
         editorIds: draft.editorIds,
+        note: opts.note ?? "",
       })
       .returning();
     if (!row) throw new Error("revision insert returned nothing");
@@ -279,7 +284,7 @@ export async function issueRevision(
       projectId,
       actorId: actor.userId,
       action: "revision.issued",
-      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds },
+      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds, note: opts.note ?? "" },
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
     if (!summary) throw new Error("issued revision not readable");
