@@ -505,6 +505,7 @@ export async function createSeedRevision(args: {
   /** Who edited the draft before this revision (the demo's designer). */
   editorIds?: string[];
   vendorSubmissionId?: string | null;
+  note?: string;
   decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
   comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
 }): Promise<string> {
@@ -527,6 +528,7 @@ export async function createSeedRevision(args: {
         issuedById: args.issuedById,
         issuedAt: args.issuedAt,
         editorIds: args.editorIds ?? [],
+        note: args.note ?? "",
         createdAt: args.issuedAt,
         updatedAt: args.issuedAt,
       })
