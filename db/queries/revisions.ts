@@ -369,6 +369,34 @@ export async function listRevisionComments(actor: Actor, projectId: string, foun
   }));
 }
 
+/** An open review comment of one of a foundation's revisions, for the designer's workspace. */
+export interface OpenFieldComment {
+  id: string;
+  revisionId: string;
+  revisionLabel: string;
+  fieldPath: string | null;
+  body: string;
+  authorName: string;
+  createdAt: Date;
+}
+
+/**
+ * The foundation's open (unresolved) top-level review comments on any of its revisions, oldest
+ * first; [] for a role that does not take part in the review (revision.comment), since review
+ * comments are for manager, designer and checker.
+ */
+export async function listOpenFoundationComments(actor: Actor, projectId: string, foundationId: string): Promise<OpenFieldComment[]> {
+  if (!(await allowed(actor, projectId, "revision.comment"))) return [];
+  const rows = await getDb()
+    .select({ c: revisionComments, label: revisions.label, authorName: users.name })
+    .from(revisionComments)
+    .innerJoin(revisions, eq(revisions.id, revisionComments.revisionId))
+    .innerJoin(users, eq(users.id, revisionComments.authorId))
+    .where(and(eq(revisions.projectId, projectId), eq(revisions.foundationId, foundationId), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
+    .orderBy(asc(revisionComments.createdAt), asc(revisionComments.id));
+  return rows.map(({ c, label, authorName }) => ({ id: c.id, revisionId: c.revisionId, revisionLabel: label, fieldPath: c.fieldPath, body: c.body, authorName, createdAt: c.createdAt }));
+}
+
 export type CommentOutcome =
   | { ok: true; comment: RevisionComment; revision: RevisionSummary }
   | { ok: false; reason: "forbidden" | "not-found" | "parent-not-found" | "unknown-field" };

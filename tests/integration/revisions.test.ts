@@ -5,7 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb, getPool } from "@/db/client";
 import { createFoundation, getProjectByCode, listFoundations } from "@/db/queries/projects";
-import { listFoundationRevisionStates, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import { listFoundationRevisionStates, listOpenFoundationComments, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
 import { DEMO_PROJECT_CODE } from "@/modules/platform/demo";
 import { fieldLabel } from "@/modules/revisions";
 import { GET as compareRevisions } from "@/app/api/v1/projects/[projectId]/foundations/[foundationId]/revisions/compare/route";
@@ -267,10 +267,19 @@ describe("the review cycle", () => {
     const massPath = `machines[${JSON.stringify(machine.name)}].mass`;
     const onMass = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.checker, body: { body: "Which vendor sheet gives this mass?", fieldPath: massPath } });
     expect(onMass.status).toBe(201);
-    const listed = (await json(await callRoute(COMMENTS, "GET", { ...p, revisionId: aId }, { cookie: fx.cookies.designer }))).comments as { fieldPath: string }[];
+    const listed = (await json(await callRoute(COMMENTS, "GET", { ...p, revisionId: aId }, { cookie: fx.cookies.designer }))).comments as { id: string; fieldPath: string }[];
     expect(listed.map((c) => c.fieldPath).sort()).toEqual([checkPath, massPath].sort());
     expect(fieldLabel(checkPath)).toMatch(/^Check · /);
     expect(fieldLabel(massPath)).toBe(`Machine ${machine.name} · mass`);
+
+    // The designer's workspace gets the open ones (not answers, not resolved ones); a viewer none.
+    const answer = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.designer, body: { body: "From the vendor's sheet 3.", parentId: (await json(onMass)).comment.id } });
+    expect(answer.status).toBe(201);
+    const checkComment = listed.find((c) => c.fieldPath === checkPath);
+    expect((await callRoute(`${COMMENTS}/[commentId]`, "PATCH", { ...p, revisionId: aId, commentId: checkComment?.id }, { cookie: fx.cookies.checker, body: { resolved: true } })).status).toBe(200);
+    const open = await listOpenFoundationComments({ userId: fx.userIds.designer, isAdmin: false }, p.projectId, p.foundationId);
+    expect(open.map((c) => [c.fieldPath, c.revisionLabel, c.body])).toEqual([[massPath, "A", "Which vendor sheet gives this mass?"]]);
+    expect(await listOpenFoundationComments({ userId: fx.userIds.viewer, isAdmin: false }, p.projectId, p.foundationId)).toEqual([]);
   });
 
   it("issue, comment, answer, return, re-issue, approve: statuses, audit trail and e-mails", async () => {
