@@ -275,8 +275,8 @@ describe("the review cycle", () => {
     // The designer's workspace gets the open ones (not answers, not resolved ones); a viewer none.
     const answer = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.designer, body: { body: "From the vendor's sheet 3.", parentId: (await json(onMass)).comment.id } });
     expect(answer.status).toBe(201);
-    const checkComment = listed.find((c) => c.fieldPath === checkPath);
-    expect((await callRoute(`${COMMENTS}/[commentId]`, "PATCH", { ...p, revisionId: aId, commentId: checkComment?.id }, { cookie: fx.cookies.checker, body: { resolved: true } })).status).toBe(200);
+    const checkCommentId = listed.find((c) => c.fieldPath === checkPath)?.id ?? "";
+    expect((await callRoute(`${COMMENTS}/[commentId]`, "PATCH", { ...p, revisionId: aId, commentId: checkCommentId }, { cookie: fx.cookies.checker, body: { resolved: true } })).status).toBe(200);
     const open = await listOpenFoundationComments({ userId: fx.userIds.designer, isAdmin: false }, p.projectId, p.foundationId);
     expect(open.map((c) => [c.fieldPath, c.revisionLabel, c.body])).toEqual([[massPath, "A", "Which vendor sheet gives this mass?"]]);
     expect(await listOpenFoundationComments({ userId: fx.userIds.viewer, isAdmin: false }, p.projectId, p.foundationId)).toEqual([]);
