@@ -80,6 +80,7 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
     issuedById: designerId,
     issuedAt: new Date(now - 12 * day),
     editorIds: [designerId],
+    note: "First issue, on the vendor's preliminary machine data (impeller 950 kg), to start the check while the certified drawing is awaited.",
     comments: [
       {
         fieldPath: IMPELLER_PATH,
@@ -98,7 +99,7 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
   });
   // B was issued from the draft as it stands, so it records the vendor submission the draft uses.
   const draft = await getDraft({ userId: designerId, isAdmin: false }, projectId, foundationId);
-  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day), editorIds: [designerId], vendorSubmissionId: draft?.vendorSubmissionId ?? null });
+  await createSeedRevision({ projectId, foundationId, input, issuedById: designerId, issuedAt: new Date(now - 3 * day), editorIds: [designerId], note: "Impeller mass set to the vendor's certified 1100 kg (certified drawing received); answers the checker's comment on revision A.", vendorSubmissionId: draft?.vendorSubmissionId ?? null });
 }
 
 /** An example input from examples/, checked by the contract's schema like any other input. */

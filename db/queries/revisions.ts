@@ -25,6 +25,8 @@ export interface RevisionSummary {
   issuedAt: Date;
   /** Who edited the draft since the previous revision (besides or including the issuer): with the issuer, its authors. */
   editors: { id: string; name: string }[];
+  /** The designer's revision note (what changed and why); '' on revisions issued before notes existed. */
+  note: string;
   status: RevisionStatus;
   decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedAt: Date } | null;
   openComments: number;
@@ -72,6 +74,7 @@ const summaryColumns = {
   issuedById: revisions.issuedById,
   issuedAt: revisions.issuedAt,
   editorIds: revisions.editorIds,
+  note: revisions.note,
 };
 
 async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
@@ -112,6 +115,7 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
       issuedByName: issuerName,
       issuedAt: r.issuedAt,
       editors: r.editorIds.map((id) => ({ id, name: editorNames.get(id) ?? "(former account)" })),
+      note: r.note,
       status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence),
       decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedAt: d.decidedAt } : null,
       openComments: openBy.get(r.id) ?? 0,
@@ -224,7 +228,7 @@ export async function issueRevision(
   foundationId: string,
   // `analyse`: the server passes its analysis pool (off the request thread); the engine in
   // this thread by default (scripts and tests). An AppError from it (busy, time limit) is passed on.
-  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult> } = {},
+  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult>; note?: string } = {},
 ): Promise<IssueOutcome> {
   const analyseDraft = opts.analyse ?? (async (input: AnalysisInput) => analyse(input));
   if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
@@ -270,6 +274,7 @@ export async function issueRevision(
         vendorSubmissionId: draft.vendorSubmissionId,
         issuedById: actor.userId,
         editorIds: draft.editorIds,
+        note: opts.note ?? "",
       })
       .returning();
     if (!row) throw new Error("revision insert returned nothing");
@@ -279,7 +284,7 @@ export async function issueRevision(
       projectId,
       actorId: actor.userId,
       action: "revision.issued",
-      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds },
+      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds, note: opts.note ?? "" },
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
     if (!summary) throw new Error("issued revision not readable");
@@ -362,6 +367,34 @@ export async function listRevisionComments(actor: Actor, projectId: string, foun
     authorName,
     createdAt: c.createdAt,
   }));
+}
+
+/** An open review comment of one of a foundation's revisions, for the designer's workspace. */
+export interface OpenFieldComment {
+  id: string;
+  revisionId: string;
+  revisionLabel: string;
+  fieldPath: string | null;
+  body: string;
+  authorName: string;
+  createdAt: Date;
+}
+
+/**
+ * The foundation's open (unresolved) top-level review comments on any of its revisions, oldest
+ * first; [] for a role that does not take part in the review (revision.comment), since review
+ * comments are for manager, designer and checker.
+ */
+export async function listOpenFoundationComments(actor: Actor, projectId: string, foundationId: string): Promise<OpenFieldComment[]> {
+  if (!(await allowed(actor, projectId, "revision.comment"))) return [];
+  const rows = await getDb()
+    .select({ c: revisionComments, label: revisions.label, authorName: users.name })
+    .from(revisionComments)
+    .innerJoin(revisions, eq(revisions.id, revisionComments.revisionId))
+    .innerJoin(users, eq(users.id, revisionComments.authorId))
+    .where(and(eq(revisions.projectId, projectId), eq(revisions.foundationId, foundationId), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
+    .orderBy(asc(revisionComments.createdAt), asc(revisionComments.id));
+  return rows.map(({ c, label, authorName }) => ({ id: c.id, revisionId: c.revisionId, revisionLabel: label, fieldPath: c.fieldPath, body: c.body, authorName, createdAt: c.createdAt }));
 }
 
 export type CommentOutcome =
@@ -500,6 +533,7 @@ export async function createSeedRevision(args: {
   /** Who edited the draft before this revision (the demo's designer). */
   editorIds?: string[];
   vendorSubmissionId?: string | null;
+  note?: string;
   decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
   comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
 }): Promise<string> {
@@ -522,6 +556,7 @@ export async function createSeedRevision(args: {
         issuedById: args.issuedById,
         issuedAt: args.issuedAt,
         editorIds: args.editorIds ?? [],
+        note: args.note ?? "",
         createdAt: args.issuedAt,
         updatedAt: args.issuedAt,
       })

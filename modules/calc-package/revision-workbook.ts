@@ -664,6 +664,7 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       { header: "Open comments", kind: "count" },
       { header: "Input SHA-256" },
       { header: "Engine" },
+      { header: "Revision note" },
     ],
     d.history.map((h) => [
       h.label,
@@ -678,6 +679,7 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       h.openComments,
       h.inputHash,
       h.engineVersion,
+      h.note || null,
     ]),
   );
   w.table(

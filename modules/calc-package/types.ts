@@ -40,6 +40,8 @@ export interface PackageRevisionSummary {
   inputHash: string;
   engineVersion: string;
   vendorSubmissionId: string | null;
+  /** The designer's revision note (what changed and why); absent or '' on revisions issued before notes. */
+  note?: string;
 }
 
 export interface PackageTrailEntry {

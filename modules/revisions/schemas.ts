@@ -10,6 +10,8 @@ export const revisionIssueSchema = z.object({
   // The draft version the designer looked at: a draft saved since is refused, not issued
   // unseen. Optional for scripts that issue whatever is saved.
   draftVersion: z.coerce.number("Draft version must be a number").int("Draft version must be a whole number").min(1, "Save the draft before issuing it").optional(),
+  // What changed since the previous revision and why: the checker reads it first, the package prints it.
+  note: z.string("Write a revision note: what changed and why").trim().min(1, "Write a revision note: what changed and why").max(4000, "Keep the revision note under 4000 characters"),
 });
 
 export const revisionDecisionSchema = z.object({

@@ -23,7 +23,7 @@ describe("four eyes on the revision page", () => {
       return { projectId, foundationId };
     });
     const issued = await asDemo(browser(), "designer", async ({ context }) => {
-      const res = await context.request.post(`/api/v1/projects/${made.projectId}/foundations/${made.foundationId}/revisions`, { data: {} });
+      const res = await context.request.post(`/api/v1/projects/${made.projectId}/foundations/${made.foundationId}/revisions`, { data: { note: "Issued for check." } });
       expect(res.status()).toBe(201);
       return ((await res.json()) as { revision: { id: string; editors: { name: string }[] } }).revision;
     });

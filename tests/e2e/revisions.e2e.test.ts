@@ -42,11 +42,11 @@ describe("revisions", () => {
       await screenshot(page, "revisions-checker-compare");
 
       await revisions.open(first.projectId, first.foundationId, first.revisionId);
-      await revisions.comment("soil.poissonRatio", "Which borehole gives this Poisson's ratio? Use the report's value or cite it.");
+      await revisions.comment("Soil · Poisson's ratio", "Which borehole gives this Poisson's ratio? Use the report's value or cite it.");
       await revisions.decide("Return with comments", "See the comment on Poisson's ratio.");
       await page.reload();
       expect(await textOf(revisions.status)).toBe("returned with comments");
-      expect(await textOf(page.getByTestId("revision-comments"))).toContain("soil.poissonRatio");
+      expect(await textOf(page.getByTestId("revision-comments"))).toContain("Soil · Poisson's ratio");
       await screenshot(page, "revisions-checker-returned");
     });
 

@@ -41,7 +41,7 @@ async function save(input: Loose) {
 
 async function issue(): Promise<string> {
   const version = (await json(await callRoute(DRAFT, "GET", p, { cookie: fx.cookies.designer }))).draft.version as number;
-  const res = await callRoute(LIST, "POST", p, { cookie: fx.cookies.designer, body: { draftVersion: version } });
+  const res = await callRoute(LIST, "POST", p, { cookie: fx.cookies.designer, body: { draftVersion: version, note: "Band checks reviewed." } });
   expect(res.status).toBe(201);
   return (await json(res)).revision.id as string;
 }

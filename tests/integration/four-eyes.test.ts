@@ -49,7 +49,7 @@ describe("four eyes: nobody who wrote a revision decides on it", () => {
   it("manager edits the draft, designer issues: the manager's approval is refused (API, action and SQL); a checker approves", async () => {
     const p = await newFoundation();
     await save(p, "manager", () => {});
-    const issued = await call(LIST, "POST", p, "designer", {});
+    const issued = await call(LIST, "POST", p, "designer", { note: "Issued for check." });
     expect(issued.status).toBe(201);
     const revisionId = issued.body.revision.id as string;
     expect(issued.body.revision.issuedById).toBe(fx.userIds.designer);
@@ -89,7 +89,7 @@ describe("four eyes: nobody who wrote a revision decides on it", () => {
     await save(p, "designer", (input) => {
       input.soil.poissonRatio = 0.32;
     });
-    const first = await call(LIST, "POST", p, "designer", {});
+    const first = await call(LIST, "POST", p, "designer", { note: "Issued for check." });
     expect(first.status).toBe(201);
     expect(editorIds(first.body.revision)).toEqual([fx.userIds.designer, fx.userIds.manager].sort());
     expect((await call(DECISION, "POST", { ...p, revisionId: first.body.revision.id }, "checker", { outcome: "returned", note: "Justify the Poisson's ratio" })).status).toBe(201);
@@ -98,7 +98,7 @@ describe("four eyes: nobody who wrote a revision decides on it", () => {
     await save(p, "designer", (input) => {
       input.soil.poissonRatio = 0.33;
     });
-    const second = await call(LIST, "POST", p, "designer", {});
+    const second = await call(LIST, "POST", p, "designer", { note: "Issued for check." });
     expect(second.status).toBe(201);
     expect(editorIds(second.body.revision)).toEqual([fx.userIds.designer]);
     const byManager = await call(DECISION, "POST", { ...p, revisionId: second.body.revision.id }, "manager", { outcome: "approved", note: "" });

@@ -75,6 +75,11 @@ describe("revision package", () => {
       const history = tableByTitle(readTables(wb.getWorksheet(PACKAGE_SHEETS.history) as ExcelJS.Worksheet), "Revisions");
       expect(history.rows.map((r) => r[0])).toEqual(revisions.map((r) => r.label));
       expect(history.rows.map((r) => r[4])).toEqual(revisions.map((r) => revisionStatusLabels[r.status]));
+      // the revision trail carries each revision's note (the demo's A and B have one)
+      const noteCol = history.headers.indexOf("Revision note");
+      expect(noteCol).toBeGreaterThan(0);
+      expect(history.rows.map((r) => r[noteCol])).toEqual(revisions.map((r) => r.note || null));
+      expect(revisions.every((r) => r.note.length > 0)).toBe(true);
 
       // Hand check: its input cells are the stored springs and masses, its engine column the stored cross-check.
       const hc = wb.getWorksheet(PACKAGE_SHEETS.handCheck) as ExcelJS.Worksheet;

@@ -5,8 +5,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb, getPool } from "@/db/client";
 import { createFoundation, getProjectByCode, listFoundations } from "@/db/queries/projects";
-import { listFoundationRevisionStates, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import { listFoundationRevisionStates, listOpenFoundationComments, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
 import { DEMO_PROJECT_CODE } from "@/modules/platform/demo";
+import { fieldLabel } from "@/modules/revisions";
 import { GET as compareRevisions } from "@/app/api/v1/projects/[projectId]/foundations/[foundationId]/revisions/compare/route";
 import { decideRevisionAction, issueRevisionAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { callAction, callRoute, demoEmail, getFixture, makeRequest, waitForEmail, type Fixture } from "./support/fixture";
@@ -64,7 +65,8 @@ async function saveDraft(p: { projectId: string; foundationId: string }, edit: (
 }
 
 async function issue(p: { projectId: string; foundationId: string }, role: Role = "designer", body: Record<string, unknown> = {}) {
-  const res = await callRoute(LIST, "POST", p, { cookie: fx.cookies[role], body });
+  // A revision note is required at issue; tests that do not care about it send a stock one.
+  const res = await callRoute(LIST, "POST", p, { cookie: fx.cookies[role], body: { note: "Issued by the test for check.", ...body } });
   return { status: res.status, body: await json(res) };
 }
 
@@ -120,6 +122,30 @@ describe("issue for check", () => {
     const bad = await issue(p, "designer", { draftVersion: "two" });
     expect(bad.status).toBe(400);
     expect(bad.body.error.issues[0].path).toBe("draftVersion");
+  });
+
+  it("requires a revision note (400 naming `note`, nothing issued), stores it and returns it in the list, the revision and the checker's e-mail", async () => {
+    const p = await foundationWithDraft();
+    const noNote = await callRoute(LIST, "POST", p, { cookie: fx.cookies.designer, body: { draftVersion: await draftVersionOf(p) } });
+    expect(noNote.status).toBe(400);
+    expect((await json(noNote)).error.issues.map((i: { path: string }) => i.path)).toEqual(["note"]);
+    const blank = await callRoute(LIST, "POST", p, { cookie: fx.cookies.designer, body: { note: "   " } });
+    expect(blank.status).toBe(400);
+    expect((await json(blank)).error.issues[0].path).toBe("note");
+    const { state: byForm } = await callAction(issueRevisionAction, { ...p }, fx.cookies.designer);
+    expect(byForm).toMatchObject({ ok: false, code: "invalid_input" });
+    expect(await listRevisions({ userId: fx.userIds.manager, isAdmin: false }, p.projectId, p.foundationId)).toHaveLength(0);
+
+    const note = "Mat widened to 6.2 m after the checker's bearing-pressure comment; soil Poisson's ratio from borehole BH-2.";
+    const issued = await issue(p, "designer", { note: `  ${note}  ` });
+    expect(issued.status).toBe(201);
+    expect(issued.body.revision.note).toBe(note);
+    const list = await json(await callRoute(LIST, "GET", p, { cookie: fx.cookies.checker }));
+    expect(list.revisions[0].note).toBe(note);
+    const one = await json(await callRoute(ONE, "GET", { ...p, revisionId: issued.body.revision.id }, { cookie: fx.cookies.checker }));
+    expect(one.revision.note).toBe(note);
+    const mail = await waitForEmail(demoEmail("checker"), "revision A issued for check");
+    expect(mail.text).toContain(note);
   });
 
   it("refuses cleanly to issue a draft the contract accepts but the engine cannot analyse, and stores nothing", async () => {
@@ -226,11 +252,41 @@ describe("deciding", () => {
 });
 
 describe("the review cycle", () => {
+  it("stores a comment on a field chosen from the revision page, an input value or a check row, by its path, which reads as words", async () => {
+    const p = await foundationWithDraft();
+    const aId = (await issue(p)).body.revision.id as string;
+    const detail = await json(await callRoute(ONE, "GET", { ...p, revisionId: aId }, { cookie: fx.cookies.checker }));
+    // what the page's check rows send: checks[<key>].value, a result leaf of this revision
+    const check = detail.revision.result.checks[0] as { key: string };
+    const checkPath = `checks[${JSON.stringify(check.key)}].value`;
+    const onCheck = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.checker, body: { body: "Show the mode shape behind this margin.", fieldPath: checkPath } });
+    expect(onCheck.status).toBe(201);
+    expect((await json(onCheck)).comment.fieldPath).toBe(checkPath);
+    // what the page's input values send: a keyed machine field
+    const machine = detail.revision.input.machines[0] as { name: string };
+    const massPath = `machines[${JSON.stringify(machine.name)}].mass`;
+    const onMass = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.checker, body: { body: "Which vendor sheet gives this mass?", fieldPath: massPath } });
+    expect(onMass.status).toBe(201);
+    const listed = (await json(await callRoute(COMMENTS, "GET", { ...p, revisionId: aId }, { cookie: fx.cookies.designer }))).comments as { id: string; fieldPath: string }[];
+    expect(listed.map((c) => c.fieldPath).sort()).toEqual([checkPath, massPath].sort());
+    expect(fieldLabel(checkPath)).toMatch(/^Check · /);
+    expect(fieldLabel(massPath)).toBe(`Machine ${machine.name} · mass`);
+
+    // The designer's workspace gets the open ones (not answers, not resolved ones); a viewer none.
+    const answer = await callRoute(COMMENTS, "POST", { ...p, revisionId: aId }, { cookie: fx.cookies.designer, body: { body: "From the vendor's sheet 3.", parentId: (await json(onMass)).comment.id } });
+    expect(answer.status).toBe(201);
+    const checkCommentId = listed.find((c) => c.fieldPath === checkPath)?.id ?? "";
+    expect((await callRoute(`${COMMENTS}/[commentId]`, "PATCH", { ...p, revisionId: aId, commentId: checkCommentId }, { cookie: fx.cookies.checker, body: { resolved: true } })).status).toBe(200);
+    const open = await listOpenFoundationComments({ userId: fx.userIds.designer, isAdmin: false }, p.projectId, p.foundationId);
+    expect(open.map((c) => [c.fieldPath, c.revisionLabel, c.body])).toEqual([[massPath, "A", "Which vendor sheet gives this mass?"]]);
+    expect(await listOpenFoundationComments({ userId: fx.userIds.viewer, isAdmin: false }, p.projectId, p.foundationId)).toEqual([]);
+  });
+
   it("issue, comment, answer, return, re-issue, approve: statuses, audit trail and e-mails", async () => {
     const p = await foundationWithDraft();
     const designer = demoEmail("designer");
 
-    const { state: issued } = await callAction(issueRevisionAction, { ...p }, fx.cookies.designer);
+    const { state: issued } = await callAction(issueRevisionAction, { ...p, note: "First issue for check." }, fx.cookies.designer);
     expect(issued).toMatchObject({ ok: true, data: { label: "A" } });
     if (!issued.ok) throw new Error(issued.message);
     const aId = String(issued.data.revisionId);

@@ -50,7 +50,7 @@ async function putDraft(version: number, input: unknown): Promise<number> {
 }
 
 async function issue(draftVersion: number): Promise<string> {
-  const res = await callRoute(LIST, "POST", params, { cookie: fx.cookies.designer, body: { draftVersion } });
+  const res = await callRoute(LIST, "POST", params, { cookie: fx.cookies.designer, body: { draftVersion, note: "Speed ramps set." } });
   expect(res.status, JSON.stringify(await res.clone().json())).toBe(201);
   return (await json(res)).revision.id as string;
 }

@@ -29,7 +29,7 @@ describe("withdrawing a foundation", () => {
     const f = await createFoundation({ userId: fx.userIds.manager, isAdmin: false }, fx.projectId, { tag, machineTrain: "Mistake", location: "" });
     const p = { projectId: fx.projectId, foundationId: f.id };
     expect((await callRoute(`${F}/draft`, "PUT", p, { cookie: fx.cookies.designer, body: { version: 0, input: sampleAnalysisInput() } })).status).toBe(200);
-    const issued = await callRoute(`${F}/revisions`, "POST", p, { cookie: fx.cookies.designer, body: {} });
+    const issued = await callRoute(`${F}/revisions`, "POST", p, { cookie: fx.cookies.designer, body: { note: "Issued for check." } });
     expect(issued.status).toBe(201);
     const revisionId = (await json(issued)).revision.id as string;
 
@@ -66,7 +66,7 @@ describe("withdrawing a foundation", () => {
     const save = await callRoute(`${F}/draft`, "PUT", p, { cookie: fx.cookies.manager, body: { version: draft.draft.version, input: sampleAnalysisInput() } });
     expect(save.status).toBe(409);
     expect((await json(save)).error.message).toMatch(/withdrawn/);
-    expect((await callRoute(`${F}/revisions`, "POST", p, { cookie: fx.cookies.manager, body: {} })).status).toBe(409);
+    expect((await callRoute(`${F}/revisions`, "POST", p, { cookie: fx.cookies.manager, body: { note: "Issued for check." } })).status).toBe(409);
 
     const restored = await callRoute(`${F}/withdrawal`, "DELETE", p, { cookie: fx.cookies.manager });
     expect(restored.status).toBe(200);

@@ -22,6 +22,7 @@ import { useCalculation, type CalcIssue } from "./use-calculation";
 import { useDraftSave } from "./use-draft-save";
 import { useLeaveGuard } from "./use-leave-guard";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
+import { ReviewCommentsProvider, type WorkspaceComment } from "./review-comments";
 
 export interface WorkspaceProps {
   projectId: string;
@@ -33,6 +34,8 @@ export interface WorkspaceProps {
   initialForm: DraftForm;
   units: UnitSystem;
   projectDefaults: Pick<ProjectSettings, "criteriaDefaults" | "soilBand">;
+  /** Open review comments of the foundation's revisions, shown beside their fields. */
+  openComments?: WorkspaceComment[];
 }
 
 function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
@@ -268,7 +271,9 @@ export function FoundationWorkspace(props: WorkspaceProps) {
   return (
     <UnitsProvider initial={props.units}>
       <Formik<DraftForm> initialValues={props.initialForm} validationSchema={draftFormSchema} onSubmit={() => undefined} validateOnMount initialStatus={{ serverIssues: {} }}>
-        <Desk {...props} version={version} setVersion={setVersion} />
+        <ReviewCommentsProvider comments={props.openComments ?? []} revisionHref={(id) => `/projects/${props.projectId}/foundations/${props.foundationId}/revisions/${id}`}>
+          <Desk {...props} version={version} setVersion={setVersion} />
+        </ReviewCommentsProvider>
       </Formik>
     </UnitsProvider>
   );

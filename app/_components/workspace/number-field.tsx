@@ -3,6 +3,7 @@
 import { getIn, useFormikContext } from "formik";
 import { useId, useState } from "react";
 import { useUnits, type QuantityKey } from "./units-context";
+import { FieldCommentMarker } from "./review-comments";
 
 /**
  * A numeric input bound to a formik field that holds the SI value. It shows and
@@ -42,6 +43,7 @@ export function NumberField({
           {label} {unit ? <span className="font-normal normal-case tracking-normal text-basalt-400">({unit})</span> : null}
         </label>
       )}
+      <FieldCommentMarker name={name} />
       <input
         id={id}
         name={name}

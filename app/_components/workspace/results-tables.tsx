@@ -1,6 +1,7 @@
 "use client";
 
 import type { ReactNode } from "react";
+import { FieldPick } from "./field-pick";
 import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
@@ -55,7 +56,7 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
               const kind = kindOfUnit(c.unit);
               return (
                 <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : c.acceptance ? "bg-ochre-100/40" : "bg-brick-100/40"} data-verdict={checkVerdict(c)} data-check-key={c.key}>
-                  <td className="text-xs">{c.label}</td>
+                  <td className="text-xs">{c.key ? <FieldPick path={`checks[${JSON.stringify(c.key)}].value`}>{c.label}</FieldPick> : c.label}</td>
                   <td className="whitespace-nowrap text-right font-mono text-xs">
                     {units.toResultText(kind, c.value)} {units.unitLabel(kind)}
                   </td>

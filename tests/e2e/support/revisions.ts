@@ -46,9 +46,17 @@ export class RevisionPages {
     return this.page.getByTestId("revision-status").first();
   }
 
-  /** On the list page: issues the saved draft and waits for the new revision's page; returns its id. */
-  async issue(): Promise<string> {
+  /**
+   * On the list page: issues the saved draft with a revision note and waits for the new
+   * revision's page; returns its id. When the draft's checks fail, the confirmation that
+   * lists them (rendered only then) is answered with "Issue anyway".
+   */
+  async issue(note = "Changed as the checker asked; see the side-by-side view."): Promise<string> {
+    await this.page.getByLabel("Revision note: what changed and why").fill(note);
+    const confirm = this.page.getByTestId("issue-failing-dialog");
+    const failing = (await confirm.count()) > 0;
     await this.page.getByRole("button", { name: "Issue for check" }).click();
+    if (failing) await confirm.getByRole("button", { name: "Issue anyway" }).click();
     await this.page.waitForURL((u) => revisionUrl.test(u.pathname), { timeout: 30_000 });
     await this.heading.waitFor({ state: "visible" });
     const id = revisionUrl.exec(new URL(this.page.url()).pathname)?.[1];
@@ -72,12 +80,19 @@ export class RevisionPages {
     await this.page.getByTestId("diff-input").waitFor({ state: "visible" });
   }
 
-  async comment(fieldPath: string, body: string): Promise<void> {
-    const form = this.page.locator("form").filter({ has: this.page.getByRole("button", { name: "Post comment" }) });
-    await form.getByLabel("On field (leave blank for the whole revision)").fill(fieldPath);
-    await form.getByLabel("Comment", { exact: true }).fill(body);
-    await form.getByRole("button", { name: "Post comment" }).click();
-    await this.page.getByText("Comment posted.").waitFor({ state: "visible", timeout: 20_000 });
+  /** On a revision page: chooses the value labelled `fieldLabel` (e.g. "Soil · Poisson's ratio") and comments on it. */
+  async comment(fieldLabel: string, body: string): Promise<void> {
+    await this.page.getByRole("button", { name: `Comment on ${fieldLabel}`, exact: true }).click();
+    const box = this.commentBox;
+    await box.waitFor({ state: "visible" });
+    await box.getByLabel("Comment", { exact: true }).fill(body);
+    await box.getByRole("button", { name: "Post comment" }).click();
+    await box.getByText("Comment posted.").waitFor({ state: "visible", timeout: 20_000 });
+  }
+
+  /** The comment box that choosing a value opens. */
+  get commentBox(): Locator {
+    return this.page.getByTestId("field-comment-box");
   }
 
   async decide(outcome: "Return with comments" | "Approve revision", note = ""): Promise<void> {

@@ -73,7 +73,7 @@ describe("racing decisions on one revision", () => {
   it("lets exactly one of four decisions (two checkers approving twice each, one returning) through", async () => {
     const tally = new Tally();
     // A fresh revision: the draft changed above, so issuing it is allowed.
-    const issued = await callRouteAt("v1/projects/[projectId]/foundations/[foundationId]/revisions", "POST", { projectId: hx.projectId, foundationId: hx.foundationId }, { cookie: designers[0], body: {} });
+    const issued = await callRouteAt("v1/projects/[projectId]/foundations/[foundationId]/revisions", "POST", { projectId: hx.projectId, foundationId: hx.foundationId }, { cookie: designers[0], body: { note: "First issue." } });
     expect(issued.status).toBe(201);
     const { revision } = (await issued.json()) as { revision: { id: string } };
     const params = { projectId: hx.projectId, foundationId: hx.foundationId, revisionId: revision.id };

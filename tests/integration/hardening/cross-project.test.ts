@@ -49,7 +49,7 @@ function idRoutes(o: HardeningProject): Call[] {
     { route: `${F}/draft`, method: "GET" },
     { route: `${F}/draft`, method: "PUT", body: { version: 1, input: sampleAnalysisInput() } },
     { route: `${F}/revisions`, method: "GET" },
-    { route: `${F}/revisions`, method: "POST", body: {} },
+    { route: `${F}/revisions`, method: "POST", body: { note: "Cross-project probe." } },
     { route: `${F}/revisions/compare`, method: "GET", query: `from=${o.revisionId}&to=${o.revisionId}` },
     { route: R, method: "GET" },
     { route: `${R}/package`, method: "GET" },
@@ -169,7 +169,7 @@ describe("actions with another project's ids", () => {
     const rows: { name: string; action: ActionFn; fields: Record<string, string>; roles: MatrixRole[] }[] = [];
     for (const projectId of [fx.projectId, o.projectId]) {
       rows.push(
-        { name: "revision.issue", action: issueRevisionAction, fields: { projectId, foundationId: o.foundationId }, roles: ["manager", "designer"] },
+        { name: "revision.issue", action: issueRevisionAction, fields: { projectId, foundationId: o.foundationId, note: "cross-project probe" }, roles: ["manager", "designer"] },
         { name: "revision.decide", action: decideRevisionAction, fields: { projectId, foundationId: o.foundationId, revisionId: o.revisionId, outcome: "approved", note: "" }, roles: ["manager", "checker"] },
         { name: "revision.comment", action: commentOnRevisionAction, fields: { projectId, foundationId: o.foundationId, revisionId: o.revisionId, body: "probe" }, roles: ["manager", "checker"] },
         { name: "revision.resolveComment", action: resolveRevisionCommentAction, fields: { projectId, foundationId: o.foundationId, commentId: o.commentId, resolved: "true" }, roles: ["manager", "checker"] },

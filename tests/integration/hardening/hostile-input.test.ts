@@ -361,7 +361,7 @@ describe("every server action under hostile form fields", () => {
     // A foundation id that exists nowhere: the fuzzing must not withdraw the foundation the other cases use.
     { name: "foundation.withdraw", action: withdrawFoundationAction, base: async () => ({ projectId: hx.projectId, foundationId: "00000000-0000-4000-8000-000000000000", reason: "fuzz: created twice" }), cookie: async () => fx.cookies.manager },
     { name: "foundation.restore", action: restoreFoundationAction, base: async () => ({ projectId: hx.projectId, foundationId: "00000000-0000-4000-8000-000000000000" }), cookie: async () => fx.cookies.manager },
-    { name: "revision.issue", action: issueRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId }), cookie: async () => fx.cookies.manager },
+    { name: "revision.issue", action: issueRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, note: "fuzz issue" }), cookie: async () => fx.cookies.manager },
     { name: "revision.decide", action: decideRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, outcome: "returned", note: "fuzz" }), cookie: async () => hx.checkerCookie },
     { name: "revision.comment", action: commentOnRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, body: "fuzz comment", fieldPath: "soil.poissonRatio" }), cookie: async () => hx.checkerCookie },
     { name: "revision.resolveComment", action: resolveRevisionCommentAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, commentId: hx.commentId, resolved: "true" }), cookie: async () => hx.checkerCookie },

@@ -66,7 +66,7 @@ const revisionParams = async (fx: Fixture) => {
 
 export const routeCases: RouteCase[] = [
   { route: base, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await foundationParams(fx) }) },
-  { route: base, method: "POST", allowed: [...permissionMap["revision.issue"]], request: async (fx) => ({ params: await foundationParams(fx), body: {} }) },
+  { route: base, method: "POST", allowed: [...permissionMap["revision.issue"]], request: async (fx) => ({ params: await foundationParams(fx), body: { note: "Issued for check." } }) },
   // Without from/to an allowed caller gets 400 (past the guard); the comparison itself is in revisions.test.ts.
   { route: `${base}/compare`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await foundationParams(fx) }) },
   { route: `${base}/[revisionId]`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
@@ -99,7 +99,7 @@ export const actionCases: ActionCase[] = [
     name: "revision.issue",
     action: issueRevisionAction,
     allowed: [...permissionMap["revision.issue"]],
-    fields: async (fx) => foundationParams(fx),
+    fields: async (fx) => ({ ...(await foundationParams(fx)), note: "Issued for check." }),
   },
   {
     name: "revision.decide",

@@ -5,7 +5,7 @@ import { roleAllows } from "@/modules/platform/permissions";
 import { emptyDraftForm, formFromInput } from "@/modules/desk/draft-form";
 import { getDraft } from "@/db/queries/drafts";
 import { getFoundation } from "@/db/queries/foundations";
-import { listRevisions } from "@/db/queries/revisions";
+import { listOpenFoundationComments, listRevisions } from "@/db/queries/revisions";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
 import { FoundationWorkspace } from "../../../../../_components/workspace/foundation-workspace";
 import { RevisionBar } from "./revisions/revision-bar";
@@ -21,6 +21,8 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
   const draft = foundation ? await getDraft(actor, projectId, foundationId) : undefined;
   if (!foundation || !draft) notFound();
   const revisions = roleAllows(role, "revision.read") ? await listRevisions(actor, projectId, foundationId) : [];
+  // Review comments are for those in the review (manager, designer, checker); the query checks it too.
+  const openComments = roleAllows(role, "revision.comment") ? await listOpenFoundationComments(actor, projectId, foundationId) : [];
   return (
     <div className="space-y-3">
       <p className="text-xs text-basalt-500">
@@ -44,6 +46,7 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
         units={user.unitsPreference ?? project.units}
         projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
+        openComments={openComments}
       />
       {roleAllows(role, "foundation.withdraw") && !foundation.withdrawnAt ? <WithdrawFoundationForm projectId={projectId} foundationId={foundationId} tag={foundation.tag} /> : null}
     </div>

@@ -9,6 +9,7 @@ import { listRevisionHistory, listRevisions } from "@/db/queries/revisions";
 import { requireProjectPage } from "@/app/_lib/page-guard";
 import { EmptyState } from "@/app/_components/brand";
 import { IssueForm } from "./revision-forms";
+import { failingCheckLabels } from "./failing-checks";
 import { formatStamp, RevisionCrumbs, RevisionSelect, RevisionStatusTag } from "./revision-parts";
 import { revisionPath } from "./revision-service";
 
@@ -36,6 +37,8 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
   const draftHash = draft?.input ? canonicalInputHash(draft.input) : null;
   const sameAsLatest = !!latest && draftHash === latest.inputHash;
   const previous = revisions.at(-2);
+  // The draft's failing checks, named in the confirmation before issuing.
+  const failingChecks = mayIssue && draft?.input && !sameAsLatest ? await failingCheckLabels(draft.input) : [];
   return (
     <div className="space-y-6">
       <div>
@@ -58,7 +61,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
               <p className="text-sm text-basalt-600">
                 Freezes the saved draft (version {draft.version}, saved {draft.updatedAt ? formatStamp(draft.updatedAt) : "—"}) with its results as revision of record; the checkers and the manager are told by e-mail. Unsaved edits in the workspace are not included.
               </p>
-              <IssueForm projectId={projectId} foundationId={foundationId} draftVersion={draft.version} />
+              <IssueForm projectId={projectId} foundationId={foundationId} draftVersion={draft.version} failingChecks={failingChecks} />
             </>
           )}
         </section>
@@ -77,6 +80,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                   <th>Status</th>
                   <th>Issued</th>
                   <th>Decision</th>
+                  <th>Note</th>
                   <th>Open comments</th>
                   <th>Fingerprint</th>
                 </tr>
@@ -96,6 +100,9 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                       {r.issuedByName}, {formatStamp(r.issuedAt)}
                     </td>
                     <td className="text-xs">{r.decision ? `${r.decision.outcome === "approved" ? "approved" : "returned"} by ${r.decision.decidedByName}, ${formatStamp(r.decision.decidedAt)}` : "—"}</td>
+                    <td className="max-w-xs text-xs" data-testid="revision-note">
+                      {r.note || <span className="text-basalt-400">no note recorded</span>}
+                    </td>
                     <td className="font-mono text-xs">{r.openComments}</td>
                     <td className="font-mono text-2xs text-basalt-400" title={`SHA-256 of the canonical input; engine ${r.engineVersion}`}>
                       {r.inputHash.slice(0, 12)}…

@@ -1,6 +1,6 @@
 "use client";
 
-import { useActionState } from "react";
+import { useActionState, useRef } from "react";
 import { useFormStatus } from "react-dom";
 import { FormMessage, SubmitButton, fieldErrorsOf, type FormState } from "@/app/_components/form-kit";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "./actions";
@@ -27,17 +27,52 @@ function FieldErrors({ state, name }: { state: FormState; name: string }) {
   );
 }
 
-/** Issue the saved draft (at the version shown) for check. */
-export function IssueForm({ projectId, foundationId, draftVersion }: { projectId: string; foundationId: string; draftVersion: number }) {
+/**
+ * Issue the saved draft (at the version shown) for check, with the revision note. When the
+ * draft's checks fail, a confirmation names them first; issuing stays allowed (a checker may
+ * be asked to accept a margin), but never without the designer having seen the list.
+ */
+export function IssueForm({ projectId, foundationId, draftVersion, failingChecks = [] }: { projectId: string; foundationId: string; draftVersion: number; failingChecks?: string[] }) {
   const [state, action] = useActionState(issueRevisionAction as unknown as Act, null);
+  const confirm = useRef<HTMLDialogElement>(null);
   return (
-    <form action={action} className="space-y-2" noValidate>
+    <form action={action} className="space-y-2" noValidate onSubmit={() => confirm.current?.close()}>
       <input type="hidden" name="projectId" value={projectId} />
       <input type="hidden" name="foundationId" value={foundationId} />
       <input type="hidden" name="draftVersion" value={draftVersion} />
+      <label className="field-label" htmlFor="revision-note">
+        Revision note: what changed and why
+      </label>
+      <textarea id="revision-note" name="note" rows={3} required className="field-input" aria-invalid={fieldErrorsOf(state, "note").length > 0} />
+      <FieldErrors state={state} name="note" />
       <FormMessage state={okMessage(state)} />
       <FieldErrors state={state} name="draftVersion" />
-      <SubmitButton>Issue for check</SubmitButton>
+      {failingChecks.length ? (
+        <>
+          <button type="button" className="btn-primary" onClick={() => confirm.current?.showModal()}>
+            Issue for check
+          </button>
+          <dialog ref={confirm} className="slab max-w-lg space-y-3 p-5" aria-labelledby="issue-failing-heading" data-testid="issue-failing-dialog">
+            <h3 id="issue-failing-heading">
+              {failingChecks.length} {failingChecks.length === 1 ? "check fails" : "checks fail"} on this draft
+            </h3>
+            <ul className="list-disc space-y-1 pl-5 text-sm" data-testid="issue-failing-checks">
+              {failingChecks.map((c) => (
+                <li key={c}>{c}</li>
+              ))}
+            </ul>
+            <p className="text-sm text-basalt-600">Issue it anyway for the checker to see with these failures, or go back and change the draft.</p>
+            <div className="flex gap-2">
+              <button type="button" className="btn-quiet" onClick={() => confirm.current?.close()}>
+                Go back
+              </button>
+              <SubmitButton>Issue anyway</SubmitButton>
+            </div>
+          </dialog>
+        </>
+      ) : (
+        <SubmitButton>Issue for check</SubmitButton>
+      )}
     </form>
   );
 }
@@ -77,44 +112,35 @@ export function DecisionForm({ projectId, foundationId, revisionId }: { projectI
   );
 }
 
-/** A new comment on the revision or one of its fields, or an answer to a comment. */
+/**
+ * A new comment on the revision or on one field of it, or an answer to a comment. The field is
+ * chosen on the page (a value, a check row) and arrives as `fieldPath`; nobody types a path.
+ */
 export function CommentForm({
   projectId,
   foundationId,
   revisionId,
   parentId,
-  fieldPaths,
-  defaultFieldPath,
+  fieldPath,
+  idPrefix,
 }: {
   projectId: string;
   foundationId: string;
   revisionId: string;
   parentId?: string;
-  fieldPaths?: string[];
-  defaultFieldPath?: string;
+  fieldPath?: string;
+  idPrefix?: string;
 }) {
   const [state, action] = useActionState(commentOnRevisionAction as unknown as Act, null);
-  const id = parentId ? `answer-${parentId}` : "new-comment";
+  const id = idPrefix ?? (parentId ? `answer-${parentId}` : "new-comment");
   return (
     <form action={action} className="space-y-2" noValidate key={state && state.ok ? String((state.data as { commentId?: string })?.commentId) : "form"}>
       <input type="hidden" name="projectId" value={projectId} />
       <input type="hidden" name="foundationId" value={foundationId} />
       <input type="hidden" name="revisionId" value={revisionId} />
       {parentId ? <input type="hidden" name="parentId" value={parentId} /> : null}
-      {!parentId && fieldPaths ? (
-        <div>
-          <label className="field-label" htmlFor={`${id}-field`}>
-            On field (leave blank for the whole revision)
-          </label>
-          <input id={`${id}-field`} name="fieldPath" list={`${id}-paths`} defaultValue={defaultFieldPath} className="field-input font-mono text-xs" placeholder="e.g. soil.poissonRatio" />
-          <datalist id={`${id}-paths`}>
-            {fieldPaths.map((p) => (
-              <option key={p} value={p} />
-            ))}
-          </datalist>
-          <FieldErrors state={state} name="fieldPath" />
-        </div>
-      ) : null}
+      {!parentId && fieldPath ? <input type="hidden" name="fieldPath" value={fieldPath} /> : null}
+      <FieldErrors state={state} name="fieldPath" />
       <label className="field-label" htmlFor={`${id}-body`}>
         {parentId ? "Answer" : "Comment"}
       </label>

@@ -40,8 +40,8 @@ async function notify(recipients: { email: string }[], subject: string, text: st
   }
 }
 
-export async function issueForCheck(actor: Actor, input: { projectId: string; foundationId: string; draftVersion?: number }): Promise<RevisionSummary> {
-  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion, analyse: analyseInPool });
+export async function issueForCheck(actor: Actor, input: { projectId: string; foundationId: string; draftVersion?: number; note: string }): Promise<RevisionSummary> {
+  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion, analyse: analyseInPool, note: input.note });
   if (!out.ok) {
     switch (out.reason) {
       case "forbidden":
@@ -64,7 +64,7 @@ export async function issueForCheck(actor: Actor, input: { projectId: string; fo
   await notify(
     checkers.filter((c) => c.userId !== actor.userId),
     `[Plinthwise] ${tag} revision ${rev.label} issued for check`,
-    `${rev.issuedByName} issued revision ${rev.label} of foundation ${tag} for check.\n\nOpen it: ${appUrl(revisionPath(input.projectId, input.foundationId, rev.id))}\n\nInput fingerprint (SHA-256): ${rev.inputHash}\nEngine version: ${rev.engineVersion}\n`,
+    `${rev.issuedByName} issued revision ${rev.label} of foundation ${tag} for check.\n\nRevision note: ${rev.note}\n\nOpen it: ${appUrl(revisionPath(input.projectId, input.foundationId, rev.id))}\n\nInput fingerprint (SHA-256): ${rev.inputHash}\nEngine version: ${rev.engineVersion}\n`,
   );
   return rev;
 }

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
-import { listLeafPaths } from "@/modules/revisions";
+import { fieldLabel, listLeafPaths } from "@/modules/revisions";
 import { getFoundation } from "@/db/queries/foundations";
 import { getRevision, listRevisionComments, listRevisions, type RevisionComment } from "@/db/queries/revisions";
 import { requireProjectPage } from "@/app/_lib/page-guard";
@@ -11,6 +11,7 @@ import { CommentForm, DecisionForm, ResolveButton } from "../revision-forms";
 import { RevisionResults } from "../revision-results";
 import { formatStamp, RevisionCrumbs, RevisionStatusTag } from "../revision-parts";
 import { revisionPath } from "../revision-service";
+import { FieldCommentArea, InputValues } from "./field-comments";
 
 export const metadata: Metadata = { title: "Revision" };
 
@@ -30,7 +31,8 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   const mayDecide = roleAllows(role, "revision.decide") && revision.status === "in-check" && !wroteIt;
   const threads = (comments ?? []).filter((c) => !c.parentId);
   const answersOf = (c: RevisionComment) => (comments ?? []).filter((a) => a.parentId === c.id);
-  const fieldPaths = listLeafPaths(revision.input).map((p) => p.path);
+  // schemaVersion is the format, not a value anyone reviews
+  const inputValues = listLeafPaths(revision.input).filter((p) => p.path !== "schemaVersion");
   return (
     <div className="space-y-6">
       <div>
@@ -76,6 +78,10 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
             You wrote this revision (issued it or edited its draft), so someone else returns or approves it.
           </p>
         ) : null}
+        <div className="mt-3 max-w-3xl rounded-plinth border border-grout-200 px-3 py-2 text-sm" data-testid="revision-note">
+          <p className="text-xs font-semibold text-basalt-500">Revision note (what changed and why)</p>
+          <p className="whitespace-pre-wrap">{revision.note || <span className="text-basalt-400">No note recorded (issued before revision notes).</span>}</p>
+        </div>
         {revision.decision?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">“{revision.decision.note}”</p> : null}
         {roleAllows(role, "package.export") ? (
           <p className="mt-3">
@@ -114,7 +120,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
               <div className="flex flex-wrap items-center gap-2 text-xs text-basalt-500">
                 <span className="font-semibold text-basalt-800">{c.authorName}</span>
                 <span>{formatStamp(c.createdAt)}</span>
-                <span className="tag bg-grout-100 font-mono text-basalt-700">{c.fieldPath ?? "whole revision"}</span>
+                <span className="tag bg-grout-100 text-basalt-700" title={c.fieldPath ?? undefined} data-field-path={c.fieldPath ?? undefined}>
+                  {c.fieldPath ? fieldLabel(c.fieldPath) : "whole revision"}
+                </span>
                 <span className={`tag ${c.resolved ? "bg-moss-100 text-moss-700" : "bg-ochre-100 text-ochre-700"}`}>{c.resolved ? "resolved" : "open"}</span>
                 {mayComment ? <ResolveButton projectId={projectId} foundationId={foundationId} commentId={c.id} resolved={c.resolved} /> : null}
               </div>
@@ -138,20 +146,27 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
         </ul>
         {mayComment ? (
           <div className="slab max-w-2xl p-5">
-            <h3>New comment</h3>
-            <CommentForm projectId={projectId} foundationId={foundationId} revisionId={revision.id} fieldPaths={fieldPaths} />
+            <h3>New comment on the whole revision</h3>
+            <p className="text-xs text-basalt-500">To comment on one field, choose its value under the results or the input below.</p>
+            <CommentForm projectId={projectId} foundationId={foundationId} revisionId={revision.id} />
           </div>
         ) : null}
       </section>
 
-      <section className="space-y-3" aria-labelledby="results-heading">
-        <h2 id="results-heading">Results as issued</h2>
-        <RevisionResults result={revision.result} units={user.unitsPreference ?? project.units} />
-      </section>
-      <details className="slab p-4">
-        <summary className="cursor-pointer text-sm font-semibold">Input as issued (JSON, SI)</summary>
-        <pre className="mt-2 max-h-96 overflow-auto text-2xs">{JSON.stringify(revision.input, null, 2)}</pre>
-      </details>
+      <FieldCommentArea projectId={projectId} foundationId={foundationId} revisionId={revision.id} mayComment={mayComment}>
+        <section className="space-y-3" aria-labelledby="results-heading">
+          <h2 id="results-heading">Results as issued</h2>
+          <RevisionResults result={revision.result} units={user.unitsPreference ?? project.units} />
+        </section>
+        <section className="slab space-y-2 p-4" aria-labelledby="input-heading">
+          <h2 id="input-heading">Input as issued</h2>
+          <InputValues rows={inputValues} />
+          <details>
+            <summary className="cursor-pointer text-xs text-basalt-500">The same as JSON (SI)</summary>
+            <pre className="mt-2 max-h-96 overflow-auto text-2xs">{JSON.stringify(revision.input, null, 2)}</pre>
+          </details>
+        </section>
+      </FieldCommentArea>
     </div>
   );
 }

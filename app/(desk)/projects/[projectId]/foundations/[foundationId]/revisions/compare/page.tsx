@@ -120,6 +120,14 @@ export default async function ComparePage({
           <Link href={revisionPath(projectId, foundationId, newer.id)}>{newer.label}</Link> <RevisionStatusTag status={newer.status} />
           <span className="text-xs text-basalt-400">numbers equal within a relative 1e-9 count as unchanged</span>
         </p>
+        <dl className="mt-2 space-y-1 text-sm" data-testid="compare-notes">
+          {[older, newer].map((r) => (
+            <div key={r.id}>
+              <dt className="inline font-semibold">Revision note {r.label}: </dt>
+              <dd className="inline whitespace-pre-wrap">{r.note || <span className="text-basalt-400">none recorded</span>}</dd>
+            </div>
+          ))}
+        </dl>
         {older.engineVersion !== newer.engineVersion ? (
           <p className="mt-2 text-sm text-ochre-700">
             Computed by different engine versions ({older.engineVersion} and {newer.engineVersion}): some result changes may come from the engine, not the inputs.

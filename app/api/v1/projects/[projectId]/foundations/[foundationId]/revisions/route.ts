@@ -19,14 +19,15 @@ export const GET = defineRoute({
   },
 });
 
-// Issues the saved draft for check; `draftVersion` (optional) refuses a draft saved since.
+// Issues the saved draft for check with its revision `note` (required: what changed and why);
+// `draftVersion` (optional) refuses a draft saved since.
 export const POST = defineRoute({
   access: { kind: "project", permission: "revision.issue" },
   projectId: projectIdOf,
-  body: revisionIssueSchema.pick({ draftVersion: true }).strict(),
+  body: revisionIssueSchema.pick({ draftVersion: true, note: true }).strict(),
   status: 201,
   handler: async ({ auth, params }, body) => {
-    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion });
+    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion, note: body.note });
     return { revision };
   },
 });

@@ -1,0 +1,1 @@
+ALTER TABLE "revisions" ADD COLUMN "note" text DEFAULT '' NOT NULL;
