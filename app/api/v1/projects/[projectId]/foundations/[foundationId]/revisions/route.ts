@@ -19,14 +19,15 @@ export const GET = defineRoute({
   },
 });
 
-// Issues the saved draft for check; `draftVersion` (optional) refuses a draft saved since.
+// Issues the saved draft for check; `draftVersion` (optional) refuses a draft saved since;
+// `purpose` (optional, "issued-for-check" by default) says what the revision is issued for.
 export const POST = defineRoute({
   access: { kind: "project", permission: "revision.issue" },
   projectId: projectIdOf,
-  body: revisionIssueSchema.pick({ draftVersion: true }).strict(),
+  body: revisionIssueSchema.pick({ draftVersion: true, purpose: true }).strict(),
   status: 201,
   handler: async ({ auth, params }, body) => {
-    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion });
+    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion, purpose: body.purpose });
     return { revision };
   },
 });
