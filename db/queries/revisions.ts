@@ -1,7 +1,7 @@
 import { and, asc, count, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionChecks, revisionComments, revisionDecisions, revisions, users, vendorSubmissions, type RevisionRow } from "../schema";
+import { auditEvents, companies, foundationDrafts, foundations, projectMembers, projects, revisionChecks, revisionComments, revisionDecisions, revisions, storedFiles, users, vendorRequests, vendorSubmissions, type RevisionRow } from "../schema";
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
 import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionPurpose, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
@@ -603,4 +603,57 @@ export async function createSeedRevision(args: {
     }
     return row.id;
   });
+}
+
+/** A vendor submission as a package names it: its request (company and date), version, file and fingerprint. */
+export interface RevisionVendorSubmission {
+  requestId: string;
+  companyName: string;
+  requestedAt: Date;
+  version: number;
+  source: "workbook" | "csv" | "form";
+  fileName: string | null;
+  sha256: string;
+  submittedAt: Date;
+}
+
+/** The submission a revision used, or undefined when none or not readable by the actor. */
+export async function getRevisionVendorSubmission(actor: Actor, projectId: string, submissionId: string | null): Promise<RevisionVendorSubmission | undefined> {
+  if (!submissionId || !(await allowed(actor, projectId, "revision.read"))) return undefined;
+  const [row] = await getDb()
+    .select({
+      requestId: vendorRequests.id,
+      companyName: companies.name,
+      requestedAt: vendorRequests.createdAt,
+      version: vendorSubmissions.version,
+      source: vendorSubmissions.source,
+      fileName: storedFiles.fileName,
+      sha256: vendorSubmissions.sha256,
+      submittedAt: vendorSubmissions.createdAt,
+    })
+    .from(vendorSubmissions)
+    .innerJoin(vendorRequests, eq(vendorRequests.id, vendorSubmissions.requestId))
+    .innerJoin(companies, eq(companies.id, vendorRequests.companyId))
+    .leftJoin(storedFiles, eq(storedFiles.id, vendorSubmissions.fileId))
+    .where(and(eq(vendorSubmissions.id, submissionId), eq(vendorSubmissions.projectId, projectId)));
+  return row;
+}
+
+/** A revision's review comments with their resolution, oldest first, for the package's trail. */
+export async function listRevisionCommentsWithResolution(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  revisionId: string,
+): Promise<(RevisionComment & { resolvedByName: string | null; resolvedAt: Date | null })[]> {
+  const comments = await listRevisionComments(actor, projectId, foundationId, revisionId);
+  if (!comments?.length) return [];
+  const resolver = alias(users, "resolver");
+  const rows = await getDb()
+    .select({ id: revisionComments.id, resolvedAt: revisionComments.resolvedAt, resolvedByName: resolver.name })
+    .from(revisionComments)
+    .leftJoin(resolver, eq(resolver.id, revisionComments.resolvedById))
+    .where(eq(revisionComments.revisionId, revisionId));
+  const by = new Map(rows.map((r) => [r.id, r]));
+  return comments.map((c) => ({ ...c, resolvedByName: c.resolved ? (by.get(c.id)?.resolvedByName ?? null) : null, resolvedAt: c.resolved ? (by.get(c.id)?.resolvedAt ?? null) : null }));
 }
