@@ -5,7 +5,7 @@
 // honours too). The labels are inputs so that a later sign-off scheme can supply its own
 // status text.
 import type ExcelJS from "exceljs";
-import { revisionStatusLabels, type RevisionStatus } from "@/modules/revisions";
+import type { RevisionStatus } from "@/modules/revisions";
 import type { PackageRevisionSummary, PackageSignOff, PaperSize, RevisionPackageData } from "./types";
 
 /** Excel's paper codes (ECMA-376 part 1, 18.3.1.64 pageSetup: 1 Letter, 9 A4). */

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
-import { canonicalInputHash } from "@/modules/revisions";
+import { canonicalInputHash, revisionPurposeLabels } from "@/modules/revisions";
 import { getDraft } from "@/db/queries/drafts";
 import { getFoundation } from "@/db/queries/foundations";
 import { listRevisionHistory, listRevisions } from "@/db/queries/revisions";
@@ -75,6 +75,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                 <tr>
                   <th>Revision</th>
                   <th>Status</th>
+                  <th>Purpose</th>
                   <th>Issued</th>
                   <th>Decision</th>
                   <th>Open comments</th>
@@ -92,10 +93,14 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                     <td>
                       <RevisionStatusTag status={r.status} />
                     </td>
+                    <td className="text-xs">{revisionPurposeLabels[r.purpose]}</td>
                     <td className="text-xs">
                       {r.issuedByName}, {formatStamp(r.issuedAt)}
                     </td>
-                    <td className="text-xs">{r.decision ? `${r.decision.outcome === "approved" ? "approved" : "returned"} by ${r.decision.decidedByName}, ${formatStamp(r.decision.decidedAt)}` : "—"}</td>
+                    <td className="text-xs">
+                      {r.check ? `checked by ${r.check.checkedByName} (${r.check.checkedByRole}), ${formatStamp(r.check.checkedAt)}; ` : ""}
+                      {r.decision ? `${r.decision.outcome === "approved" ? "approved" : "returned"} by ${r.decision.decidedByName}, ${formatStamp(r.decision.decidedAt)}` : r.check ? "awaiting approval" : "—"}
+                    </td>
                     <td className="font-mono text-xs">{r.openComments}</td>
                     <td className="font-mono text-2xs text-basalt-400" title={`SHA-256 of the canonical input; engine ${r.engineVersion}`}>
                       {r.inputHash.slice(0, 12)}…
