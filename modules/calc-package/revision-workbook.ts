@@ -664,8 +664,8 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       { header: "Sequence", kind: "count" },
       { header: `Issued${UTC}` },
       { header: "Issued by" },
-      { header: "Purpose" },
       { header: "Status" },
+      { header: "Purpose" },
       { header: "Checked by" },
       { header: `Checked${UTC}` },
       { header: "Decision" },
@@ -681,8 +681,8 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       h.sequence,
       h.issuedAt,
       h.issuedByName,
-      revisionPurposeLabels[h.purpose ?? "issued-for-check"],
       revisionStatusLabels[h.status],
+      revisionPurposeLabels[h.purpose ?? "issued-for-check"],
       h.check ? `${h.check.checkedByName} (${h.check.checkedByRole})` : null,
       h.check?.checkedAt ?? null,
       h.decision?.outcome ?? "none yet",
@@ -698,15 +698,15 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
   const byId = new Map((d.comments ?? []).map((c) => [c.id, c]));
   w.table(
     `Review comments on revision ${d.revision.label} (oldest first)`,
-    [{ header: "#", kind: "count" }, { header: "Comment" }, { header: "On" }, { header: "By" }, { header: `Date${UTC}` }, { header: "Resolution" }],
-    (d.comments ?? []).map((c, i) => {
+    [{ header: "Comment" }, { header: "On" }, { header: "By" }, { header: `Date${UTC}` }, { header: "Resolution" }],
+    (d.comments ?? []).map((c) => {
       const parent = c.parentId ? byId.get(c.parentId) : undefined;
       const resolution = parent
         ? `answer to ${parent.authorName}'s comment of ${parent.createdAt.toISOString().slice(0, 10)}`
         : c.resolved
           ? `resolved${c.resolvedByName ? ` by ${c.resolvedByName}` : ""}${c.resolvedAt ? ` on ${c.resolvedAt.toISOString().slice(0, 10)}` : ""}`
           : "open";
-      return [i + 1, c.body, c.fieldPath ?? "the whole revision", c.authorName, c.createdAt, resolution];
+      return [c.body, c.fieldPath ?? "the whole revision", c.authorName, c.createdAt, resolution];
     }),
   );
   w.table(

@@ -62,13 +62,13 @@ describe("sign-offs on the cover and the review trail", () => {
   it("the trail sheet lists the review comments with text, author, date and resolution", () => {
     const trail = wb.getWorksheet(PACKAGE_SHEETS.history)!;
     const comments = tableByTitle(readTables(trail), "Review comments on revision B");
-    expect(comments.headers).toEqual(["#", "Comment", "On", "By", "Date (UTC)", "Resolution"]);
-    expect(comments.rows.map((r) => [r[1], r[2], r[3], r[5]])).toEqual([
+    expect(comments.headers).toEqual(["Comment", "On", "By", "Date (UTC)", "Resolution"]);
+    expect(comments.rows.map((r) => [r[0], r[1], r[2], r[4]])).toEqual([
       ["Justify the Poisson's ratio of the silty sand", "soil.poissonRatio", "Chen Adeyemi-Lund", "resolved by Priya Valcourt on 2026-03-02"],
       ["Taken from the site investigation report, table 4", "soil.poissonRatio", "Priya Valcourt", "answer to Chen Adeyemi-Lund's comment of 2026-03-02"],
       ["Add the grout thickness to the drawing", "the whole revision", "Henrik Osei-Barros", "open"],
     ]);
-    expect((comments.rows[2]?.[4] as Date).toISOString()).toBe("2026-03-03T09:00:00.000Z");
+    expect((comments.rows[2]?.[3] as Date).toISOString()).toBe("2026-03-03T09:00:00.000Z");
     const revisions = tableByTitle(readTables(trail), "Revisions");
     const b = revisions.rows.find((r) => r[0] === "B")!;
     expect(b[revisions.headers.indexOf("Purpose")]).toBe("issued for construction");
