@@ -3,6 +3,7 @@
 // different person); neither signature by one of the revision's authors; the purpose chosen
 // when issuing is stored and returned in the revision's JSON.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import ExcelJS from "exceljs";
 import { closeDb, getPool } from "@/db/client";
 import { createFoundation, createProject, upsertMember } from "@/db/queries/projects";
 import { createUser } from "@/db/queries/accounts";
@@ -15,6 +16,8 @@ const LIST = "v1/projects/[projectId]/foundations/[foundationId]/revisions";
 const ONE = `${LIST}/[revisionId]`;
 const DECISION = `${ONE}/decision`;
 const DRAFT = "v1/projects/[projectId]/foundations/[foundationId]/draft";
+const PACKAGE = `${ONE}/package`;
+const COMMENTS = `${ONE}/comments`;
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- response bodies are read loosely; the assertions pin them down
 type Loose = Record<string, any>;
@@ -164,7 +167,7 @@ describe("two-step sign-off", () => {
     expect(ret.body.revision.status).toBe("returned");
   });
 
-  it("an author cannot check: the issuer and a draft editor are refused, in the database too", async () => {
+  it("an author cannot check: the issuer is refused, in the database too; a check is immutable", async () => {
     await setSteps("two");
     const { p, revisionId } = await issued();
     const byIssuer = await call(DECISION, "POST", { ...p, revisionId }, "designer", { outcome: "checked", note: "" });
@@ -172,5 +175,42 @@ describe("two-step sign-off", () => {
     await expect(getPool().query("INSERT INTO revision_checks (revision_id, checked_by_id, checked_by_role) VALUES ($1, $2, 'manager')", [revisionId, ids.designer])).rejects.toThrow(/one of its authors/);
     expect((await call(DECISION, "POST", { ...p, revisionId }, "checker", { outcome: "checked", note: "" })).status).toBe(201);
     await expect(getPool().query("UPDATE revision_checks SET note = 'changed' WHERE revision_id = $1", [revisionId])).rejects.toThrow(/immutable/);
+  });
+});
+
+describe("the package of a two-step revision", () => {
+  it("carries both signatures with roles on the cover, the review comment in the trail and the state in every header", async () => {
+    await setSteps("two");
+    const { p, revisionId } = await issued({ purpose: "issued-for-approval" });
+    const params = { ...p, revisionId };
+    expect((await call(COMMENTS, "POST", params, "checker", { body: "Check the grout thickness" })).status).toBe(201);
+    expect((await call(DECISION, "POST", params, "checker", { outcome: "checked", note: "" })).status).toBe(201);
+    const read = async () => {
+      const res = await callRoute(PACKAGE, "GET", params, { cookie: cookies.manager });
+      expect(res.status).toBe(200);
+      const wb = new ExcelJS.Workbook();
+      await wb.xlsx.load((await res.arrayBuffer()) as ArrayBuffer);
+      return wb;
+    };
+    const texts = (ws: ExcelJS.Worksheet) => {
+      const out: string[] = [];
+      ws.eachRow((row) => row.eachCell((c) => out.push(String(c.value))));
+      return out;
+    };
+    const checkedWb = await read();
+    for (const ws of checkedWb.worksheets) expect(ws.headerFooter.oddHeader, ws.name).toContain("checked, awaiting approval: not for construction");
+    const trail = texts(checkedWb.getWorksheet("Revision trail")!);
+    expect(trail).toContain("Check the grout thickness");
+    expect(trail).toContain("open");
+    expect(texts(checkedWb.getWorksheet("Cover")!)).toContain("issued for approval");
+
+    expect((await call(DECISION, "POST", params, "manager", { outcome: "approved", note: "" })).status).toBe(201);
+    const approvedWb = await read();
+    const cover = texts(approvedWb.getWorksheet("Cover")!);
+    const names = await getPool().query("SELECT id, name FROM users WHERE id = ANY($1::uuid[])", [[ids.checker, ids.manager]]);
+    const nameOf = new Map(names.rows.map((r) => [r.id as string, r.name as string]));
+    expect(cover).toContain(`${nameOf.get(ids.checker)} (checker)`);
+    expect(cover).toContain(`${nameOf.get(ids.manager)} (manager)`);
+    for (const ws of approvedWb.worksheets) expect(ws.headerFooter.oddHeader, ws.name).not.toContain("not for construction");
   });
 });
