@@ -351,10 +351,9 @@ export async function decideRevision(
       if (!checked.rows[0]) return { ok: false, reason: check ? "already-checked" : "superseded" } as const;
     } else {
       // Two steps: the approval needs the check first, by someone else (a trigger refuses the checker too).
-      if (twoStep && decision.outcome === "approved") {
-        if (!check) return { ok: false, reason: "not-checked" } as const;
-        if (check.checkedById === actor.userId) return { ok: false, reason: "own-check" } as const;
-      }
+      if (twoStep && decision.outcome === "approved" && !check) return { ok: false, reason: "not-checked" } as const;
+      // Also after a switch back to one step: a checked revision is approved by someone else.
+      if (decision.outcome === "approved" && check?.checkedById === actor.userId) return { ok: false, reason: "own-check" } as const;
       const inserted = await tx.execute<{ id: string }>(sql`
         INSERT INTO ${revisionDecisions} (revision_id, outcome, note, decided_by_id, decided_by_role)
         SELECT r.id, ${decision.outcome}, ${decision.note}, ${actor.userId}::uuid, ${member.role}

@@ -214,3 +214,17 @@ describe("the package of a two-step revision", () => {
     for (const ws of approvedWb.worksheets) expect(ws.headerFooter.oddHeader, ws.name).not.toContain("not for construction");
   });
 });
+
+describe("switching back to one step", () => {
+  it("a revision checked under two steps is still approved by someone other than its checker (403, not a database error)", async () => {
+    await setSteps("two");
+    const { p, revisionId } = await issued();
+    expect((await call(DECISION, "POST", { ...p, revisionId }, "checker", { outcome: "checked", note: "" })).status).toBe(201);
+    await setSteps("one");
+    const self = await call(DECISION, "POST", { ...p, revisionId }, "checker", { outcome: "approved", note: "" });
+    expect(self.status).toBe(403);
+    const other = await call(DECISION, "POST", { ...p, revisionId }, "manager", { outcome: "approved", note: "" });
+    expect(other.status).toBe(201);
+    expect(other.body.revision.status).toBe("approved");
+  });
+});

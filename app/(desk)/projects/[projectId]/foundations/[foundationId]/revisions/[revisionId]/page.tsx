@@ -30,7 +30,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   // Two steps: "checked" first, then the approval by someone other than the checker.
   const twoStep = project.signOffSteps === "two";
   const checkedIt = revision.check?.checkedById === user.id;
-  const open = revision.status === "in-check" || (twoStep && revision.status === "checked");
+  const open = revision.status === "in-check" || revision.status === "checked";
   const mayDecide = roleAllows(role, "revision.decide") && open && !wroteIt;
   const step = twoStep && revision.status === "in-check" ? "check" : "approve";
   const threads = (comments ?? []).filter((c) => !c.parentId);
