@@ -95,7 +95,7 @@ async function seedPumpRevisions(projectId: string, foundationId: string, input:
         authorId: checkerId,
       },
     ],
-    decision: { outcome: "returned", note: "Returned: preliminary rotor data and the mass ratio check fails.", decidedById: checkerId, decidedAt: new Date(now - 10 * day) },
+    decision: { outcome: "returned", note: "Returned: preliminary rotor data and the mass ratio check fails.", decidedById: checkerId, decidedByRole: "checker", decidedAt: new Date(now - 10 * day) },
   });
   // B was issued from the draft as it stands, so it records the vendor submission the draft uses.
   const draft = await getDraft({ userId: designerId, isAdmin: false }, projectId, foundationId);

@@ -215,7 +215,7 @@ export async function createFoundation(
 export async function updateProjectSettings(
   actor: Actor,
   projectId: string,
-  settings: { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize?: "a4" | "letter"; criteriaDefaults: Record<string, number>; soilBand: { lowerFactor?: number; upperFactor?: number } },
+  settings: { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize?: "a4" | "letter"; signOffSteps?: "one" | "two"; criteriaDefaults: Record<string, number>; soilBand: { lowerFactor?: number; upperFactor?: number } },
 ): Promise<ProjectRow | undefined> {
   const membership = await getMembership(actor, projectId);
   if (!membership || membership.role !== "manager") return undefined;

@@ -1,9 +1,9 @@
 import { and, asc, count, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { auditEvents, foundationDrafts, foundations, projectMembers, projects, revisionComments, revisionDecisions, revisions, users, vendorSubmissions, type RevisionRow } from "../schema";
+import { auditEvents, companies, foundationDrafts, foundations, projectMembers, projects, revisionChecks, revisionComments, revisionDecisions, revisions, storedFiles, users, vendorRequests, vendorSubmissions, type RevisionRow } from "../schema";
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
-import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionStatus } from "@/modules/revisions";
+import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionPurpose, type RevisionStatus } from "@/modules/revisions";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { isAppError } from "@/modules/platform/errors";
 import { getMembership, type Actor } from "./projects";
@@ -27,8 +27,11 @@ export interface RevisionSummary {
   editors: { id: string; name: string }[];
   /** The designer's revision note (what changed and why); '' on revisions issued before notes existed. */
   note: string;
+  purpose: RevisionPurpose;
   status: RevisionStatus;
-  decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedAt: Date } | null;
+  /** The first signature of a two-step sign-off ("checked"), when given. */
+  check: { note: string; checkedById: string; checkedByName: string; checkedByRole: string; checkedAt: Date } | null;
+  decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedByRole: string | null; decidedAt: Date } | null;
   openComments: number;
 }
 
@@ -58,6 +61,7 @@ async function allowed(actor: Actor, projectId: string, permission: ProjectPermi
 
 const issuer = alias(users, "issuer");
 const decider = alias(users, "decider");
+const checker = alias(users, "checker");
 
 /** Summaries of the given foundation's revisions (or of one), oldest first. */
 // The summary columns only: input and result (the result holds the sweep series, about a
@@ -75,15 +79,18 @@ const summaryColumns = {
   issuedAt: revisions.issuedAt,
   editorIds: revisions.editorIds,
   note: revisions.note,
+  purpose: revisions.purpose,
 };
 
 async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
   const rows = await db
-    .select({ r: summaryColumns, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name })
+    .select({ r: summaryColumns, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name, c: revisionChecks, checkerName: checker.name })
     .from(revisions)
     .innerJoin(issuer, eq(issuer.id, revisions.issuedById))
     .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
     .leftJoin(decider, eq(decider.id, revisionDecisions.decidedById))
+    .leftJoin(revisionChecks, eq(revisionChecks.revisionId, revisions.id))
+    .leftJoin(checker, eq(checker.id, revisionChecks.checkedById))
     .where(and(eq(revisions.projectId, where.projectId), eq(revisions.foundationId, where.foundationId)))
     .orderBy(asc(revisions.sequence));
   const ids = rows.map((x) => x.r.id);
@@ -102,7 +109,7 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
   const maxSequence = rows.reduce((m, x) => Math.max(m, x.r.sequence), 0);
   return rows
     .filter((x) => !where.revisionId || x.r.id === where.revisionId)
-    .map(({ r, issuerName, d, deciderName }) => ({
+    .map(({ r, issuerName, d, deciderName, c, checkerName }) => ({
       id: r.id,
       foundationId: r.foundationId,
       projectId: r.projectId,
@@ -116,8 +123,10 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
       issuedAt: r.issuedAt,
       editors: r.editorIds.map((id) => ({ id, name: editorNames.get(id) ?? "(former account)" })),
       note: r.note,
-      status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence),
-      decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedAt: d.decidedAt } : null,
+      purpose: r.purpose,
+      status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence, !!c),
+      check: c ? { note: c.note, checkedById: c.checkedById, checkedByName: checkerName ?? "", checkedByRole: c.checkedByRole, checkedAt: c.checkedAt } : null,
+      decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedByRole: d.decidedByRole, decidedAt: d.decidedAt } : null,
       openComments: openBy.get(r.id) ?? 0,
     }));
 }
@@ -162,9 +171,10 @@ export async function listFoundationRevisionStates(actor: Actor, projectId: stri
     .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
     .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)));
   const revs = await db
-    .select({ id: revisions.id, foundationId: revisions.foundationId, sequence: revisions.sequence, label: revisions.label, vendorSubmissionId: revisions.vendorSubmissionId, issuedAt: revisions.issuedAt, outcome: revisionDecisions.outcome })
+    .select({ id: revisions.id, foundationId: revisions.foundationId, sequence: revisions.sequence, label: revisions.label, vendorSubmissionId: revisions.vendorSubmissionId, issuedAt: revisions.issuedAt, outcome: revisionDecisions.outcome, checkId: revisionChecks.id })
     .from(revisions)
     .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
+    .leftJoin(revisionChecks, eq(revisionChecks.revisionId, revisions.id))
     .where(eq(revisions.projectId, projectId))
     .orderBy(asc(revisions.foundationId), desc(revisions.sequence));
   const open = await db
@@ -195,7 +205,7 @@ export async function listFoundationRevisionStates(actor: Actor, projectId: stri
         ? {
             id: top.id,
             label: top.label,
-            status: revisionStatus(top.outcome, false),
+            status: revisionStatus(top.outcome, false, top.checkId !== null),
             vendorSubmissionId: top.vendorSubmissionId,
             supersededByNewerVersion: top.vendorSubmissionId !== null && superseded.has(top.vendorSubmissionId),
             issuedAt: top.issuedAt,
@@ -228,7 +238,7 @@ export async function issueRevision(
   foundationId: string,
   // `analyse`: the server passes its analysis pool (off the request thread); the engine in
   // this thread by default (scripts and tests). An AppError from it (busy, time limit) is passed on.
-  opts: { expectedDraftVersion?: number; analyse?: (input: AnalysisInput) => Promise<AnalysisResult>; note?: string } = {},
+  opts: { expectedDraftVersion?: number; purpose?: RevisionPurpose; analyse?: (input: AnalysisInput) => Promise<AnalysisResult>; note?: string } = {},
 ): Promise<IssueOutcome> {
   const analyseDraft = opts.analyse ?? (async (input: AnalysisInput) => analyse(input));
   if (!(await allowed(actor, projectId, "revision.issue"))) return { ok: false, reason: "forbidden" };
@@ -275,6 +285,7 @@ export async function issueRevision(
         issuedById: actor.userId,
         editorIds: draft.editorIds,
         note: opts.note ?? "",
+        purpose: opts.purpose ?? "issued-for-check",
       })
       .returning();
     if (!row) throw new Error("revision insert returned nothing");
@@ -284,7 +295,7 @@ export async function issueRevision(
       projectId,
       actorId: actor.userId,
       action: "revision.issued",
-      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds, note: opts.note ?? "" },
+      detail: { foundationId, tag: foundation.tag, revisionId: row.id, label: row.label, purpose: row.purpose, inputHash, draftVersion: draft.version, vendorSubmissionId: draft.vendorSubmissionId, editorIds: draft.editorIds, note: opts.note ?? "" },
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId: row.id });
     if (!summary) throw new Error("issued revision not readable");
@@ -295,6 +306,7 @@ export async function issueRevision(
 export type DecideOutcome =
   | { ok: true; revision: RevisionSummary }
   | { ok: false; reason: "forbidden" | "not-found" | "own-revision" | "draft-editor" | "superseded" }
+  | { ok: false; reason: "one-step" | "not-checked" | "own-check" | "already-checked" }
   | { ok: false; reason: "already-decided"; outcome: "returned" | "approved" };
 
 /**
@@ -309,35 +321,65 @@ export async function decideRevision(
   projectId: string,
   foundationId: string,
   revisionId: string,
-  decision: { outcome: "returned" | "approved"; note: string },
+  decision: { outcome: "checked" | "returned" | "approved"; note: string },
 ): Promise<DecideOutcome> {
-  if (!(await allowed(actor, projectId, "revision.decide"))) return { ok: false, reason: "forbidden" };
+  const member = await getMembership(actor, projectId);
+  if (!member || !roleAllows(member.role, "revision.decide")) return { ok: false, reason: "forbidden" };
   return getDb().transaction(async (tx) => {
-    const [rev] = await tx.select().from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
+    const [rev] = await tx
+      .select({ id: revisions.id, label: revisions.label, issuedById: revisions.issuedById, editorIds: revisions.editorIds, signOffSteps: projects.signOffSteps })
+      .from(revisions)
+      .innerJoin(projects, eq(projects.id, revisions.projectId))
+      .where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
     if (!rev) return { ok: false, reason: "not-found" } as const;
     if (rev.issuedById === actor.userId) return { ok: false, reason: "own-revision" } as const;
     // Four eyes: nobody who wrote the revision decides on it, whoever pressed "issue".
     if (rev.editorIds.includes(actor.userId)) return { ok: false, reason: "draft-editor" } as const;
-    const inserted = await tx.execute<{ id: string }>(sql`
-      INSERT INTO ${revisionDecisions} (revision_id, outcome, note, decided_by_id)
-      SELECT r.id, ${decision.outcome}, ${decision.note}, ${actor.userId}::uuid
-      FROM ${revisions} r
-      WHERE r.id = ${revisionId}::uuid
-        AND r.issued_by_id <> ${actor.userId}::uuid
-        AND NOT (${actor.userId}::uuid = ANY(r.editor_ids))
-        AND NOT EXISTS (SELECT 1 FROM ${revisions} later WHERE later.foundation_id = r.foundation_id AND later.sequence > r.sequence)
-      ON CONFLICT (revision_id) DO NOTHING
-      RETURNING id`);
-    if (!inserted.rows[0]) {
+    const twoStep = rev.signOffSteps === "two";
+    // A check row is immutable once written, so reading it here is enough for the approval's test.
+    const [check] = await tx.select({ checkedById: revisionChecks.checkedById }).from(revisionChecks).where(eq(revisionChecks.revisionId, revisionId));
+    if (decision.outcome === "checked") {
+      if (!twoStep) return { ok: false, reason: "one-step" } as const;
+      const [decided] = await tx.select({ outcome: revisionDecisions.outcome }).from(revisionDecisions).where(eq(revisionDecisions.revisionId, revisionId));
+      if (decided) return { ok: false, reason: "already-decided", outcome: decided.outcome } as const;
+      const checked = await tx.execute<{ id: string }>(sql`
+        INSERT INTO ${revisionChecks} (revision_id, note, checked_by_id, checked_by_role)
+        SELECT r.id, ${decision.note}, ${actor.userId}::uuid, ${member.role}
+        FROM ${revisions} r
+        WHERE r.id = ${revisionId}::uuid
+          AND r.issued_by_id <> ${actor.userId}::uuid
+          AND NOT (${actor.userId}::uuid = ANY(r.editor_ids))
+          AND NOT EXISTS (SELECT 1 FROM ${revisions} later WHERE later.foundation_id = r.foundation_id AND later.sequence > r.sequence)
+          AND NOT EXISTS (SELECT 1 FROM ${revisionDecisions} d WHERE d.revision_id = r.id)
+        ON CONFLICT (revision_id) DO NOTHING
+        RETURNING id`);
+      if (!checked.rows[0]) return { ok: false, reason: check ? "already-checked" : "superseded" } as const;
+    } else {
+      // Two steps: the approval needs the check first, by someone else (a trigger refuses the checker too).
+      if (twoStep && decision.outcome === "approved" && !check) return { ok: false, reason: "not-checked" } as const;
+      // Also after a switch back to one step: a checked revision is approved by someone else.
+      if (decision.outcome === "approved" && check?.checkedById === actor.userId) return { ok: false, reason: "own-check" } as const;
+      const inserted = await tx.execute<{ id: string }>(sql`
+        INSERT INTO ${revisionDecisions} (revision_id, outcome, note, decided_by_id, decided_by_role)
+        SELECT r.id, ${decision.outcome}, ${decision.note}, ${actor.userId}::uuid, ${member.role}
+        FROM ${revisions} r
+        WHERE r.id = ${revisionId}::uuid
+          AND r.issued_by_id <> ${actor.userId}::uuid
+          AND NOT (${actor.userId}::uuid = ANY(r.editor_ids))
+          AND NOT EXISTS (SELECT 1 FROM ${revisions} later WHERE later.foundation_id = r.foundation_id AND later.sequence > r.sequence)
+        ON CONFLICT (revision_id) DO NOTHING
+        RETURNING id`);
+      if (!inserted.rows[0]) {
       const [existing] = await tx.select({ outcome: revisionDecisions.outcome }).from(revisionDecisions).where(eq(revisionDecisions.revisionId, revisionId));
       if (existing) return { ok: false, reason: "already-decided", outcome: existing.outcome } as const;
       return { ok: false, reason: "superseded" } as const;
+      }
     }
     await tx.insert(auditEvents).values({
       projectId,
       actorId: actor.userId,
-      action: decision.outcome === "approved" ? "revision.approved" : "revision.returned",
-      detail: { foundationId, revisionId, label: rev.label, note: decision.note },
+      action: decision.outcome === "approved" ? "revision.approved" : decision.outcome === "checked" ? "revision.checked" : "revision.returned",
+      detail: { foundationId, revisionId, label: rev.label, note: decision.note, role: member.role },
     });
     const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId });
     if (!summary) throw new Error("decided revision not readable");
@@ -534,7 +576,10 @@ export async function createSeedRevision(args: {
   editorIds?: string[];
   vendorSubmissionId?: string | null;
   note?: string;
-  decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedAt: Date };
+  purpose?: RevisionPurpose;
+  /** The first signature of a two-step sign-off. */
+  check?: { note: string; checkedById: string; checkedByRole: string; checkedAt: Date };
+  decision?: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByRole?: string; decidedAt: Date };
   comments?: { fieldPath: string | null; body: string; authorId: string; resolved?: boolean; answer?: { body: string; authorId: string } }[];
 }): Promise<string> {
   return getDb().transaction(async (tx) => {
@@ -557,6 +602,7 @@ export async function createSeedRevision(args: {
         issuedAt: args.issuedAt,
         editorIds: args.editorIds ?? [],
         note: args.note ?? "",
+        purpose: args.purpose ?? "issued-for-check",
         createdAt: args.issuedAt,
         updatedAt: args.issuedAt,
       })
@@ -581,10 +627,67 @@ export async function createSeedRevision(args: {
         await audit("revision.comment-answered", c.answer.authorId, at2, { fieldPath: c.fieldPath });
       }
     }
+    if (args.check) {
+      await tx.insert(revisionChecks).values({ revisionId: row.id, note: args.check.note, checkedById: args.check.checkedById, checkedByRole: args.check.checkedByRole, checkedAt: args.check.checkedAt });
+      await audit("revision.checked", args.check.checkedById, args.check.checkedAt, { note: args.check.note, role: args.check.checkedByRole });
+    }
     if (args.decision) {
-      await tx.insert(revisionDecisions).values({ revisionId: row.id, outcome: args.decision.outcome, note: args.decision.note, decidedById: args.decision.decidedById, decidedAt: args.decision.decidedAt });
+      await tx.insert(revisionDecisions).values({ revisionId: row.id, outcome: args.decision.outcome, note: args.decision.note, decidedById: args.decision.decidedById, decidedByRole: args.decision.decidedByRole ?? null, decidedAt: args.decision.decidedAt });
       await audit(args.decision.outcome === "approved" ? "revision.approved" : "revision.returned", args.decision.decidedById, args.decision.decidedAt, { note: args.decision.note });
     }
     return row.id;
   });
+}
+
+/** A vendor submission as a package names it: its request (company and date), version, file and fingerprint. */
+export interface RevisionVendorSubmission {
+  requestId: string;
+  companyName: string;
+  requestedAt: Date;
+  version: number;
+  source: "workbook" | "csv" | "form";
+  fileName: string | null;
+  sha256: string;
+  submittedAt: Date;
+}
+
+/** The submission a revision used, or undefined when none or not readable by the actor. */
+export async function getRevisionVendorSubmission(actor: Actor, projectId: string, submissionId: string | null): Promise<RevisionVendorSubmission | undefined> {
+  if (!submissionId || !(await allowed(actor, projectId, "revision.read"))) return undefined;
+  const [row] = await getDb()
+    .select({
+      requestId: vendorRequests.id,
+      companyName: companies.name,
+      requestedAt: vendorRequests.createdAt,
+      version: vendorSubmissions.version,
+      source: vendorSubmissions.source,
+      fileName: storedFiles.fileName,
+      sha256: vendorSubmissions.sha256,
+      submittedAt: vendorSubmissions.createdAt,
+    })
+    .from(vendorSubmissions)
+    .innerJoin(vendorRequests, eq(vendorRequests.id, vendorSubmissions.requestId))
+    .innerJoin(companies, eq(companies.id, vendorRequests.companyId))
+    .leftJoin(storedFiles, eq(storedFiles.id, vendorSubmissions.fileId))
+    .where(and(eq(vendorSubmissions.id, submissionId), eq(vendorSubmissions.projectId, projectId)));
+  return row;
+}
+
+/** A revision's review comments with their resolution, oldest first, for the package's trail. */
+export async function listRevisionCommentsWithResolution(
+  actor: Actor,
+  projectId: string,
+  foundationId: string,
+  revisionId: string,
+): Promise<(RevisionComment & { resolvedByName: string | null; resolvedAt: Date | null })[]> {
+  const comments = await listRevisionComments(actor, projectId, foundationId, revisionId);
+  if (!comments?.length) return [];
+  const resolver = alias(users, "resolver");
+  const rows = await getDb()
+    .select({ id: revisionComments.id, resolvedAt: revisionComments.resolvedAt, resolvedByName: resolver.name })
+    .from(revisionComments)
+    .leftJoin(resolver, eq(resolver.id, revisionComments.resolvedById))
+    .where(eq(revisionComments.revisionId, revisionId));
+  const by = new Map(rows.map((r) => [r.id, r]));
+  return comments.map((c) => ({ ...c, resolvedByName: c.resolved ? (by.get(c.id)?.resolvedByName ?? null) : null, resolvedAt: c.resolved ? (by.get(c.id)?.resolvedAt ?? null) : null }));
 }

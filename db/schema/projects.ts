@@ -27,6 +27,9 @@ export const projects = pgTable("projects", {
   revisionScheme: text("revision_scheme", { enum: ["letters", "numbers"] }).notNull().default("letters"),
   // Paper of the printed calculation package (workbook page setup and PDF): A4 or US Letter.
   paperSize: text("paper_size", { enum: ["a4", "letter"] }).notNull().default("a4"),
+  // Sign-off of a revision: one step (a checker or manager approves) or two (checked by a
+  // checker, then approved by a different checker or a manager).
+  signOffSteps: text("sign_off_steps", { enum: ["one", "two"] }).notNull().default("one"),
   createdById: uuid("created_by_id").references(() => users.id, { onDelete: "set null" }),
   ...stamps,
 });

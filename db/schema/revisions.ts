@@ -44,6 +44,10 @@ export const revisions = pgTable(
     // The designer's revision note: what changed since the previous revision and why. Required
     // at issue (zod); revisions issued before the note existed keep '' (shown as "no note").
     note: text("note").notNull().default(""),
+    // What the revision is issued for (modules/revisions REVISION_PURPOSES), chosen when issuing.
+    purpose: text("purpose", { enum: ["issued-for-check", "issued-for-information", "issued-for-approval", "issued-for-construction", "as-built"] })
+      .notNull()
+      .default("issued-for-check"),
     ...stamps,
   },
   (t) => [
@@ -67,7 +71,28 @@ export const revisionDecisions = pgTable("revision_decisions", {
   decidedById: uuid("decided_by_id")
     .notNull()
     .references(() => users.id, { onDelete: "restrict" }),
+  // The decider's project role at the time (null on decisions recorded before roles were kept).
+  decidedByRole: text("decided_by_role"),
   decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
+  ...stamps,
+});
+
+// The first step of a two-step sign-off: a checker's "checked" (the approval that follows,
+// by someone else, is a revision_decisions row). UNIQUE on the revision; immutable; triggers
+// refuse the revision's authors, as for decisions, and refuse the checker as approver.
+export const revisionChecks = pgTable("revision_checks", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  revisionId: uuid("revision_id")
+    .notNull()
+    .unique("revision_checks_revision_uq")
+    .references(() => revisions.id, { onDelete: "restrict" }),
+  note: text("note").notNull().default(""),
+  checkedById: uuid("checked_by_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "restrict" }),
+  // The checker's project role when checking, as signed on the cover.
+  checkedByRole: text("checked_by_role").notNull(),
+  checkedAt: timestamp("checked_at", { withTimezone: true }).notNull().defaultNow(),
   ...stamps,
 });
 
@@ -96,4 +121,5 @@ export const revisionComments = pgTable(
 
 export type RevisionRow = typeof revisions.$inferSelect;
 export type RevisionDecisionRow = typeof revisionDecisions.$inferSelect;
+export type RevisionCheckRow = typeof revisionChecks.$inferSelect;
 export type RevisionCommentRow = typeof revisionComments.$inferSelect;

@@ -5,7 +5,7 @@
 // honours too). The labels are inputs so that a later sign-off scheme can supply its own
 // status text.
 import type ExcelJS from "exceljs";
-import { revisionStatusLabels } from "@/modules/revisions";
+import type { RevisionStatus } from "@/modules/revisions";
 import type { PackageRevisionSummary, PackageSignOff, PaperSize, RevisionPackageData } from "./types";
 
 /** Excel's paper codes (ECMA-376 part 1, 18.3.1.64 pageSetup: 1 Letter, 9 A4). */
@@ -24,19 +24,50 @@ export function packageDocumentNumber(projectCode: string, foundationTag: string
   return `${projectCode}-${foundationTag}-CP`;
 }
 
-/** The status every page header carries: the revision's status, with "not for construction" unless approved. */
-export function packageStatusText(r: Pick<PackageRevisionSummary, "status">): string {
-  const label = revisionStatusLabels[r.status];
-  return r.status === "approved" ? label : `${label}: not for construction`;
+const HEADER_STATUS: Record<Exclude<RevisionStatus, "superseded">, string> = {
+  "in-check": "in check: not for construction",
+  checked: "checked, awaiting approval: not for construction",
+  returned: "returned: not for construction",
+  approved: "approved",
+};
+
+/**
+ * The status every page header carries: "approved" only for an approved revision; any
+ * other state says "not for construction", a superseded one names the revision after it.
+ */
+export function packageStatusText(r: Pick<PackageRevisionSummary, "status" | "sequence">, history: readonly Pick<PackageRevisionSummary, "label" | "sequence">[] = []): string {
+  if (r.status !== "superseded") return HEADER_STATUS[r.status];
+  const next = history.filter((h) => h.sequence > r.sequence).sort((a, b) => a.sequence - b.sequence)[0];
+  return next ? `superseded by ${next.label}: not for construction` : "superseded: not for construction";
 }
 
-/** The sign-off block from what a revision records today: the issuer, and the one decision (checked, and approved when it approved). */
+const roleName = (role: string | null | undefined): string => (role ? ` (${role})` : "");
+
+/**
+ * The sign-off block from what a revision records: the issuer; in two steps the check
+ * (first signature) and the approval by someone else; in one step the decision, whose
+ * approver is also its checker. Each line with name, role and date.
+ */
 export function revisionSignOffs(r: PackageRevisionSummary): PackageSignOff[] {
   const d = r.decision;
+  const c = r.check ?? null;
+  const issued: PackageSignOff = { role: "Prepared and issued", name: r.issuedByName, date: r.issuedAt };
+  if (c) {
+    return [
+      issued,
+      { role: "Checked", name: `${c.checkedByName}${roleName(c.checkedByRole)}`, date: c.checkedAt },
+      {
+        role: "Approved",
+        name: d?.outcome === "approved" ? `${d.decidedByName}${roleName(d.decidedByRole)}` : d ? `not approved (returned by ${d.decidedByName}${roleName(d.decidedByRole)})` : "not yet",
+        date: d?.decidedAt ?? null,
+      },
+    ];
+  }
+  const who = d ? `${d.decidedByName}${roleName(d.decidedByRole)}` : "not yet";
   return [
-    { role: "Prepared and issued", name: r.issuedByName, date: r.issuedAt },
-    { role: "Checked", name: d ? d.decidedByName : "not yet", date: d?.decidedAt ?? null },
-    { role: "Approved", name: d?.outcome === "approved" ? d.decidedByName : d ? "not approved (returned)" : "not yet", date: d?.outcome === "approved" ? d.decidedAt : null },
+    issued,
+    { role: "Checked", name: who, date: d?.decidedAt ?? null },
+    { role: "Approved", name: d?.outcome === "approved" ? who : d ? "not approved (returned)" : "not yet", date: d?.outcome === "approved" ? d.decidedAt : null },
   ];
 }
 
@@ -45,7 +76,7 @@ export function printLabels(d: RevisionPackageData): PrintLabels {
     projectCode: d.project.code,
     documentNumber: d.documentNumber ?? packageDocumentNumber(d.project.code, d.foundation.tag),
     revisionLabel: d.revision.label,
-    statusText: d.statusText ?? packageStatusText(d.revision),
+    statusText: d.statusText ?? packageStatusText(d.revision, d.history),
     paperSize: d.project.paperSize ?? "a4",
   };
 }

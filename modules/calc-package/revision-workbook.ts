@@ -7,7 +7,7 @@ import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_B
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
-import { revisionStatusLabels } from "@/modules/revisions";
+import { revisionPurposeLabels, revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
 import { packageFigures, type PackageFigure } from "./figures";
@@ -55,6 +55,13 @@ export function signatures(signOffs: PackageSignOff[]): { checked: string; appro
   return { checked: signOffs.find((s) => s.role === "Checked")?.name ?? "not yet", approved: signOffs.find((s) => s.role === "Approved")?.name ?? "not yet" };
 }
 
+/** The vendor submission named by request, version, file, SHA-256 and date (never by its internal id). */
+export function vendorSubmissionText(d: Pick<RevisionPackageData, "vendorSubmission" | "revision">): string {
+  const v = d.vendorSubmission;
+  if (v) return `${v.request}, version ${v.version}, ${v.fileName ?? "entered in the form"}, SHA-256 ${v.sha256}, submitted ${v.submittedAt.toISOString().slice(0, 10)}`;
+  return d.revision.vendorSubmissionId ? "a vendor submission (details not available)" : "none recorded";
+}
+
 function cover(w: SheetWriter, d: RevisionPackageData): void {
   const { project, foundation, revision } = d;
   const signOffs = d.signOffs ?? revisionSignOffs(revision);
@@ -67,6 +74,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
   w.pairs("Document", [
     { label: "Document number", value: labels.documentNumber },
     { label: "Revision", value: revision.label },
+    { label: "Purpose", value: revisionPurposeLabels[revision.purpose ?? "issued-for-check"] },
     { label: "Status", value: labels.statusText },
   ]);
   w.pairs("Project", [
@@ -97,7 +105,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
     { label: "Open review comments", value: revision.openComments, kind: "count" },
     { label: "Engine version", value: revision.engineVersion },
     { label: "Input fingerprint (SHA-256 of the canonical input)", value: revision.inputHash },
-    { label: "Vendor submission used", value: revision.vendorSubmissionId ?? "none recorded" },
+    { label: "Vendor submission used", value: vendorSubmissionText(d) },
     { label: "Workbook written" + UTC, value: d.generatedAt },
     { label: "Written for", value: d.generatedByName },
   ]);
@@ -657,6 +665,9 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       { header: `Issued${UTC}` },
       { header: "Issued by" },
       { header: "Status" },
+      { header: "Purpose" },
+      { header: "Checked by" },
+      { header: `Checked${UTC}` },
       { header: "Decision" },
       { header: "Decided by" },
       { header: `Decided${UTC}` },
@@ -672,8 +683,11 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       h.issuedAt,
       h.issuedByName,
       revisionStatusLabels[h.status],
+      revisionPurposeLabels[h.purpose ?? "issued-for-check"],
+      h.check ? `${h.check.checkedByName} (${h.check.checkedByRole})` : null,
+      h.check?.checkedAt ?? null,
       h.decision?.outcome ?? "none yet",
-      h.decision?.decidedByName ?? null,
+      h.decision ? `${h.decision.decidedByName}${h.decision.decidedByRole ? ` (${h.decision.decidedByRole})` : ""}` : null,
       h.decision?.decidedAt ?? null,
       h.decision?.note || null,
       h.openComments,
@@ -681,6 +695,21 @@ function history(w: SheetWriter, d: RevisionPackageData): void {
       h.engineVersion,
       h.note || null,
     ]),
+  );
+  w.pairs("Vendor data", [{ label: `Vendor submission used by revision ${d.revision.label}`, value: vendorSubmissionText(d) }]);
+  const byId = new Map((d.comments ?? []).map((c) => [c.id, c]));
+  w.table(
+    `Review comments on revision ${d.revision.label} (oldest first)`,
+    [{ header: "Comment" }, { header: "On" }, { header: "By" }, { header: `Date${UTC}` }, { header: "Resolution" }],
+    (d.comments ?? []).map((c) => {
+      const parent = c.parentId ? byId.get(c.parentId) : undefined;
+      const resolution = parent
+        ? `answer to ${parent.authorName}'s comment of ${parent.createdAt.toISOString().slice(0, 10)}`
+        : c.resolved
+          ? `resolved${c.resolvedByName ? ` by ${c.resolvedByName}` : ""}${c.resolvedAt ? ` on ${c.resolvedAt.toISOString().slice(0, 10)}` : ""}`
+          : "open";
+      return [c.body, c.fieldPath ?? "the whole revision", c.authorName, c.createdAt, resolution];
+    }),
   );
   w.table(
     "Review trail (newest first)",

@@ -1,7 +1,7 @@
 // What the builders take: plain data the route handlers read from the database, so the
 // builders stay pure (no next, react or db) and tests can feed them directly.
 import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
-import type { RevisionStatus } from "@/modules/revisions";
+import type { RevisionPurpose, RevisionStatus } from "@/modules/revisions";
 import type { UnitSystemKey } from "@/modules/units";
 
 export interface PackageProject {
@@ -15,6 +15,29 @@ export interface PackageProject {
 }
 
 export type PaperSize = "a4" | "letter";
+
+/** A review comment of the revision, with its resolution, for the trail sheet. */
+export interface PackageComment {
+  id: string;
+  parentId: string | null;
+  fieldPath: string | null;
+  body: string;
+  authorName: string;
+  createdAt: Date;
+  resolved: boolean;
+  resolvedByName: string | null;
+  resolvedAt: Date | null;
+}
+
+/** The vendor submission a revision used, named as a reader can find it. */
+export interface PackageVendorSubmission {
+  /** e.g. "request to Acme Pumps of 2026-03-02" */
+  request: string;
+  version: number;
+  fileName: string | null;
+  sha256: string;
+  submittedAt: Date;
+}
 
 /** One line of the cover's sign-off block: who did what and when. */
 export interface PackageSignOff {
@@ -33,9 +56,13 @@ export interface PackageRevisionSummary {
   label: string;
   sequence: number;
   status: RevisionStatus;
+  /** What it was issued for; "issued for check" when absent. */
+  purpose?: RevisionPurpose;
   issuedAt: Date;
   issuedByName: string;
-  decision: { outcome: "returned" | "approved"; note: string; decidedByName: string; decidedAt: Date } | null;
+  /** The first signature of a two-step sign-off. */
+  check?: { note: string; checkedByName: string; checkedByRole: string; checkedAt: Date } | null;
+  decision: { outcome: "returned" | "approved"; note: string; decidedByName: string; decidedByRole?: string | null; decidedAt: Date } | null;
   openComments: number;
   inputHash: string;
   engineVersion: string;
@@ -61,6 +88,10 @@ export interface RevisionPackageData {
   history: PackageRevisionSummary[];
   /** The foundation's revision events, newest first. */
   trail: PackageTrailEntry[];
+  /** The revision's review comments and answers, oldest first. */
+  comments?: PackageComment[];
+  /** The vendor submission the revision used (null: none; absent: not read). */
+  vendorSubmission?: PackageVendorSubmission | null;
   generatedAt: Date;
   generatedByName: string;
   /**

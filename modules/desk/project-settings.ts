@@ -13,6 +13,8 @@ export const projectSettingsFormSchema = z.object({
   revisionScheme: z.enum(["letters", "numbers"], "Pick a revision-label scheme"),
   // Optional so a form (or a client) that predates the setting keeps the stored paper.
   paperSize: z.enum(["a4", "letter"], "Pick A4 or Letter").optional(),
+  // One-step or two-step sign-off of revisions; optional like the paper.
+  signOffSteps: z.enum(["one", "two"], "Pick one-step or two-step sign-off").optional(),
   frequencySeparation: optionalNumber((n) => n.gt(0, "Must lie in (0, 1)").lt(1, "Must lie in (0, 1)")),
   maxDisplacementPeakUm: optionalNumber((n) => n.gt(0, "Must be greater than 0").max(10_000, "At most 10 000 µm")),
   maxVelocityPeakMmS: optionalNumber((n) => n.gt(0, "Must be greater than 0").max(1_000, "At most 1 000 mm/s")),
@@ -37,6 +39,8 @@ export interface ProjectSettings {
   revisionScheme: "letters" | "numbers";
   /** Absent: keep the stored paper size. */
   paperSize?: PaperSize;
+  /** Absent: keep the stored sign-off. */
+  signOffSteps?: "one" | "two";
   criteriaDefaults: Record<string, number>;
   soilBand: { lowerFactor?: number; upperFactor?: number };
 }
@@ -53,6 +57,7 @@ export function settingsFromForm(f: ProjectSettingsForm): ProjectSettings {
     units: f.units,
     revisionScheme: f.revisionScheme,
     ...(f.paperSize ? { paperSize: f.paperSize } : {}),
+    ...(f.signOffSteps ? { signOffSteps: f.signOffSteps } : {}),
     criteriaDefaults: criteria,
     soilBand: {
       ...(f.soilBandLower !== undefined ? { lowerFactor: f.soilBandLower } : {}),

@@ -3,5 +3,5 @@ export { canonicalInputHash, canonicalJson } from "./canonical-hash";
 export { diffDocuments, diffRevisions, flippedChecks, listLeafPaths, withoutLongSeries, type ResultWithoutSeries, type CheckFlip, type DiffEntry, type DiffKind, type DiffOptions, type LeafValue, type RevisionDiff, type SectionDiff } from "./diff";
 export { checkKeyLabel, fieldLabel, parseFieldPath } from "./field-labels";
 export { isLetterLabel, isNumberLabel, letterLabel, nextRevisionLabel, type RevisionScheme } from "./labels";
-export { isApprovalStale, revisionStatus, revisionStatusLabels, type RevisionStatus } from "./status";
+export { isApprovalStale, REVISION_PURPOSES, revisionPurposeLabels, revisionStatus, revisionStatusLabels, signOffStepsLabels, type RevisionPurpose, type RevisionStatus, type SignOffSteps } from "./status";
 export { revisionCommentSchema, revisionDecisionSchema, revisionIssueSchema, resolveCommentSchema } from "./schemas";

@@ -1,6 +1,7 @@
 // The shapes a client sends for the revision commands: one schema for the form
 // (server action) and the JSON body (route handler).
 import { z } from "zod";
+import { REVISION_PURPOSES } from "./status";
 
 const uuid = (what: string) => z.uuid(`${what} is not a valid id`);
 
@@ -12,13 +13,16 @@ export const revisionIssueSchema = z.object({
   draftVersion: z.coerce.number("Draft version must be a number").int("Draft version must be a whole number").min(1, "Save the draft before issuing it").optional(),
   // What changed since the previous revision and why: the checker reads it first, the package prints it.
   note: z.string("Write a revision note: what changed and why").trim().min(1, "Write a revision note: what changed and why").max(4000, "Keep the revision note under 4000 characters"),
+  // What the revision is issued for; "issued for check" when not said.
+  purpose: z.enum(REVISION_PURPOSES, `Purpose must be one of: ${REVISION_PURPOSES.join(", ")}`).default("issued-for-check"),
 });
 
 export const revisionDecisionSchema = z.object({
   projectId: uuid("Project"),
   foundationId: uuid("Foundation"),
   revisionId: uuid("Revision"),
-  outcome: z.enum(["returned", "approved"], "Choose return or approve"),
+  // "checked" is the first signature of a two-step sign-off (refused in a one-step project).
+  outcome: z.enum(["checked", "returned", "approved"], "Choose checked, return or approve"),
   note: z.string().trim().max(4000, "Keep the note under 4000 characters").default(""),
 });
 

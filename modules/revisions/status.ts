@@ -1,19 +1,42 @@
 // The state of a revision, derived (the revision row itself never changes): a
 // decision row makes it returned or approved; a later revision of the same
 // foundation supersedes it.
-export type RevisionStatus = "in-check" | "returned" | "approved" | "superseded";
+// In a two-step project a check row (the first signature) makes it "checked" until the
+// approval or a return.
+export type RevisionStatus = "in-check" | "checked" | "returned" | "approved" | "superseded";
 
 export const revisionStatusLabels: Record<RevisionStatus, string> = {
   "in-check": "in check",
+  checked: "checked, awaiting approval",
   returned: "returned with comments",
   approved: "approved",
   superseded: "superseded",
 };
 
-export function revisionStatus(decision: "returned" | "approved" | null | undefined, hasLaterRevision: boolean): RevisionStatus {
+export function revisionStatus(decision: "returned" | "approved" | null | undefined, hasLaterRevision: boolean, checked = false): RevisionStatus {
   if (hasLaterRevision) return "superseded";
-  return decision ?? "in-check";
+  return decision ?? (checked ? "checked" : "in-check");
 }
+
+/** How a project signs a revision off: one step (approved), or two (checked, then approved by someone else). */
+export type SignOffSteps = "one" | "two";
+
+export const signOffStepsLabels: Record<SignOffSteps, string> = {
+  one: "one step: a checker or manager approves",
+  two: "two steps: checked by a checker, then approved by a manager or another checker",
+};
+
+/** What a revision is issued for (our own fixed list), chosen when issuing. */
+export const REVISION_PURPOSES = ["issued-for-check", "issued-for-information", "issued-for-approval", "issued-for-construction", "as-built"] as const;
+export type RevisionPurpose = (typeof REVISION_PURPOSES)[number];
+
+export const revisionPurposeLabels: Record<RevisionPurpose, string> = {
+  "issued-for-check": "issued for check",
+  "issued-for-information": "issued for information",
+  "issued-for-approval": "issued for approval",
+  "issued-for-construction": "issued for construction",
+  "as-built": "as built",
+};
 
 /**
  * An approved foundation whose vendor data has moved on: the draft now uses another

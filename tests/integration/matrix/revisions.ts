@@ -67,6 +67,7 @@ const revisionParams = async (fx: Fixture) => {
 export const routeCases: RouteCase[] = [
   { route: base, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await foundationParams(fx) }) },
   { route: base, method: "POST", allowed: [...permissionMap["revision.issue"]], request: async (fx) => ({ params: await foundationParams(fx), body: { note: "Issued for check." } }) },
+  { route: base, method: "POST", allowed: [...permissionMap["revision.issue"]], request: async (fx) => ({ params: await foundationParams(fx), body: { note: "Issued for construction.", purpose: "issued-for-construction" } }) },
   // Without from/to an allowed caller gets 400 (past the guard); the comparison itself is in revisions.test.ts.
   { route: `${base}/compare`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await foundationParams(fx) }) },
   { route: `${base}/[revisionId]`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
@@ -75,6 +76,14 @@ export const routeCases: RouteCase[] = [
     method: "POST",
     allowed: [...permissionMap["revision.decide"]],
     request: async (fx) => ({ params: await revisionParams(fx), body: { outcome: "approved", note: "" } }),
+  },
+  // The first signature of a two-step sign-off: the same permission; in the demo's one-step
+  // project an allowed caller meets 400 (outcome refused), past the guard.
+  {
+    route: `${base}/[revisionId]/decision`,
+    method: "POST",
+    allowed: [...permissionMap["revision.decide"]],
+    request: async (fx) => ({ params: await revisionParams(fx), body: { outcome: "checked", note: "" } }),
   },
   { route: `${base}/[revisionId]/comments`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
   {
@@ -106,6 +115,12 @@ export const actionCases: ActionCase[] = [
     action: decideRevisionAction,
     allowed: [...permissionMap["revision.decide"]],
     fields: async (fx) => ({ ...(await revisionParams(fx)), outcome: "approved", note: "" }),
+  },
+  {
+    name: "revision.decide",
+    action: decideRevisionAction,
+    allowed: [...permissionMap["revision.decide"]],
+    fields: async (fx) => ({ ...(await revisionParams(fx)), outcome: "checked", note: "" }),
   },
   {
     name: "revision.comment",

@@ -39,6 +39,11 @@ describe("revision status", () => {
     expect(revisionStatus("returned", false)).toBe("returned");
     expect(revisionStatus("approved", false)).toBe("approved");
     expect(revisionStatus("approved", true)).toBe("superseded");
+    // Two-step sign-off: a check without a decision is "checked"; a decision or a later revision wins.
+    expect(revisionStatus(null, false, true)).toBe("checked");
+    expect(revisionStatus("approved", false, true)).toBe("approved");
+    expect(revisionStatus("returned", false, true)).toBe("returned");
+    expect(revisionStatus(null, true, true)).toBe("superseded");
   });
 
   it("flags an approval whose vendor submission has since been replaced in the draft", () => {

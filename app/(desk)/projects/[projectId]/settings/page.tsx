@@ -24,6 +24,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ proje
           units: project.units,
           revisionScheme: project.revisionScheme,
           paperSize: project.paperSize,
+          signOffSteps: project.signOffSteps,
           frequencySeparation: num(c.frequencySeparation),
           maxDisplacementPeakUm: num(c.maxDisplacementPeak, 1e6),
           maxVelocityPeakMmS: num(c.maxVelocityPeak, 1e3),

@@ -23,7 +23,7 @@ export function SettingsForm({
   defaults,
 }: {
   projectId: string;
-  initial: Record<Key, string> & { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize: "a4" | "letter" };
+  initial: Record<Key, string> & { units: "si" | "us"; revisionScheme: "letters" | "numbers"; paperSize: "a4" | "letter"; signOffSteps: "one" | "two" };
   defaults: Record<Key, [string, string]>;
 }) {
   const [state, action] = useActionState(updateProjectSettingsAction as unknown as (s: FormState, f: FormData) => Promise<FormState>, null);
@@ -59,6 +59,16 @@ export function SettingsForm({
             <option value="letter">Letter (8.5 × 11 in)</option>
           </select>
           <p className="mt-1 text-2xs text-basalt-400">Page setup of the workbook and the size of the PDF.</p>
+        </div>
+        <div>
+          <label htmlFor="f-signoff" className="field-label">
+            Sign-off of a revision
+          </label>
+          <select id="f-signoff" name="signOffSteps" defaultValue={initial.signOffSteps} className="field-input">
+            <option value="one">One step: a checker or manager approves</option>
+            <option value="two">Two steps: checked, then approved by someone else</option>
+          </select>
+          <p className="mt-1 text-2xs text-basalt-400">Neither signature may be given by someone who wrote the revision.</p>
         </div>
       </div>
       <div className="slab grid grid-cols-1 gap-4 p-5 sm:grid-cols-2">

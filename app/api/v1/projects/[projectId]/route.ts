@@ -30,6 +30,7 @@ const patchSchema = z.strictObject({
   units: z.enum(["si", "us"]).optional(),
   revisionScheme: z.enum(["letters", "numbers"]).optional(),
   paperSize: z.enum(["a4", "letter"]).optional(),
+  signOffSteps: z.enum(["one", "two"], "signOffSteps must be \"one\" or \"two\"").optional(),
   criteriaDefaults: criteriaSchema.optional(),
   soilBand: z.strictObject({ lowerFactor: z.number().gt(0).max(1).optional(), upperFactor: z.number().min(1).max(10).optional() }).optional(),
 });
@@ -45,6 +46,7 @@ export const PATCH = defineRoute({
       units: body.units ?? current.units,
       revisionScheme: body.revisionScheme ?? current.revisionScheme,
       paperSize: body.paperSize ?? current.paperSize,
+      signOffSteps: body.signOffSteps ?? current.signOffSteps,
       criteriaDefaults: body.criteriaDefaults ?? current.criteriaDefaults,
       soilBand: body.soilBand ?? current.soilBand,
     };

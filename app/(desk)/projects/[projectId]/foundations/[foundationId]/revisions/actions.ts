@@ -36,7 +36,7 @@ export const decideRevisionAction = defineAction({
   handler: async (ctx, input) => {
     if (!ctx.auth) throw new AppError("unauthenticated");
     const rev = await decideOnRevision(ctx.auth.actor, input);
-    return { revisionId: rev.id, status: rev.status, message: rev.status === "approved" ? `Revision ${rev.label} approved.` : `Revision ${rev.label} returned with comments.` };
+    return { revisionId: rev.id, status: rev.status, message: rev.status === "approved" ? `Revision ${rev.label} approved.` : rev.status === "checked" ? `Revision ${rev.label} checked; it awaits approval by someone else.` : `Revision ${rev.label} returned with comments.` };
   },
   revalidate: (_d, i) => touched(i),
 });

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
-import { canonicalInputHash } from "@/modules/revisions";
+import { canonicalInputHash, revisionPurposeLabels } from "@/modules/revisions";
 import { getDraft } from "@/db/queries/drafts";
 import { getFoundation } from "@/db/queries/foundations";
 import { listRevisionHistory, listRevisions } from "@/db/queries/revisions";
@@ -78,6 +78,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                 <tr>
                   <th>Revision</th>
                   <th>Status</th>
+                  <th>Purpose</th>
                   <th>Issued</th>
                   <th>Decision</th>
                   <th>Note</th>
@@ -96,10 +97,14 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                     <td>
                       <RevisionStatusTag status={r.status} />
                     </td>
+                    <td className="text-xs">{revisionPurposeLabels[r.purpose]}</td>
                     <td className="text-xs">
                       {r.issuedByName}, {formatStamp(r.issuedAt)}
                     </td>
-                    <td className="text-xs">{r.decision ? `${r.decision.outcome === "approved" ? "approved" : "returned"} by ${r.decision.decidedByName}, ${formatStamp(r.decision.decidedAt)}` : "—"}</td>
+                    <td className="text-xs">
+                      {r.check ? `checked by ${r.check.checkedByName} (${r.check.checkedByRole}), ${formatStamp(r.check.checkedAt)}; ` : ""}
+                      {r.decision ? `${r.decision.outcome === "approved" ? "approved" : "returned"} by ${r.decision.decidedByName}, ${formatStamp(r.decision.decidedAt)}` : r.check ? "awaiting approval" : "—"}
+                    </td>
                     <td className="max-w-xs text-xs" data-testid="revision-note">
                       {r.note || <span className="text-basalt-400">no note recorded</span>}
                     </td>

@@ -3,6 +3,7 @@
 import { useActionState, useRef } from "react";
 import { useFormStatus } from "react-dom";
 import { FormMessage, SubmitButton, fieldErrorsOf, type FormState } from "@/app/_components/form-kit";
+import { REVISION_PURPOSES, revisionPurposeLabels } from "@/modules/revisions";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "./actions";
 
 type Act = (s: FormState, f: FormData) => Promise<FormState>;
@@ -40,6 +41,17 @@ export function IssueForm({ projectId, foundationId, draftVersion, failingChecks
       <input type="hidden" name="projectId" value={projectId} />
       <input type="hidden" name="foundationId" value={foundationId} />
       <input type="hidden" name="draftVersion" value={draftVersion} />
+      <label className="field-label" htmlFor="issue-purpose">
+        Purpose of the issue
+      </label>
+      <select id="issue-purpose" name="purpose" defaultValue="issued-for-check" className="field-input" data-testid="issue-purpose">
+        {REVISION_PURPOSES.map((p) => (
+          <option key={p} value={p}>
+            {revisionPurposeLabels[p]}
+          </option>
+        ))}
+      </select>
+      <FieldErrors state={state} name="purpose" />
       <label className="field-label" htmlFor="revision-note">
         Revision note: what changed and why
       </label>
@@ -77,7 +89,7 @@ export function IssueForm({ projectId, foundationId, draftVersion, failingChecks
   );
 }
 
-function DecisionButton({ outcome, children, className }: { outcome: "returned" | "approved"; children: string; className: string }) {
+function DecisionButton({ outcome, children, className }: { outcome: "checked" | "returned" | "approved"; children: string; className: string }) {
   const { pending } = useFormStatus();
   return (
     <button type="submit" name="outcome" value={outcome} className={className} disabled={pending} aria-busy={pending}>
@@ -86,8 +98,11 @@ function DecisionButton({ outcome, children, className }: { outcome: "returned" 
   );
 }
 
-/** The checker's (or manager's) verdict on a revision in check. */
-export function DecisionForm({ projectId, foundationId, revisionId }: { projectId: string; foundationId: string; revisionId: string }) {
+/**
+ * The checker's (or manager's) verdict on a revision in check. `step`: "approve" offers the
+ * approval (one step, or the second of two); "check" the first signature of two steps.
+ */
+export function DecisionForm({ projectId, foundationId, revisionId, step = "approve" }: { projectId: string; foundationId: string; revisionId: string; step?: "check" | "approve" }) {
   const [state, action] = useActionState(decideRevisionAction as unknown as Act, null);
   return (
     <form action={action} className="space-y-2" noValidate>
@@ -104,9 +119,15 @@ export function DecisionForm({ projectId, foundationId, revisionId }: { projectI
         <DecisionButton outcome="returned" className="btn-danger">
           Return with comments
         </DecisionButton>
-        <DecisionButton outcome="approved" className="btn-primary">
-          Approve revision
-        </DecisionButton>
+        {step === "check" ? (
+          <DecisionButton outcome="checked" className="btn-primary">
+            Mark checked (approval follows by someone else)
+          </DecisionButton>
+        ) : (
+          <DecisionButton outcome="approved" className="btn-primary">
+            Approve revision
+          </DecisionButton>
+        )}
       </div>
     </form>
   );

@@ -3,6 +3,7 @@ import { revisionStatusLabels, type RevisionStatus } from "@/modules/revisions";
 
 const tone: Record<RevisionStatus, string> = {
   "in-check": "bg-ochre-100 text-ochre-700",
+  checked: "bg-ochre-100 text-moss-700",
   returned: "bg-brick-100 text-brick-700",
   approved: "bg-moss-100 text-moss-700",
   superseded: "bg-basalt-100 text-basalt-600",

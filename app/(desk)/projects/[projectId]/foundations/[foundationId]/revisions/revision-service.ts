@@ -1,6 +1,6 @@
 import "server-only";
 import { AppError } from "@/modules/platform/errors";
-import { revisionStatusLabels } from "@/modules/revisions";
+import { revisionPurposeLabels, revisionStatusLabels, type RevisionPurpose } from "@/modules/revisions";
 import { getFoundation } from "@/db/queries/foundations";
 import {
   createRevisionComment,
@@ -40,8 +40,8 @@ async function notify(recipients: { email: string }[], subject: string, text: st
   }
 }
 
-export async function issueForCheck(actor: Actor, input: { projectId: string; foundationId: string; draftVersion?: number; note: string }): Promise<RevisionSummary> {
-  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion, analyse: analyseInPool, note: input.note });
+export async function issueForCheck(actor: Actor, input: { projectId: string; foundationId: string; draftVersion?: number; note: string; purpose?: RevisionPurpose }): Promise<RevisionSummary> {
+  const out = await issueRevision(actor, input.projectId, input.foundationId, { expectedDraftVersion: input.draftVersion, purpose: input.purpose, analyse: analyseInPool, note: input.note });
   if (!out.ok) {
     switch (out.reason) {
       case "forbidden":
@@ -64,14 +64,14 @@ export async function issueForCheck(actor: Actor, input: { projectId: string; fo
   await notify(
     checkers.filter((c) => c.userId !== actor.userId),
     `[Plinthwise] ${tag} revision ${rev.label} issued for check`,
-    `${rev.issuedByName} issued revision ${rev.label} of foundation ${tag} for check.\n\nRevision note: ${rev.note}\n\nOpen it: ${appUrl(revisionPath(input.projectId, input.foundationId, rev.id))}\n\nInput fingerprint (SHA-256): ${rev.inputHash}\nEngine version: ${rev.engineVersion}\n`,
+    `${rev.issuedByName} issued revision ${rev.label} of foundation ${tag} for check (purpose: ${revisionPurposeLabels[rev.purpose]}).\n\nRevision note: ${rev.note}\n\nOpen it: ${appUrl(revisionPath(input.projectId, input.foundationId, rev.id))}\n\nInput fingerprint (SHA-256): ${rev.inputHash}\nEngine version: ${rev.engineVersion}\n`,
   );
   return rev;
 }
 
 export async function decideOnRevision(
   actor: Actor,
-  input: { projectId: string; foundationId: string; revisionId: string; outcome: "returned" | "approved"; note: string },
+  input: { projectId: string; foundationId: string; revisionId: string; outcome: "checked" | "returned" | "approved"; note: string },
 ): Promise<RevisionSummary> {
   if (input.outcome === "returned" && !input.note) {
     throw new AppError("invalid_input", undefined, [{ path: "note", message: "Say what needs to change when returning a revision" }]);
@@ -89,6 +89,14 @@ export async function decideOnRevision(
         throw new AppError("forbidden", "You edited the draft of this revision, so you are one of its authors; four eyes: someone who did not write it must return or approve it.");
       case "superseded":
         throw new AppError("conflict", "A later revision has been issued; decide on that one instead.");
+      case "one-step":
+        throw new AppError("invalid_input", "This project signs revisions off in one step: approve or return it.", [{ path: "outcome", message: "\"checked\" is only used when the project's sign-off has two steps" }]);
+      case "not-checked":
+        throw new AppError("conflict", "This project signs revisions off in two steps: a checker must mark it checked before it is approved.");
+      case "own-check":
+        throw new AppError("forbidden", "You checked this revision; a different person (a manager or another checker) must approve it.");
+      case "already-checked":
+        throw new AppError("conflict", "This revision has already been checked; it now awaits approval.");
       case "already-decided":
         throw new AppError("conflict", `This revision has already been ${out.outcome === "approved" ? "approved" : "returned"}.`);
     }
@@ -97,6 +105,16 @@ export async function decideOnRevision(
   const decision = rev.decision;
   const tag = await tagOf(actor, input.projectId, input.foundationId);
   const issuer = await getUserContact(rev.issuedById);
+  if (input.outcome === "checked" && rev.check) {
+    // The second signature is someone else's: tell the approvers (and the issuer).
+    const approvers = (await listMemberEmailsByRole(input.projectId, ["checker", "manager"])).filter((m) => m.userId !== actor.userId && m.userId !== rev.issuedById);
+    await notify(
+      [...approvers, ...(issuer ? [issuer] : [])],
+      `[Plinthwise] ${tag} revision ${rev.label} checked, awaiting approval`,
+      `${rev.check.checkedByName} checked revision ${rev.label} of foundation ${tag}; it now awaits approval by a manager or another checker.\n${rev.check.note ? `\nNote: ${rev.check.note}\n` : ""}\nOpen it: ${appUrl(revisionPath(input.projectId, input.foundationId, rev.id))}\n`,
+    );
+    return rev;
+  }
   if (issuer && decision) {
     const verb = decision.outcome === "approved" ? "approved" : "returned with comments";
     await notify(

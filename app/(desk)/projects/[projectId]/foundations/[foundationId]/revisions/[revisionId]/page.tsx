@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
-import { fieldLabel, listLeafPaths } from "@/modules/revisions";
+import { fieldLabel, listLeafPaths, revisionPurposeLabels } from "@/modules/revisions";
 import { getFoundation } from "@/db/queries/foundations";
 import { getRevision, listRevisionComments, listRevisions, type RevisionComment } from "@/db/queries/revisions";
 import { requireProjectPage } from "@/app/_lib/page-guard";
@@ -28,7 +28,12 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   const mayComment = roleAllows(role, "revision.comment");
   // Four eyes: neither the issuer nor anyone who edited the draft (decideRevision refuses them too).
   const wroteIt = revision.issuedById === user.id || revision.editors.some((e) => e.id === user.id);
-  const mayDecide = roleAllows(role, "revision.decide") && revision.status === "in-check" && !wroteIt;
+  // Two steps: "checked" first, then the approval by someone other than the checker.
+  const twoStep = project.signOffSteps === "two";
+  const checkedIt = revision.check?.checkedById === user.id;
+  const open = revision.status === "in-check" || revision.status === "checked";
+  const mayDecide = roleAllows(role, "revision.decide") && open && !wroteIt;
+  const step = twoStep && revision.status === "in-check" ? "check" : "approve";
   const threads = (comments ?? []).filter((c) => !c.parentId);
   const answersOf = (c: RevisionComment) => (comments ?? []).filter((a) => a.parentId === c.id);
   // schemaVersion is the format, not a value anyone reviews
@@ -45,13 +50,29 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           <span>
             issued by {revision.issuedByName}, {formatStamp(revision.issuedAt)}
           </span>
+          {revision.check ? (
+            <span data-testid="revision-check">
+              · checked by {revision.check.checkedByName} ({revision.check.checkedByRole}), {formatStamp(revision.check.checkedAt)}
+            </span>
+          ) : null}
           {revision.decision ? (
             <span>
-              · {revision.decision.outcome === "approved" ? "approved" : "returned"} by {revision.decision.decidedByName}, {formatStamp(revision.decision.decidedAt)}
+              · {revision.decision.outcome === "approved" ? "approved" : "returned"} by {revision.decision.decidedByName}
+              {revision.decision.decidedByRole ? ` (${revision.decision.decidedByRole})` : ""}, {formatStamp(revision.decision.decidedAt)}
             </span>
           ) : null}
         </p>
         <dl className="mt-2 grid grid-cols-1 gap-x-6 gap-y-1 text-xs text-basalt-500 sm:grid-cols-3">
+          <div>
+            <dt className="inline font-semibold">Purpose </dt>
+            <dd className="inline" data-testid="revision-purpose">
+              {revisionPurposeLabels[revision.purpose]}
+            </dd>
+          </div>
+          <div>
+            <dt className="inline font-semibold">Sign-off </dt>
+            <dd className="inline">{twoStep ? "two steps (checked, then approved by someone else)" : "one step"}</dd>
+          </div>
           <div>
             <dt className="inline font-semibold">Engine </dt>
             <dd className="inline font-mono">{revision.engineVersion}</dd>
@@ -82,6 +103,12 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           <p className="text-xs font-semibold text-basalt-500">Revision note (what changed and why)</p>
           <p className="whitespace-pre-wrap">{revision.note || <span className="text-basalt-400">No note recorded (issued before revision notes).</span>}</p>
         </div>
+        {revision.check?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">Check: “{revision.check.note}”</p> : null}
+        {mayDecide && step === "approve" && checkedIt ? (
+          <p className="mt-2 text-xs text-basalt-500" data-testid="own-check-note">
+            You checked this revision; a manager or another checker approves it (you may still return it).
+          </p>
+        ) : null}
         {revision.decision?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">“{revision.decision.note}”</p> : null}
         {roleAllows(role, "package.export") ? (
           <p className="mt-3">
@@ -107,7 +134,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
       {mayDecide ? (
         <section className="slab max-w-2xl space-y-2 p-5" aria-labelledby="decide-heading">
           <h2 id="decide-heading">Verdict</h2>
-          <DecisionForm projectId={projectId} foundationId={foundationId} revisionId={revision.id} />
+          <DecisionForm projectId={projectId} foundationId={foundationId} revisionId={revision.id} step={step} />
         </section>
       ) : null}
 

@@ -20,14 +20,15 @@ export const GET = defineRoute({
 });
 
 // Issues the saved draft for check with its revision `note` (required: what changed and why);
-// `draftVersion` (optional) refuses a draft saved since.
+// `draftVersion` (optional) refuses a draft saved since; `purpose` (optional, "issued-for-check"
+// by default) says what the revision is issued for.
 export const POST = defineRoute({
   access: { kind: "project", permission: "revision.issue" },
   projectId: projectIdOf,
-  body: revisionIssueSchema.pick({ draftVersion: true, note: true }).strict(),
+  body: revisionIssueSchema.pick({ draftVersion: true, note: true, purpose: true }).strict(),
   status: 201,
   handler: async ({ auth, params }, body) => {
-    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion, note: body.note });
+    const revision = await issueForCheck(auth!.actor, { projectId: params.projectId, foundationId: idOf(params.foundationId, "foundation"), draftVersion: body.draftVersion, note: body.note, purpose: body.purpose });
     return { revision };
   },
 });

@@ -5,7 +5,8 @@ import { idOf, type RevisionParams } from "../../revision-params";
 
 export const dynamic = "force-dynamic";
 
-// Return with comments or approve: once per revision, never by its issuer.
+// Return with comments or approve: once per revision, never by its authors. A two-step
+// project first takes "checked", then "approved" by a different person.
 export const POST = defineRoute({
   access: { kind: "project", permission: "revision.decide" },
   projectId: (p: RevisionParams) => p.projectId,

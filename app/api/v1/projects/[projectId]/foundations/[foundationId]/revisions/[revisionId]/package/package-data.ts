@@ -1,6 +1,6 @@
 import { getFoundation } from "@/db/queries/foundations";
 import { getProjectForMember, type Actor } from "@/db/queries/projects";
-import { getRevision, getUserContact, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import { getRevision, getRevisionVendorSubmission, getUserContact, listRevisionCommentsWithResolution, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
 import type { RevisionPackageData } from "@/modules/calc-package";
 import { idOf, revisionNotFound, type RevisionParams } from "../../revision-params";
 
@@ -25,6 +25,12 @@ export async function readPackageRows(actor: Actor, params: RevisionParams) {
   const load = async (): Promise<RevisionPackageData> => {
     const revision = await getRevision(actor, params.projectId, foundationId, revisionId);
     if (!revision) throw revisionNotFound();
+    // The trail's comments and the vendor submission by name (comment and resolve events
+    // lengthen the trail, so the key above changes with them).
+    const [comments, submission] = await Promise.all([
+      listRevisionCommentsWithResolution(actor, params.projectId, foundationId, revisionId),
+      getRevisionVendorSubmission(actor, params.projectId, revision.vendorSubmissionId),
+    ]);
     return {
       project: { code: project.code, name: project.name, client: project.client, site: project.site, units: project.units, paperSize: project.paperSize },
       foundation: { tag: foundation.tag, machineTrain: foundation.machineTrain, location: foundation.location },
@@ -33,6 +39,10 @@ export async function readPackageRows(actor: Actor, params: RevisionParams) {
       result: revision.result,
       history,
       trail,
+      comments,
+      vendorSubmission: submission
+        ? { request: `request to ${submission.companyName} of ${submission.requestedAt.toISOString().slice(0, 10)}`, version: submission.version, fileName: submission.fileName, sha256: submission.sha256, submittedAt: submission.submittedAt }
+        : null,
       generatedAt: new Date(),
       generatedByName: me?.name ?? "",
     };
