@@ -36,7 +36,8 @@ export interface PackageRevisionSummary {
   issuedAt: Date;
   issuedByName: string;
   decision: { outcome: "returned" | "approved"; note: string; decidedByName: string; decidedAt: Date } | null;
-  openComments: number;
+  /** Null in the client's copy: review comments are the design team's. */
+  openComments: number | null;
   inputHash: string;
   engineVersion: string;
   vendorSubmissionId: string | null;
@@ -79,6 +80,8 @@ export interface RegisterRow {
   /** Draft state when no revision has been issued ("draft v3", "not started"). */
   draftState: string;
   latest: (PackageRevisionSummary & { result: AnalysisResult }) | null;
+  /** The latest approved revision's label: it stays of record while a later one is in check or returned. */
+  latestApproved?: { label: string; approvedAt: Date | null } | null;
   revisionCount: number;
   flags: string[];
 }

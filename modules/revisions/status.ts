@@ -10,7 +10,13 @@ export const revisionStatusLabels: Record<RevisionStatus, string> = {
   superseded: "superseded",
 };
 
-export function revisionStatus(decision: "returned" | "approved" | null | undefined, hasLaterRevision: boolean): RevisionStatus {
+/**
+ * An approved revision stays approved, the one of record for construction, while a later
+ * revision is only in check or returned: it is superseded once a later one is approved
+ * (`hasLaterApproval`; when not given, any later revision supersedes it, as before).
+ */
+export function revisionStatus(decision: "returned" | "approved" | null | undefined, hasLaterRevision: boolean, hasLaterApproval: boolean = hasLaterRevision): RevisionStatus {
+  if (decision === "approved" && hasLaterRevision && !hasLaterApproval) return "approved";
   if (hasLaterRevision) return "superseded";
   return decision ?? "in-check";
 }
