@@ -41,6 +41,13 @@ describe("revision status", () => {
     expect(revisionStatus("approved", true)).toBe("superseded");
   });
 
+  it("keeps an approved revision approved while a later one is only in check or returned", () => {
+    expect(revisionStatus("approved", true, false)).toBe("approved");
+    expect(revisionStatus("approved", true, true)).toBe("superseded");
+    expect(revisionStatus("returned", true, false)).toBe("superseded");
+    expect(revisionStatus(null, true, false)).toBe("superseded");
+  });
+
   it("flags an approval whose vendor submission has since been replaced in the draft", () => {
     expect(isApprovalStale({ status: "approved", vendorSubmissionId: "s1" }, "s2")).toBe(true);
     expect(isApprovalStale({ status: "approved", vendorSubmissionId: "s1" }, "s1")).toBe(false);
