@@ -42,7 +42,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
   return (
     <div className="space-y-6">
       <div>
-        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} />
+        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} workspace={roleAllows(role, "draft.read")} />
         <h1>Revisions of {foundation.tag}</h1>
         <p className="mt-1 text-sm text-basalt-500">{foundation.machineTrain}</p>
       </div>

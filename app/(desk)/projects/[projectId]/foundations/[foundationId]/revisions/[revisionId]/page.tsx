@@ -37,7 +37,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   return (
     <div className="space-y-6">
       <div>
-        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} />
+        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} workspace={roleAllows(role, "draft.read")} />
         <h1>
           {foundation.tag} revision <span className="font-mono">{revision.label}</span>
         </h1>
