@@ -21,7 +21,13 @@ export interface FoundationRowView {
   status: string;
   latestRevision: string;
   latestRevisionId: string | null;
-  openComments: number;
+  /** The latest approved revision, shown beside the latest issued one (it stays of record while a later one is in check). */
+  latestApproved: string;
+  latestApprovedId: string | null;
+  /** Null when the reader does not see review comments (the client). */
+  openComments: number | null;
+  /** Where the tag leads: the workspace for the design team, the revisions for the client. */
+  href: string;
   flags: string[];
   governing: GoverningSummary | null;
   updatedAt: string;
@@ -29,7 +35,7 @@ export interface FoundationRowView {
 
 const col = createColumnHelper<FoundationRowView>();
 
-export function FoundationTable({ projectId, rows }: { projectId: string; rows: FoundationRowView[] }) {
+export function FoundationTable({ projectId, rows, showComments = true }: { projectId: string; rows: FoundationRowView[]; showComments?: boolean }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "tag", desc: false }]);
   const [filter, setFilter] = useState("");
   const columns = useMemo(
@@ -37,7 +43,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
       col.accessor("tag", {
         header: "Tag",
         cell: (c) => (
-          <Link className="font-mono font-medium" href={`/projects/${projectId}/foundations/${c.row.original.id}`}>
+          <Link className="font-mono font-medium" href={c.row.original.href}>
             {c.getValue()}
           </Link>
         ),
@@ -56,8 +62,21 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
           </span>
         ),
       }),
+      col.accessor("latestApproved", {
+        header: "Latest approved",
+        cell: (c) => {
+          const id = c.row.original.latestApprovedId;
+          return id ? (
+            <Link className="font-mono" href={`/projects/${projectId}/foundations/${c.row.original.id}/revisions/${id}`} data-testid="latest-approved">
+              {c.getValue()}
+            </Link>
+          ) : (
+            <span className="text-basalt-400">{c.getValue()}</span>
+          );
+        },
+      }),
       col.accessor("latestRevision", {
-        header: "Latest revision",
+        header: "Latest issued",
         cell: (c) => {
           const id = c.row.original.latestRevisionId;
           return id ? (
@@ -69,7 +88,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
           );
         },
       }),
-      col.accessor("openComments", { header: "Open comments", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
+      ...(showComments ? [col.accessor((r) => r.openComments ?? 0, { id: "openComments", header: "Open comments", cell: (c) => <span className="font-mono">{c.getValue()}</span> })] : []),
       col.accessor((r) => r.governing?.utilisation ?? -1, {
         id: "governing",
         header: "Governing check",
@@ -92,7 +111,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
       }),
       col.accessor("updatedAt", { header: "Last change", cell: (c) => <span className="text-basalt-500">{c.getValue()}</span> }),
     ],
-    [projectId],
+    [projectId, showComments],
   );
   // TanStack Table returns functions the React Compiler cannot memoise; this component is
   // simply left uncompiled, which is what the rule reports.
@@ -105,7 +124,7 @@ export function FoundationTable({ projectId, rows }: { projectId: string; rows: 
     onGlobalFilterChange: setFilter,
     globalFilterFn: (row, _id, value: string) => {
       const r = row.original;
-      const hay = [r.tag, r.machineTrain, r.location, r.status, r.latestRevision, ...r.flags, r.governing?.label ?? ""].join(" ").toLowerCase();
+      const hay = [r.tag, r.machineTrain, r.location, r.status, r.latestRevision, r.latestApproved, ...r.flags, r.governing?.label ?? ""].join(" ").toLowerCase();
       return hay.includes(String(value).toLowerCase());
     },
     getCoreRowModel: getCoreRowModel(),

@@ -63,7 +63,8 @@ async function readDraft(foundationId: string): Promise<Draft> {
  * project's foundations or the foundation is not in that project.
  */
 export async function getDraft(actor: Actor, projectId: string, foundationId: string): Promise<Draft | undefined> {
-  const foundation = await findFoundationFor(actor, projectId, foundationId, "foundation.read");
+  // The live draft is the design team's; the client (viewer) reads issued revisions only.
+  const foundation = await findFoundationFor(actor, projectId, foundationId, "draft.read");
   return foundation ? readDraft(foundation.id) : undefined;
 }
 
@@ -121,10 +122,14 @@ export interface FoundationWithDraft {
   input: AnalysisInput | null;
 }
 
-/** Every foundation of the project with its draft, for members who may read foundations. */
+/**
+ * Every foundation of the project with its draft, for members who may read foundations;
+ * a member without "draft.read" (the client) gets the foundations with no draft in them.
+ */
 export async function listFoundationsWithDrafts(actor: Actor, projectId: string): Promise<FoundationWithDraft[]> {
   const membership = await getMembership(actor, projectId);
   if (!membership || !roleAllows(membership.role, "foundation.read")) return [];
+  const mayReadDraft = roleAllows(membership.role, "draft.read");
   const rows = await getDb()
     .select({
       id: foundations.id,
@@ -140,5 +145,6 @@ export async function listFoundationsWithDrafts(actor: Actor, projectId: string)
     .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
     .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)))
     .orderBy(asc(foundations.tag));
+  if (!mayReadDraft) return rows.map((r) => ({ ...r, draftVersion: 0, draftUpdatedAt: null, input: null }));
   return rows.map((r) => ({ ...r, draftVersion: r.draftVersion ?? 0, input: (r.input as AnalysisInput | null) ?? null }));
 }

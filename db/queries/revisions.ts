@@ -1,11 +1,12 @@
 import { and, asc, count, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
-import { auditEvents, companies, foundationDrafts, foundations, projectMembers, projects, revisionChecks, revisionComments, revisionDecisions, revisions, storedFiles, users, vendorRequests, vendorSubmissions, type RevisionRow } from "../schema";
+import { auditEvents, companies, foundationDrafts, foundations, projectMembers, projects, revisionChecks, revisionClientShares, revisionComments, revisionDecisions, revisions, storedFiles, users, vendorRequests, vendorSubmissions, type RevisionRow } from "../schema";
 import { analyse, ENGINE_VERSION, parseAnalysisInput, type AnalysisInput, type AnalysisResult, type InputIssue } from "@/modules/calc";
 import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, withoutLongSeries, type RevisionPurpose, type RevisionStatus } from "@/modules/revisions";
-import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
+import { roleAllows, type ProjectPermission, type ProjectRole } from "@/modules/platform/permissions";
 import { isAppError } from "@/modules/platform/errors";
+import type { GoverningSource } from "@/modules/desk/foundation-summary";
 import { getMembership, type Actor } from "./projects";
 import { assertFoundationActive } from "./foundations";
 
@@ -32,7 +33,12 @@ export interface RevisionSummary {
   /** The first signature of a two-step sign-off ("checked"), when given. */
   check: { note: string; checkedById: string; checkedByName: string; checkedByRole: string; checkedAt: Date } | null;
   decision: { outcome: "returned" | "approved"; note: string; decidedById: string; decidedByName: string; decidedByRole: string | null; decidedAt: Date } | null;
-  openComments: number;
+  /** Open review comments; null for a reader who may not see review comments (the client). */
+  openComments: number | null;
+  /** The foundation's latest approved revision: it stays the one of record while a later one is in check or returned. */
+  latestApproved: boolean;
+  /** A manager shared this revision's package with the client before (or without) its approval. */
+  sharedWithClient: { sharedByName: string; sharedAt: Date } | null;
 }
 
 export interface RevisionDetail extends RevisionSummary {
@@ -59,6 +65,29 @@ async function allowed(actor: Actor, projectId: string, permission: ProjectPermi
   return !!m && roleAllows(m.role, permission);
 }
 
+/**
+ * How much of a revision's record the reader sees. The design team sees everything; a
+ * reader without "revision.commentsRead" (the client, role viewer) sees no review comments
+ * nor their count, and of the decision notes only the approval's (the note addressed to the
+ * client; a return note is review talk). README, "The client's view".
+ */
+interface ReaderScope {
+  internal: boolean;
+}
+
+async function readerScope(actor: Actor, projectId: string, permission: ProjectPermission): Promise<{ role: ProjectRole; scope: ReaderScope } | undefined> {
+  const m = await getMembership(actor, projectId);
+  if (!m || !roleAllows(m.role, permission)) return undefined;
+  return { role: m.role, scope: { internal: roleAllows(m.role, "revision.commentsRead") } };
+}
+
+const FULL_SCOPE: ReaderScope = { internal: true };
+
+/** May this reader download the revision's package: the team always, the client when approved or shared. */
+function packageReleased(scope: ReaderScope, summary: Pick<RevisionSummary, "decision" | "sharedWithClient">): boolean {
+  return scope.internal || summary.decision?.outcome === "approved" || summary.sharedWithClient !== null;
+}
+
 const issuer = alias(users, "issuer");
 const decider = alias(users, "decider");
 const checker = alias(users, "checker");
@@ -82,15 +111,23 @@ const summaryColumns = {
   purpose: revisions.purpose,
 };
 
-async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { projectId: string; foundationId: string; revisionId?: string }): Promise<RevisionSummary[]> {
+const sharer = alias(users, "sharer");
+
+async function selectSummaries(
+  db: ReturnType<typeof getDb> | Tx,
+  where: { projectId: string; foundationId: string; revisionId?: string },
+  scope: ReaderScope = FULL_SCOPE,
+): Promise<RevisionSummary[]> {
   const rows = await db
-    .select({ r: summaryColumns, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name, c: revisionChecks, checkerName: checker.name })
+    .select({ r: summaryColumns, issuerName: issuer.name, d: revisionDecisions, deciderName: decider.name, c: revisionChecks, checkerName: checker.name, share: revisionClientShares, sharerName: sharer.name })
     .from(revisions)
     .innerJoin(issuer, eq(issuer.id, revisions.issuedById))
     .leftJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
     .leftJoin(decider, eq(decider.id, revisionDecisions.decidedById))
     .leftJoin(revisionChecks, eq(revisionChecks.revisionId, revisions.id))
     .leftJoin(checker, eq(checker.id, revisionChecks.checkedById))
+    .leftJoin(revisionClientShares, eq(revisionClientShares.revisionId, revisions.id))
+    .leftJoin(sharer, eq(sharer.id, revisionClientShares.sharedById))
     .where(and(eq(revisions.projectId, where.projectId), eq(revisions.foundationId, where.foundationId)))
     .orderBy(asc(revisions.sequence));
   const ids = rows.map((x) => x.r.id);
@@ -107,9 +144,10 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
     editorIds.length ? (await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, editorIds))).map((u) => [u.id, u.name]) : [],
   );
   const maxSequence = rows.reduce((m, x) => Math.max(m, x.r.sequence), 0);
+  const maxApproved = rows.reduce((m, x) => (x.d?.outcome === "approved" ? Math.max(m, x.r.sequence) : m), 0);
   return rows
     .filter((x) => !where.revisionId || x.r.id === where.revisionId)
-    .map(({ r, issuerName, d, deciderName, c, checkerName }) => ({
+    .map(({ r, issuerName, d, deciderName, c, checkerName, share, sharerName }) => ({
       id: r.id,
       foundationId: r.foundationId,
       projectId: r.projectId,
@@ -124,10 +162,14 @@ async function selectSummaries(db: ReturnType<typeof getDb> | Tx, where: { proje
       editors: r.editorIds.map((id) => ({ id, name: editorNames.get(id) ?? "(former account)" })),
       note: r.note,
       purpose: r.purpose,
-      status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence, !!c),
-      check: c ? { note: c.note, checkedById: c.checkedById, checkedByName: checkerName ?? "", checkedByRole: c.checkedByRole, checkedAt: c.checkedAt } : null,
-      decision: d ? { outcome: d.outcome, note: d.note, decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedByRole: d.decidedByRole, decidedAt: d.decidedAt } : null,
-      openComments: openBy.get(r.id) ?? 0,
+      status: revisionStatus(d?.outcome ?? null, r.sequence < maxSequence, { checked: !!c, hasLaterApproval: r.sequence < maxApproved }),
+      check: c ? { note: scope.internal ? c.note : "", checkedById: c.checkedById, checkedByName: checkerName ?? "", checkedByRole: c.checkedByRole, checkedAt: c.checkedAt } : null,
+      decision: d
+        ? { outcome: d.outcome, note: scope.internal || d.outcome === "approved" ? d.note : "", decidedById: d.decidedById, decidedByName: deciderName ?? "", decidedByRole: d.decidedByRole, decidedAt: d.decidedAt }
+        : null,
+      openComments: scope.internal ? (openBy.get(r.id) ?? 0) : null,
+      latestApproved: r.sequence === maxApproved,
+      sharedWithClient: share ? { sharedByName: sharerName ?? "", sharedAt: share.sharedAt } : null,
     }));
 }
 
@@ -139,14 +181,16 @@ async function selectRevisionBody(db: ReturnType<typeof getDb> | Tx, revisionId:
 
 /** The foundation's revisions, oldest first; [] when the actor may not read revisions. */
 export async function listRevisions(actor: Actor, projectId: string, foundationId: string): Promise<RevisionSummary[]> {
-  if (!(await allowed(actor, projectId, "revision.read"))) return [];
-  return selectSummaries(getDb(), { projectId, foundationId });
+  const reader = await readerScope(actor, projectId, "revision.read");
+  if (!reader) return [];
+  return selectSummaries(getDb(), { projectId, foundationId }, reader.scope);
 }
 
 /** One revision with its input and result; undefined when absent or not readable by the actor. */
 export async function getRevision(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<RevisionDetail | undefined> {
-  if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
-  const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId });
+  const reader = await readerScope(actor, projectId, "revision.read");
+  if (!reader) return undefined;
+  const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId }, reader.scope);
   if (!hit) return undefined;
   const body = await selectRevisionBody(getDb(), hit.id);
   if (!body) return undefined;
@@ -156,14 +200,19 @@ export async function getRevision(actor: Actor, projectId: string, foundationId:
 export interface FoundationRevisionState {
   foundationId: string;
   latest: { id: string; label: string; status: RevisionStatus; vendorSubmissionId: string | null; supersededByNewerVersion: boolean; issuedAt: Date } | null;
+  /** The latest approved revision, which stays the one of record while a later one is in check or returned. */
+  latestApproved: { id: string; label: string; issuedAt: Date } | null;
   revisionCount: number;
-  openComments: number;
+  /** Null for a reader who may not see review comments (the client). */
+  openComments: number | null;
+  /** The draft's vendor submission; null for the client, who does not see the draft. */
   draftVendorSubmissionId: string | null;
 }
 
 /** For the project page: per foundation, its latest revision, their count and the open comments. */
 export async function listFoundationRevisionStates(actor: Actor, projectId: string): Promise<FoundationRevisionState[]> {
-  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  const reader = await readerScope(actor, projectId, "revision.read");
+  if (!reader) return [];
   const db = getDb();
   const fs = await db
     .select({ id: foundations.id, draftVendorSubmissionId: foundationDrafts.vendorSubmissionId })
@@ -199,21 +248,23 @@ export async function listFoundationRevisionStates(actor: Actor, projectId: stri
   return fs.map((f) => {
     const mine = revs.filter((r) => r.foundationId === f.id);
     const top = mine[0];
+    const approved = mine.find((r) => r.outcome === "approved");
     return {
       foundationId: f.id,
       latest: top
         ? {
             id: top.id,
             label: top.label,
-            status: revisionStatus(top.outcome, false, top.checkId !== null),
+            status: revisionStatus(top.outcome, false, { checked: top.checkId !== null }),
             vendorSubmissionId: top.vendorSubmissionId,
             supersededByNewerVersion: top.vendorSubmissionId !== null && superseded.has(top.vendorSubmissionId),
             issuedAt: top.issuedAt,
           }
         : null,
+      latestApproved: approved ? { id: approved.id, label: approved.label, issuedAt: approved.issuedAt } : null,
       revisionCount: mine.length,
-      openComments: openBy.get(f.id) ?? 0,
-      draftVendorSubmissionId: f.draftVendorSubmissionId ?? null,
+      openComments: reader.scope.internal ? (openBy.get(f.id) ?? 0) : null,
+      draftVendorSubmissionId: reader.scope.internal ? (f.draftVendorSubmissionId ?? null) : null,
     };
   });
 }
@@ -389,7 +440,8 @@ export async function decideRevision(
 
 /** A revision's comments, oldest first (answers carry their parent's id). */
 export async function listRevisionComments(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<RevisionComment[] | undefined> {
-  if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
+  // Review comments are the design team's (manager, designer, checker), never the client's.
+  if (!(await allowed(actor, projectId, "revision.commentsRead"))) return undefined;
   const [rev] = await getDb().select({ id: revisions.id }).from(revisions).where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
   if (!rev) return undefined;
   const rows = await getDb()
@@ -437,6 +489,84 @@ export async function listOpenFoundationComments(actor: Actor, projectId: string
     .where(and(eq(revisions.projectId, projectId), eq(revisions.foundationId, foundationId), isNull(revisionComments.parentId), eq(revisionComments.resolved, false)))
     .orderBy(asc(revisionComments.createdAt), asc(revisionComments.id));
   return rows.map(({ c, label, authorName }) => ({ id: c.id, revisionId: c.revisionId, revisionLabel: label, fieldPath: c.fieldPath, body: c.body, authorName, createdAt: c.createdAt }));
+}
+
+export type PackageRevisionOutcome =
+  | { ok: true; revision: RevisionSummary }
+  | { ok: false; reason: "not-found" }
+  | { ok: false; reason: "not-released"; revision: RevisionSummary };
+
+/**
+ * The revision whose calculation package the actor asks for. The design team gets any
+ * issued revision; the client (viewer) only an approved one or one a manager shared
+ * ("not-released" otherwise, which the route answers with 403).
+ */
+export async function getPackageRevision(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<PackageRevisionOutcome> {
+  const reader = await readerScope(actor, projectId, "package.export");
+  if (!reader) return { ok: false, reason: "not-found" };
+  const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId }, reader.scope);
+  if (!hit) return { ok: false, reason: "not-found" };
+  return packageReleased(reader.scope, hit) ? { ok: true, revision: hit } : { ok: false, reason: "not-released", revision: hit };
+}
+
+export type ShareOutcome = { ok: true; revision: RevisionSummary; changed: boolean } | { ok: false; reason: "forbidden" | "not-found" };
+
+/**
+ * Shares a revision's package with the client (or withdraws the share), with an audit
+ * event naming who and when. Sharing twice, or withdrawing a share that is not there,
+ * changes nothing and records nothing.
+ */
+export async function setRevisionShared(actor: Actor, projectId: string, foundationId: string, revisionId: string, shared: boolean): Promise<ShareOutcome> {
+  if (!(await allowed(actor, projectId, "revision.share"))) return { ok: false, reason: "forbidden" };
+  return getDb().transaction(async (tx) => {
+    const [rev] = await tx
+      .select({ id: revisions.id, label: revisions.label })
+      .from(revisions)
+      .where(and(eq(revisions.id, revisionId), eq(revisions.foundationId, foundationId), eq(revisions.projectId, projectId)));
+    if (!rev) return { ok: false, reason: "not-found" } as const;
+    const changed = shared
+      ? (await tx.insert(revisionClientShares).values({ revisionId, sharedById: actor.userId }).onConflictDoNothing().returning({ id: revisionClientShares.revisionId })).length > 0
+      : (await tx.delete(revisionClientShares).where(eq(revisionClientShares.revisionId, revisionId)).returning({ id: revisionClientShares.revisionId })).length > 0;
+    if (changed) {
+      await tx.insert(auditEvents).values({
+        projectId,
+        actorId: actor.userId,
+        action: shared ? "revision.shared-with-client" : "revision.share-withdrawn",
+        detail: { foundationId, revisionId, label: rev.label },
+      });
+    }
+    const [summary] = await selectSummaries(tx, { projectId, foundationId, revisionId });
+    if (!summary) throw new Error("shared revision not readable");
+    return { ok: true, revision: summary, changed } as const;
+  });
+}
+
+export interface LatestIssuedChecks {
+  foundationId: string;
+  revisionId: string;
+  label: string;
+  result: GoverningSource;
+}
+
+/**
+ * The checks of each foundation's latest issued revision as stored (only the checks and the
+ * impedance method are read, not the megabyte of sweep): the client's project table shows
+ * the governing check of what was issued, never a live analysis of the draft.
+ */
+export async function listLatestIssuedChecks(actor: Actor, projectId: string): Promise<LatestIssuedChecks[]> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  const rows = await getDb()
+    .selectDistinctOn([revisions.foundationId], {
+      foundationId: revisions.foundationId,
+      revisionId: revisions.id,
+      label: revisions.label,
+      checks: sql<AnalysisResult["checks"]>`${revisions.result}->'checks'`,
+      impedance: sql<GoverningSource["impedance"]>`jsonb_build_object('method', ${revisions.result}->'impedance'->'method')`,
+    })
+    .from(revisions)
+    .where(eq(revisions.projectId, projectId))
+    .orderBy(revisions.foundationId, desc(revisions.sequence));
+  return rows.map((r) => ({ foundationId: r.foundationId, revisionId: r.revisionId, label: r.label, result: { checks: r.checks, impedance: r.impedance } }));
 }
 
 export type CommentOutcome =
@@ -536,12 +666,22 @@ export interface RevisionAuditEntry {
 
 /** The revision transitions of one foundation, newest first (its history panel). */
 export async function listRevisionHistory(actor: Actor, projectId: string, foundationId: string): Promise<RevisionAuditEntry[]> {
-  if (!(await allowed(actor, projectId, "revision.read"))) return [];
+  const reader = await readerScope(actor, projectId, "revision.read");
+  if (!reader) return [];
+  // The client's trail names issues, decisions and shares; review comments are the team's.
+  const clientActions = ["revision.issued", "revision.approved", "revision.returned", "revision.shared-with-client", "revision.share-withdrawn"];
   const rows = await getDb()
     .select({ id: auditEvents.id, action: auditEvents.action, actorName: users.name, detail: auditEvents.detail, createdAt: auditEvents.createdAt })
     .from(auditEvents)
     .leftJoin(users, eq(users.id, auditEvents.actorId))
-    .where(and(eq(auditEvents.projectId, projectId), sql`${auditEvents.detail}->>'foundationId' = ${foundationId}`, sql`${auditEvents.action} like 'revision.%'`))
+    .where(
+      and(
+        eq(auditEvents.projectId, projectId),
+        sql`${auditEvents.detail}->>'foundationId' = ${foundationId}`,
+        sql`${auditEvents.action} like 'revision.%'`,
+        reader.scope.internal ? undefined : inArray(auditEvents.action, clientActions),
+      ),
+    )
     .orderBy(desc(auditEvents.createdAt), desc(auditEvents.id))
     .limit(200);
   return rows.map((r) => ({ id: r.id, action: r.action, actorName: r.actorName, label: typeof (r.detail as Record<string, unknown>).label === "string" ? ((r.detail as Record<string, unknown>).label as string) : null, createdAt: r.createdAt }));

@@ -119,6 +119,20 @@ export const revisionComments = pgTable(
   (t) => [index("revision_comments_revision_idx").on(t.revisionId, t.createdAt)],
 );
 
+// A revision a manager shared with the client (the viewer role) before or without its
+// approval: the viewer may then download its package. A row of its own because revisions
+// are immutable; sharing and withdrawing the share are audit events.
+export const revisionClientShares = pgTable("revision_client_shares", {
+  revisionId: uuid("revision_id")
+    .primaryKey()
+    .references(() => revisions.id, { onDelete: "restrict" }),
+  sharedById: uuid("shared_by_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "restrict" }),
+  sharedAt: timestamp("shared_at", { withTimezone: true }).notNull().defaultNow(),
+  ...stamps,
+});
+
 export type RevisionRow = typeof revisions.$inferSelect;
 export type RevisionDecisionRow = typeof revisionDecisions.$inferSelect;
 export type RevisionCheckRow = typeof revisionChecks.$inferSelect;

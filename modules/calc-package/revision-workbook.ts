@@ -102,7 +102,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
   w.pairs("Record", [
     { label: "Decision date" + UTC, value: revision.decision?.decidedAt ?? "—" },
     { label: "Decision note", value: revision.decision?.note || "—" },
-    { label: "Open review comments", value: revision.openComments, kind: "count" },
+    { label: "Open review comments", value: revision.openComments ?? "not in the client's copy", kind: "count" },
     { label: "Engine version", value: revision.engineVersion },
     { label: "Input fingerprint (SHA-256 of the canonical input)", value: revision.inputHash },
     { label: "Vendor submission used", value: vendorSubmissionText(d) },

@@ -63,7 +63,8 @@ export interface PackageRevisionSummary {
   /** The first signature of a two-step sign-off. */
   check?: { note: string; checkedByName: string; checkedByRole: string; checkedAt: Date } | null;
   decision: { outcome: "returned" | "approved"; note: string; decidedByName: string; decidedByRole?: string | null; decidedAt: Date } | null;
-  openComments: number;
+  /** Null in the client's copy: review comments are the design team's. */
+  openComments: number | null;
   inputHash: string;
   engineVersion: string;
   vendorSubmissionId: string | null;
@@ -112,6 +113,8 @@ export interface RegisterRow {
   /** Draft state when no revision has been issued ("draft v3", "not started"). */
   draftState: string;
   latest: (PackageRevisionSummary & { result: AnalysisResult }) | null;
+  /** The latest approved revision's label: it stays of record while a later one is in check or returned. */
+  latestApproved?: { label: string; approvedAt: Date | null } | null;
   revisionCount: number;
   flags: string[];
 }

@@ -35,7 +35,10 @@ export interface GoverningSummary {
   total: number;
 }
 
-export function governingCheck(result: AnalysisResult): GoverningSummary | null {
+/** What the governing check reads of a result (so a stored revision's checks suffice). */
+export type GoverningSource = Pick<AnalysisResult, "checks"> & { impedance: Pick<AnalysisResult["impedance"], "method"> };
+
+export function governingCheck(result: GoverningSource): GoverningSummary | null {
   const first = sortChecksGoverningFirst(result.checks)[0];
   if (!first) return null;
   return {

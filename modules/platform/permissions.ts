@@ -8,7 +8,11 @@ export const permissionMap = {
   "project.update": ["manager"],
   "members.read": ["manager", "designer", "checker"],
   "members.manage": ["manager"],
+  // The foundation list and its tags; the draft behind them is "draft.read".
   "foundation.read": ["manager", "designer", "checker", "viewer"],
+  // The live, unissued draft (the workspace, GET .../draft, the project table's live
+  // governing check): the design team only. The client (viewer) sees issued revisions.
+  "draft.read": ["manager", "designer", "checker"],
   "foundation.create": ["manager", "designer"],
   // Withdrawing a foundation created by mistake (and restoring it); a withdrawn one is read by managers only.
   "foundation.withdraw": ["manager"],
@@ -19,7 +23,9 @@ export const permissionMap = {
   // (that rule needs the revision, so the revision code checks it as well).
   "revision.read": ["manager", "designer", "checker", "viewer"],
   "revision.issue": ["manager", "designer"],
+  // Review comments are internal to the design team: reading them is commenting's permission.
   "revision.comment": ["manager", "designer", "checker"],
+  "revision.commentsRead": ["manager", "designer", "checker"],
   "revision.decide": ["manager", "checker"],
   // Vendor data: designers and managers ask and review; a vendor sees and answers
   // only the requests addressed to their own company (checked on the request).
@@ -27,7 +33,11 @@ export const permissionMap = {
   "vendorRequest.readOwn": ["vendor", "manager", "designer"],
   "vendorRequest.answer": ["vendor"],
   "vendorSubmission.review": ["manager", "designer"],
+  // A viewer downloads only approved revisions' packages, or one a manager shared with
+  // the client (checked on the revision by db/queries/revisions.ts getPackageRevision).
   "package.export": ["manager", "designer", "checker", "viewer"],
+  // Sharing an earlier (unapproved) revision's package with the client.
+  "revision.share": ["manager"],
   "register.export": ["manager"],
 } as const satisfies Record<string, readonly ProjectRole[]>;
 

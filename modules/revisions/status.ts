@@ -13,7 +13,20 @@ export const revisionStatusLabels: Record<RevisionStatus, string> = {
   superseded: "superseded",
 };
 
-export function revisionStatus(decision: "returned" | "approved" | null | undefined, hasLaterRevision: boolean, checked = false): RevisionStatus {
+/**
+ * An approved revision stays approved, the one of record for construction, while a later
+ * revision is only in check or returned: it is superseded once a later one is approved
+ * (`hasLaterApproval`; when not given, any later revision supersedes it, as before).
+ * `checked`: the first signature of a two-step sign-off is given.
+ */
+export function revisionStatus(
+  decision: "returned" | "approved" | null | undefined,
+  hasLaterRevision: boolean,
+  opts: { checked?: boolean; hasLaterApproval?: boolean } = {},
+): RevisionStatus {
+  const checked = opts.checked ?? false;
+  const hasLaterApproval = opts.hasLaterApproval ?? hasLaterRevision;
+  if (decision === "approved" && hasLaterRevision && !hasLaterApproval) return "approved";
   if (hasLaterRevision) return "superseded";
   return decision ?? (checked ? "checked" : "in-check");
 }

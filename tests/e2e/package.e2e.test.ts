@@ -43,7 +43,13 @@ describe("calculation package", () => {
       await page.getByRole("heading", { level: 1 }).waitFor({ state: "visible" });
       expect(await page.getByTestId("register-download").count()).toBe(0);
       expect((await page.request.get(`/api/v1/projects/${projectId}/register`)).status()).toBe(403);
-      expect((await page.request.get(packageUrl)).status()).toBe(200);
+      // The client downloads approved packages only (or one a manager shared): demo B is in
+      // check unless an earlier journey approved it.
+      const listUrl = packageUrl.replace(/\/[0-9a-f-]{36}\/package$/, "");
+      const list = (await (await page.request.get(listUrl)).json()) as { revisions: { id: string; decision: { outcome: string } | null; sharedWithClient: unknown }[] };
+      const latest = list.revisions.at(-1);
+      const released = latest?.decision?.outcome === "approved" || Boolean(latest?.sharedWithClient);
+      expect((await page.request.get(packageUrl)).status()).toBe(released ? 200 : 403);
     });
     await asDemo(browser(), "vendor", async ({ page }) => {
       expect((await page.request.get(packageUrl)).status()).toBe(403);

@@ -187,11 +187,12 @@ describe("who may read and save drafts", () => {
     }
   });
 
-  it("lets the checker and the viewer read but not save", async () => {
-    for (const role of ["checker", "viewer"] as const) {
-      expect((await getDraftAs(role)).status).toBe(200);
-      expect((await putDraft({ version: 1, input: sampleAnalysisInput() }, role)).status).toBe(403);
-    }
+  it("lets the checker read but not save, and refuses the viewer (the client) both", async () => {
+    expect((await getDraftAs("checker")).status).toBe(200);
+    expect((await putDraft({ version: 1, input: sampleAnalysisInput() }, "checker")).status).toBe(403);
+    // The live draft is the design team's; the client reads issued revisions only.
+    expect((await getDraftAs("viewer")).status).toBe(403);
+    expect((await putDraft({ version: 1, input: sampleAnalysisInput() }, "viewer")).status).toBe(403);
   });
 
   it("refuses a vendor before looking at the body", async () => {

@@ -97,16 +97,22 @@ describe("revision package", () => {
     }
   });
 
-  it("is refused to vendors and outsiders, given to viewers, and 404 for a revision of another foundation", async () => {
+  it("is refused to vendors and outsiders, to viewers while unapproved and unshared, and 404 for a revision of another foundation", async () => {
     const [rev] = await listRevisions(manager, fx.projectId, pump.id);
     if (!rev) throw new Error("no revision");
     const params = { projectId: fx.projectId, foundationId: pump.id, revisionId: rev.id };
     expect((await callRoute(PACKAGE, "GET", params, { cookie: fx.cookies.vendor })).status).toBe(403);
     expect((await callRoute(PACKAGE, "GET", params, { cookie: fx.cookies.outsider })).status).toBe(403);
     expect((await callRoute(PACKAGE, "GET", params, { cookie: null })).status).toBe(401);
+    // Demo revision A is returned: the client gets approved packages only (viewer-scope.test.ts
+    // has the approved and the shared cases).
+    expect(rev.decision?.outcome).not.toBe("approved");
     const viewer = await callRoute(PACKAGE, "GET", params, { cookie: fx.cookies.viewer });
-    expect(viewer.status).toBe(200);
-    expect((await load(viewer)).getWorksheet(PACKAGE_SHEETS.cover)).toBeDefined();
+    expect(viewer.status).toBe(403);
+    expect(await viewer.text()).toMatch(/approved packages only/);
+    const checker = await callRoute(PACKAGE, "GET", params, { cookie: fx.cookies.checker });
+    expect(checker.status).toBe(200);
+    expect((await load(checker)).getWorksheet(PACKAGE_SHEETS.cover)).toBeDefined();
     const other = (await listFoundations(manager, fx.projectId)).find((f) => f.id !== pump.id);
     if (!other) throw new Error("no second foundation");
     expect((await callRoute(PACKAGE, "GET", { ...params, foundationId: other.id }, { cookie: fx.cookies.manager })).status).toBe(404);

@@ -100,7 +100,9 @@ describe("route handlers", () => {
       }
     }
     expect(problems).toEqual([]);
-  });
+    // Each row runs for eight roles, and the package rows build real workbooks and PDFs
+    // (a second or two each on a shared machine): more time than one ordinary test.
+  }, 240_000);
 });
 
 describe("server actions", () => {

@@ -107,7 +107,7 @@ describe("speed ramps from the form to the package", () => {
 
     // Packaged: the earlier revision has the usual sheets, the later one the speed-ramp sheet as well.
     const sheetsOf = async (revisionId: string) => {
-      const res = await callRoute(PACKAGE, "GET", { ...params, revisionId }, { cookie: fx.cookies.viewer });
+      const res = await callRoute(PACKAGE, "GET", { ...params, revisionId }, { cookie: fx.cookies.checker });
       expect(res.status).toBe(200);
       const wb = new ExcelJS.Workbook();
       await wb.xlsx.load((await res.arrayBuffer()) as ArrayBuffer);

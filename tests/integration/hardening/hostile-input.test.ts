@@ -22,7 +22,7 @@ import {
   setUnitsPreferenceAction,
   updateProjectSettingsAction,
 } from "@/app/(desk)/actions";
-import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
+import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction, shareRevisionAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { acceptSubmissionAction, returnSubmissionAction, sendDataRequestAction, submitMachineFormAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
 import { cookieFor, freshPeer, getFixture, makeRequest, type ActionFn, type Fixture } from "../support/fixture";
 import { callRouteAt, errorOf, scanStoredNumbers, Tally } from "../support/hardening-helpers";
@@ -365,6 +365,7 @@ describe("every server action under hostile form fields", () => {
     { name: "revision.decide", action: decideRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, outcome: "returned", note: "fuzz" }), cookie: async () => hx.checkerCookie },
     { name: "revision.comment", action: commentOnRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, body: "fuzz comment", fieldPath: "soil.poissonRatio" }), cookie: async () => hx.checkerCookie },
     { name: "revision.resolveComment", action: resolveRevisionCommentAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, commentId: hx.commentId, resolved: "true" }), cookie: async () => hx.checkerCookie },
+    { name: "revision.share", action: shareRevisionAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, revisionId: hx.revisionId, shared: "true" }), cookie: async () => fx.cookies.manager },
     { name: "vendor.sendRequest", action: sendDataRequestAction, base: async () => ({ projectId: hx.projectId, foundationId: hx.foundationId, contact: `member:${hx.vendorId}`, machineNames: "Fan", message: "", dueOn: "" }), cookie: async () => fx.cookies.manager },
     { name: "vendor.submitForm", action: submitMachineFormAction, base: async () => ({ projectId: hx.projectId, requestId: hx.requestId, machines: JSON.stringify(sampleAnalysisInput().machines), note: "" }), cookie: async () => hx.vendorCookie },
     { name: "vendor.acceptSubmission", action: acceptSubmissionAction, base: async () => ({ projectId: hx.projectId, submissionId: hx.submissionId, draftVersion: "1" }), cookie: async () => fx.cookies.manager },

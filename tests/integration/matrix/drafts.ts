@@ -32,10 +32,11 @@ export const routeCases: RouteCase[] = [
     allowed: [...permissionMap["foundation.read"]],
     request: async (fx) => ({ params: foundationParams(fx) }),
   },
+  // The live draft is the design team's: the client (viewer) is refused (issue 18, item 5).
   {
     route: "v1/projects/[projectId]/foundations/[foundationId]/draft",
     method: "GET",
-    allowed: [...permissionMap["foundation.read"]],
+    allowed: [...permissionMap["draft.read"]],
     request: async (fx) => ({ params: foundationParams(fx) }),
   },
   {

@@ -8,7 +8,7 @@ import { createFoundation, listFoundations } from "@/db/queries/projects";
 import { createRevisionComment, decideRevision, issueRevision, listRevisionComments, listRevisions } from "@/db/queries/revisions";
 import { parseAnalysisInput } from "@/modules/calc";
 import { permissionMap } from "@/modules/platform/permissions";
-import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
+import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction, shareRevisionAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import type { Fixture } from "../support/fixture";
 import type { ActionCase, RouteCase } from "../support/matrix-types";
 import { sampleAnalysisInput } from "../analysis-input-sample";
@@ -85,7 +85,11 @@ export const routeCases: RouteCase[] = [
     allowed: [...permissionMap["revision.decide"]],
     request: async (fx) => ({ params: await revisionParams(fx), body: { outcome: "checked", note: "" } }),
   },
-  { route: `${base}/[revisionId]/comments`, method: "GET", allowed: [...permissionMap["revision.read"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
+  // Review comments are internal: the client (viewer) is refused (issue 18, item 5).
+  { route: `${base}/[revisionId]/comments`, method: "GET", allowed: [...permissionMap["revision.commentsRead"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
+  // Sharing a revision's package with the client: managers only (left shared, then withdrawn).
+  { route: `${base}/[revisionId]/share`, method: "POST", allowed: [...permissionMap["revision.share"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
+  { route: `${base}/[revisionId]/share`, method: "DELETE", allowed: [...permissionMap["revision.share"]], request: async (fx) => ({ params: await revisionParams(fx) }) },
   {
     route: `${base}/[revisionId]/comments`,
     method: "POST",
@@ -127,6 +131,12 @@ export const actionCases: ActionCase[] = [
     action: commentOnRevisionAction,
     allowed: [...permissionMap["revision.comment"]],
     fields: async (fx, role) => ({ ...(await revisionParams(fx)), body: `matrix: ${role} comments`, fieldPath: "soil.poissonRatio" }),
+  },
+  {
+    name: "revision.share",
+    action: shareRevisionAction,
+    allowed: [...permissionMap["revision.share"]],
+    fields: async (fx) => ({ ...(await revisionParams(fx)), shared: "false" }),
   },
   {
     name: "revision.resolveComment",

@@ -40,10 +40,17 @@ describe("revision status", () => {
     expect(revisionStatus("approved", false)).toBe("approved");
     expect(revisionStatus("approved", true)).toBe("superseded");
     // Two-step sign-off: a check without a decision is "checked"; a decision or a later revision wins.
-    expect(revisionStatus(null, false, true)).toBe("checked");
-    expect(revisionStatus("approved", false, true)).toBe("approved");
-    expect(revisionStatus("returned", false, true)).toBe("returned");
-    expect(revisionStatus(null, true, true)).toBe("superseded");
+    expect(revisionStatus(null, false, { checked: true })).toBe("checked");
+    expect(revisionStatus("approved", false, { checked: true })).toBe("approved");
+    expect(revisionStatus("returned", false, { checked: true })).toBe("returned");
+    expect(revisionStatus(null, true, { checked: true })).toBe("superseded");
+  });
+
+  it("keeps an approved revision approved while a later one is only in check or returned", () => {
+    expect(revisionStatus("approved", true, { hasLaterApproval: false })).toBe("approved");
+    expect(revisionStatus("approved", true, { hasLaterApproval: true })).toBe("superseded");
+    expect(revisionStatus("returned", true, { hasLaterApproval: false })).toBe("superseded");
+    expect(revisionStatus(null, true, { hasLaterApproval: false })).toBe("superseded");
   });
 
   it("flags an approval whose vendor submission has since been replaced in the draft", () => {

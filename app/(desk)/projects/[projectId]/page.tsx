@@ -26,7 +26,8 @@ async function safeGoverning(input: AnalysisInput): Promise<GoverningSummary | n
   return g;
 }
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
-import { listFoundationRevisionStates } from "@/db/queries/revisions";
+import { listFoundationRevisionStates, listLatestIssuedChecks } from "@/db/queries/revisions";
+import { governingCheck } from "@/modules/desk/foundation-summary";
 import { isApprovalStale, revisionStatusLabels } from "@/modules/revisions";
 import { FoundationTable, type FoundationRowView } from "../../../_components/foundation-table";
 import { requireProjectPage } from "../../../_lib/page-guard";
@@ -41,15 +42,23 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const { projectId } = await params;
   const { actor, project, role } = await requireProjectPage(projectId, "project.read");
   const mayWithdraw = roleAllows(role, "foundation.withdraw");
-  const [foundations, revisionStates, withdrawn] = await Promise.all([
+  // The design team sees the live draft; the client (no "draft.read") sees issued revisions
+  // only, so its governing check is the latest issued revision's, as stored, never a live run.
+  const mayReadDraft = roleAllows(role, "draft.read");
+  const [foundations, revisionStates, withdrawn, issuedChecks] = await Promise.all([
     listFoundationsWithDrafts(actor, projectId),
     listFoundationRevisionStates(actor, projectId),
     mayWithdraw ? listWithdrawnFoundations(actor, projectId) : Promise.resolve([]),
+    mayReadDraft ? Promise.resolve([]) : listLatestIssuedChecks(actor, projectId),
   ]);
   const stateOf = new Map(revisionStates.map((s) => [s.foundationId, s]));
+  const issuedChecksOf = new Map(issuedChecks.map((c) => [c.foundationId, c]));
   // one foundation after another: a page of new inputs waits its turn instead of filling the queue
   const governing: (GoverningSummary | null)[] = [];
-  for (const f of foundations) governing.push(f.input ? await safeGoverning(f.input) : null);
+  for (const f of foundations) {
+    const issued = issuedChecksOf.get(f.id);
+    governing.push(mayReadDraft ? (f.input ? await safeGoverning(f.input) : null) : issued ? governingCheck(issued.result) : null);
+  }
   const rows: FoundationRowView[] = foundations.map((f, i) => {
     const rev = stateOf.get(f.id);
     const latest = rev?.latest ?? null;
@@ -58,12 +67,15 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       tag: f.tag,
       machineTrain: f.machineTrain,
       location: f.location,
-      status: latest ? revisionStatusLabels[latest.status] : f.input ? `draft v${f.draftVersion}` : "not started",
+      status: latest ? revisionStatusLabels[latest.status] : !mayReadDraft ? "none issued" : f.input ? `draft v${f.draftVersion}` : "not started",
       latestRevision: latest ? latest.label : "none issued",
       latestRevisionId: latest?.id ?? null,
-      openComments: rev?.openComments ?? 0,
+      latestApproved: rev?.latestApproved?.label ?? "none approved",
+      latestApprovedId: rev?.latestApproved?.id ?? null,
+      openComments: rev?.openComments ?? null,
+      href: mayReadDraft ? `/projects/${projectId}/foundations/${f.id}` : `/projects/${projectId}/foundations/${f.id}/revisions`,
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
-      flags: latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
+      flags: mayReadDraft && latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
       governing: governing[i] ?? null,
       updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
     };
@@ -93,7 +105,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
             {roleAllows(role, "foundation.create") ? "Add the first one below." : "A designer adds them."}
           </EmptyState>
         ) : (
-          <FoundationTable projectId={projectId} rows={rows} />
+          <FoundationTable projectId={projectId} rows={rows} showComments={roleAllows(role, "revision.commentsRead")} />
         )}
       </section>
       {withdrawn.length > 0 ? (

@@ -15,7 +15,7 @@ export const metadata: Metadata = { title: "Foundation workspace" };
 
 export default async function FoundationPage({ params }: { params: Promise<{ projectId: string; foundationId: string }> }) {
   const { projectId, foundationId } = await params;
-  const { actor, project, role, user } = await requireProjectPage(projectId, "foundation.read");
+  const { actor, project, role, user } = await requireProjectPage(projectId, "draft.read");
   if (!/^[0-9a-f-]{36}$/i.test(foundationId)) notFound();
   const foundation = await getFoundation(actor, projectId, foundationId);
   const draft = foundation ? await getDraft(actor, projectId, foundationId) : undefined;

@@ -1,6 +1,6 @@
 import { listFoundationsWithDrafts } from "@/db/queries/drafts";
 import { getProjectForMember } from "@/db/queries/projects";
-import { getRevision, getUserContact, listFoundationRevisionStates } from "@/db/queries/revisions";
+import { getRevision, getUserContact, listFoundationRevisionStates, listRevisions } from "@/db/queries/revisions";
 import { defineRoute } from "@/app/_lib/route";
 import { AppError } from "@/modules/platform/errors";
 import { canonicalInputHash, isApprovalStale } from "@/modules/revisions";
@@ -23,6 +23,7 @@ export const GET = defineRoute({
     for (const f of foundations) {
       const state = stateOf.get(f.id);
       const latest = state?.latest ? await getRevision(actor, project.id, f.id, state.latest.id) : undefined;
+      const approved = state?.latestApproved ? (state.latestApproved.id === latest?.id ? latest : (await listRevisions(actor, project.id, f.id)).find((r) => r.id === state.latestApproved?.id)) : undefined;
       const flags: string[] = [];
       if (state?.latest && isApprovalStale(state.latest, state.draftVendorSubmissionId)) flags.push("vendor data changed since approval");
       if (latest && f.input && canonicalInputHash(f.input) !== latest.inputHash) flags.push("draft differs from the latest revision");
@@ -32,6 +33,7 @@ export const GET = defineRoute({
         location: f.location,
         draftState: f.input ? `draft v${f.draftVersion}, not issued` : "not started",
         latest: latest ? { ...latest, result: latest.result } : null,
+        latestApproved: approved ? { label: approved.label, approvedAt: approved.decision?.decidedAt ?? null } : null,
         revisionCount: state?.revisionCount ?? 0,
         flags,
       });

@@ -2,8 +2,9 @@
 
 import { AppError } from "@/modules/platform/errors";
 import { resolveCommentSchema, revisionCommentSchema, revisionDecisionSchema, revisionIssueSchema } from "@/modules/revisions";
+import { z } from "zod";
 import { defineAction } from "@/app/_lib/action";
-import { commentOnRevision, decideOnRevision, issueForCheck, resolveRevisionComment, revisionPath } from "./revision-service";
+import { commentOnRevision, decideOnRevision, issueForCheck, resolveRevisionComment, revisionPath, shareRevisionWithClient } from "./revision-service";
 
 // Pages whose server-rendered data a revision command changes: the revision, the
 // foundation's revisions, the workspace (its revision bar) and the project page.
@@ -65,4 +66,24 @@ export const resolveRevisionCommentAction = defineAction({
     return { commentId: c.id, revisionId: c.revisionId, resolved: c.resolved, message: c.resolved ? "Marked resolved." : "Opened again." };
   },
   revalidate: (d, i) => touched({ ...i, revisionId: d.revisionId }),
+});
+
+const uuidField = (what: string) => z.string({ error: `${what} is required` }).uuid({ error: `${what} must be an id` });
+
+export const shareRevisionAction = defineAction({
+  name: "revision.share",
+  access: { kind: "project", permission: "revision.share" },
+  schema: z.object({
+    projectId: uuidField("projectId"),
+    foundationId: uuidField("foundationId"),
+    revisionId: uuidField("revisionId"),
+    shared: z.enum(["true", "false"], { error: "shared must be true or false" }).transform((v) => v === "true"),
+  }),
+  projectId: (i) => i.projectId,
+  handler: async (ctx, input) => {
+    if (!ctx.auth) throw new AppError("unauthenticated");
+    const rev = await shareRevisionWithClient(ctx.auth.actor, input);
+    return { revisionId: rev.id, shared: rev.sharedWithClient !== null, message: rev.sharedWithClient ? `Revision ${rev.label} shared with the client.` : `Revision ${rev.label} no longer shared with the client.` };
+  },
+  revalidate: (_d, i) => touched(i),
 });

@@ -23,6 +23,8 @@ const actionWords: Record<string, string> = {
   "revision.comment-reopened": "opened a comment again on",
   "revision.returned": "returned",
   "revision.approved": "approved",
+  "revision.shared-with-client": "shared with the client",
+  "revision.share-withdrawn": "withdrew the client's share of",
 };
 
 export default async function RevisionsPage({ params }: { params: Promise<{ projectId: string; foundationId: string }> }) {
@@ -34,6 +36,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
   const [revisions, history, draft] = await Promise.all([listRevisions(actor, projectId, foundationId), listRevisionHistory(actor, projectId, foundationId), getDraft(actor, projectId, foundationId)]);
   const latest = revisions.at(-1);
   const mayIssue = roleAllows(role, "revision.issue");
+  const showComments = roleAllows(role, "revision.commentsRead");
   const draftHash = draft?.input ? canonicalInputHash(draft.input) : null;
   const sameAsLatest = !!latest && draftHash === latest.inputHash;
   const previous = revisions.at(-2);
@@ -42,7 +45,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
   return (
     <div className="space-y-6">
       <div>
-        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} />
+        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} workspace={roleAllows(role, "draft.read")} />
         <h1>Revisions of {foundation.tag}</h1>
         <p className="mt-1 text-sm text-basalt-500">{foundation.machineTrain}</p>
       </div>
@@ -82,7 +85,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                   <th>Issued</th>
                   <th>Decision</th>
                   <th>Note</th>
-                  <th>Open comments</th>
+                  {showComments ? <th>Open comments</th> : null}
                   <th>Fingerprint</th>
                 </tr>
               </thead>
@@ -96,6 +99,16 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                     </td>
                     <td>
                       <RevisionStatusTag status={r.status} />
+                      {r.latestApproved && revisions.at(-1)?.id !== r.id ? (
+                        <span className="tag ml-1 bg-moss-100 text-moss-700" data-testid="latest-approved-tag">
+                          latest approved
+                        </span>
+                      ) : null}
+                      {r.sharedWithClient && r.decision?.outcome !== "approved" ? (
+                        <span className="tag ml-1 bg-grout-100 text-basalt-700" data-testid="shared-tag">
+                          shared with the client
+                        </span>
+                      ) : null}
                     </td>
                     <td className="text-xs">{revisionPurposeLabels[r.purpose]}</td>
                     <td className="text-xs">
@@ -108,7 +121,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
                     <td className="max-w-xs text-xs" data-testid="revision-note">
                       {r.note || <span className="text-basalt-400">no note recorded</span>}
                     </td>
-                    <td className="font-mono text-xs">{r.openComments}</td>
+                    {showComments ? <td className="font-mono text-xs">{r.openComments}</td> : null}
                     <td className="font-mono text-2xs text-basalt-400" title={`SHA-256 of the canonical input; engine ${r.engineVersion}`}>
                       {r.inputHash.slice(0, 12)}…
                     </td>

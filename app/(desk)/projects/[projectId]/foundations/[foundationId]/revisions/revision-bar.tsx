@@ -6,7 +6,7 @@ import { revisionPath } from "./revision-service";
 /** The workspace's line about issued revisions: the latest, its state, and the way to issue. */
 export function RevisionBar({ projectId, foundationId, revisions, mayIssue }: { projectId: string; foundationId: string; revisions: RevisionSummary[]; mayIssue: boolean }) {
   const latest = revisions.at(-1);
-  const open = revisions.reduce((n, r) => n + r.openComments, 0);
+  const open = revisions.reduce((n, r) => n + (r.openComments ?? 0), 0);
   return (
     <div className="slab flex flex-wrap items-center gap-3 px-4 py-2 text-sm" data-testid="revision-bar">
       <span className="font-semibold">Issued revisions</span>

@@ -4,7 +4,7 @@ import { useActionState, useRef } from "react";
 import { useFormStatus } from "react-dom";
 import { FormMessage, SubmitButton, fieldErrorsOf, type FormState } from "@/app/_components/form-kit";
 import { REVISION_PURPOSES, revisionPurposeLabels } from "@/modules/revisions";
-import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction } from "./actions";
+import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction, shareRevisionAction } from "./actions";
 
 type Act = (s: FormState, f: FormData) => Promise<FormState>;
 
@@ -182,6 +182,21 @@ export function ResolveButton({ projectId, foundationId, commentId, resolved }: 
       <input type="hidden" name="commentId" value={commentId} />
       <input type="hidden" name="resolved" value={resolved ? "false" : "true"} />
       <SubmitButton className="btn-quiet px-2 py-0.5 text-xs">{resolved ? "Open again" : "Mark resolved"}</SubmitButton>
+      {state && !state.ok ? <span className="field-error ml-2">{state.message}</span> : null}
+    </form>
+  );
+}
+
+/** A manager shares an unapproved revision's package with the client, or withdraws the share. */
+export function ShareForm({ projectId, foundationId, revisionId, shared }: { projectId: string; foundationId: string; revisionId: string; shared: boolean }) {
+  const [state, action] = useActionState(shareRevisionAction as unknown as Act, null);
+  return (
+    <form action={action} className="inline" data-testid="share-form">
+      <input type="hidden" name="projectId" value={projectId} />
+      <input type="hidden" name="foundationId" value={foundationId} />
+      <input type="hidden" name="revisionId" value={revisionId} />
+      <input type="hidden" name="shared" value={shared ? "false" : "true"} />
+      <SubmitButton className="btn-quiet px-2 py-0.5 text-xs">{shared ? "Stop sharing with the client" : "Share the package with the client"}</SubmitButton>
       {state && !state.ok ? <span className="field-error ml-2">{state.message}</span> : null}
     </form>
   );

@@ -22,10 +22,25 @@ export function formatStamp(d: Date): string {
 }
 
 /** project / foundation / revisions, above every revision page's heading. */
-export function RevisionCrumbs({ projectId, projectCode, foundationId, tag, revisionsHref }: { projectId: string; projectCode: string; foundationId: string; tag: string; revisionsHref?: string }) {
+/** `workspace`: link the tag to the workspace (the draft), for readers who may read drafts; not the client. */
+export function RevisionCrumbs({
+  projectId,
+  projectCode,
+  foundationId,
+  tag,
+  revisionsHref,
+  workspace = true,
+}: {
+  projectId: string;
+  projectCode: string;
+  foundationId: string;
+  tag: string;
+  revisionsHref?: string;
+  workspace?: boolean;
+}) {
   return (
     <p className="text-xs text-basalt-500">
-      <Link href={`/projects/${projectId}`}>{projectCode}</Link> / <Link href={`/projects/${projectId}/foundations/${foundationId}`}>{tag}</Link> /{" "}
+      <Link href={`/projects/${projectId}`}>{projectCode}</Link> / {workspace ? <Link href={`/projects/${projectId}/foundations/${foundationId}`}>{tag}</Link> : tag} /{" "}
       {revisionsHref ? <Link href={revisionsHref}>revisions</Link> : "revisions"}
     </p>
   );

@@ -9,6 +9,7 @@ import {
   issueRevision,
   listMemberEmailsByRole,
   setRevisionCommentResolved,
+  setRevisionShared,
   type RevisionComment,
   type RevisionSummary,
 } from "@/db/queries/revisions";
@@ -159,4 +160,14 @@ export async function resolveRevisionComment(actor: Actor, input: { projectId: s
     }
   }
   return out.comment;
+}
+
+/** Shares a revision's package with the client (viewer role) or withdraws the share. */
+export async function shareRevisionWithClient(actor: Actor, input: { projectId: string; foundationId: string; revisionId: string; shared: boolean }): Promise<RevisionSummary> {
+  const out = await setRevisionShared(actor, input.projectId, input.foundationId, input.revisionId, input.shared);
+  if (!out.ok) {
+    if (out.reason === "forbidden") throw new AppError("forbidden");
+    throw new AppError("not_found", "That revision is not on this foundation.");
+  }
+  return out.revision;
 }

@@ -7,7 +7,7 @@ import { getFoundation } from "@/db/queries/foundations";
 import { getRevision, listRevisionComments, listRevisions, type RevisionComment } from "@/db/queries/revisions";
 import { requireProjectPage } from "@/app/_lib/page-guard";
 import { Cautions } from "@/app/_components/cautions";
-import { CommentForm, DecisionForm, ResolveButton } from "../revision-forms";
+import { CommentForm, DecisionForm, ResolveButton, ShareForm } from "../revision-forms";
 import { RevisionResults } from "../revision-results";
 import { formatStamp, RevisionCrumbs, RevisionStatusTag } from "../revision-parts";
 import { revisionPath } from "../revision-service";
@@ -26,6 +26,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   const [comments, all] = await Promise.all([listRevisionComments(actor, projectId, foundationId, revisionId), listRevisions(actor, projectId, foundationId)]);
   const previous = all.filter((r) => r.sequence < revision.sequence).at(-1);
   const mayComment = roleAllows(role, "revision.comment");
+  const showComments = roleAllows(role, "revision.commentsRead");
+  // The same rule as getPackageRevision: the team always; the client when approved or shared.
+  const packageReleased = showComments || revision.decision?.outcome === "approved" || revision.sharedWithClient !== null;
   // Four eyes: neither the issuer nor anyone who edited the draft (decideRevision refuses them too).
   const wroteIt = revision.issuedById === user.id || revision.editors.some((e) => e.id === user.id);
   // Two steps: "checked" first, then the approval by someone other than the checker.
@@ -41,7 +44,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   return (
     <div className="space-y-6">
       <div>
-        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} />
+        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} workspace={roleAllows(role, "draft.read")} />
         <h1>
           {foundation.tag} revision <span className="font-mono">{revision.label}</span>
         </h1>
@@ -110,7 +113,27 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           </p>
         ) : null}
         {revision.decision?.note ? <p className="mt-2 rounded-plinth bg-grout-100 px-3 py-2 text-sm">“{revision.decision.note}”</p> : null}
-        {roleAllows(role, "package.export") ? (
+        {revision.latestApproved && revision.status === "approved" && all.at(-1)?.id !== revision.id ? (
+          <p className="mt-2 text-sm text-moss-700" data-testid="latest-approved-note">
+            The latest approved revision: it stays the one of record while revision {all.at(-1)?.label} is {all.at(-1)?.status === "returned" ? "returned" : "in check"}.
+          </p>
+        ) : null}
+        {roleAllows(role, "revision.share") && revision.decision?.outcome !== "approved" ? (
+          <div className="mt-2 text-sm">
+            <ShareForm projectId={projectId} foundationId={foundationId} revisionId={revision.id} shared={revision.sharedWithClient !== null} />
+            {revision.sharedWithClient ? (
+              <span className="ml-2 text-xs text-basalt-500" data-testid="shared-note">
+                Shared with the client by {revision.sharedWithClient.sharedByName}, {formatStamp(revision.sharedWithClient.sharedAt)}.
+              </span>
+            ) : null}
+          </div>
+        ) : null}
+        {!packageReleased && roleAllows(role, "package.export") ? (
+          <p className="mt-3 text-sm text-basalt-500" data-testid="package-not-released">
+            The calculation package goes to the client once this revision is approved, or when a manager shares it.
+          </p>
+        ) : null}
+        {roleAllows(role, "package.export") && packageReleased ? (
           <p className="mt-3">
             <a className="btn-quiet" href={`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions/${revision.id}/package`} download data-testid="package-download">
               Download the calculation package (.xlsx)
@@ -138,6 +161,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
         </section>
       ) : null}
 
+      {showComments ? (
       <section className="space-y-3" aria-labelledby="comments-heading">
         <h2 id="comments-heading">Review comments</h2>
         {threads.length === 0 ? <p className="text-sm text-basalt-400">No comments on this revision.</p> : null}
@@ -179,6 +203,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           </div>
         ) : null}
       </section>
+      ) : null}
 
       <FieldCommentArea projectId={projectId} foundationId={foundationId} revisionId={revision.id} mayComment={mayComment}>
         <section className="space-y-3" aria-labelledby="results-heading">

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { roleAllows } from "@/modules/platform/permissions";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { CHECK_VERDICT_LABELS } from "@/modules/calc";
@@ -94,7 +95,7 @@ export default async function ComparePage({
 }) {
   const { projectId, foundationId } = await params;
   const query = await searchParams;
-  const { actor, project, user } = await requireProjectPage(projectId, "revision.read");
+  const { actor, project, user, role } = await requireProjectPage(projectId, "revision.read");
   if (!uuid.test(foundationId)) notFound();
   const foundation = await getFoundation(actor, projectId, foundationId);
   if (!foundation) notFound();
@@ -110,7 +111,7 @@ export default async function ComparePage({
   return (
     <div className="space-y-6">
       <div>
-        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} />
+        <RevisionCrumbs projectId={projectId} projectCode={project.code} foundationId={foundationId} tag={foundation.tag} revisionsHref={revisionPath(projectId, foundationId)} workspace={roleAllows(role, "draft.read")} />
         <h1>
           {foundation.tag}: revision <span className="font-mono">{older.label}</span> against <span className="font-mono">{newer.label}</span>
         </h1>

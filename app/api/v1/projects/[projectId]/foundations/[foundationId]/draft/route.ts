@@ -15,7 +15,7 @@ const putBodySchema = z.strictObject({
 });
 
 export const GET = defineRoute({
-  access: { kind: "project", permission: "foundation.read" },
+  access: { kind: "project", permission: "draft.read" },
   projectId: projectIdOf,
   handler: async ({ auth, params }) => {
     const draft = await getDraft(auth!.actor, params.projectId, foundationIdOf(params));

@@ -5,7 +5,7 @@ import { idOf, revisionNotFound, type RevisionParams } from "../revision-params"
 export const dynamic = "force-dynamic";
 
 // One issued revision: what was issued (input, result, engine version, fingerprint),
-// its state and its comments.
+// its state and its comments (for the design team; the client gets none, see listRevisionComments).
 export const GET = defineRoute({
   access: { kind: "project", permission: "revision.read" },
   projectId: (p: RevisionParams) => p.projectId,

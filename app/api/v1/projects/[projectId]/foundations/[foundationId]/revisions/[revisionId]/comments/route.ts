@@ -9,7 +9,7 @@ export const dynamic = "force-dynamic";
 const projectIdOf = (p: RevisionParams) => p.projectId;
 
 export const GET = defineRoute({
-  access: { kind: "project", permission: "revision.read" },
+  access: { kind: "project", permission: "revision.commentsRead" },
   projectId: projectIdOf,
   handler: async ({ auth, params }) => {
     const comments = await listRevisionComments(auth!.actor, params.projectId, idOf(params.foundationId, "foundation"), idOf(params.revisionId, "revision"));

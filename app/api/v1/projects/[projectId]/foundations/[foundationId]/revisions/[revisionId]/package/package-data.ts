@@ -1,6 +1,7 @@
 import { getFoundation } from "@/db/queries/foundations";
 import { getProjectForMember, type Actor } from "@/db/queries/projects";
-import { getRevision, getRevisionVendorSubmission, getUserContact, listRevisionCommentsWithResolution, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import { getPackageRevision, getRevision, getRevisionVendorSubmission, getUserContact, listRevisionCommentsWithResolution, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
+import { AppError } from "@/modules/platform/errors";
 import type { RevisionPackageData } from "@/modules/calc-package";
 import { idOf, revisionNotFound, type RevisionParams } from "../../revision-params";
 
@@ -12,6 +13,12 @@ import { idOf, revisionNotFound, type RevisionParams } from "../../revision-para
 export async function readPackageRows(actor: Actor, params: RevisionParams) {
   const foundationId = idOf(params.foundationId, "foundation");
   const revisionId = idOf(params.revisionId, "revision");
+  // The client (viewer) gets approved revisions' packages, or one a manager shared; 403 otherwise.
+  const access = await getPackageRevision(actor, params.projectId, foundationId, revisionId);
+  if (!access.ok && access.reason === "not-found") throw revisionNotFound();
+  if (!access.ok) {
+    throw new AppError("forbidden", `Revision ${access.revision.label} is ${access.revision.status === "in-check" ? "in check" : access.revision.status}: the client receives approved packages only, unless a manager shares this one.`);
+  }
   const [project, foundation, history, trail, me] = await Promise.all([
     getProjectForMember(actor, params.projectId),
     getFoundation(actor, params.projectId, foundationId),
