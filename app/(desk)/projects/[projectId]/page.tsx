@@ -58,13 +58,15 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       tag: f.tag,
       machineTrain: f.machineTrain,
       location: f.location,
-      status: latest ? revisionStatusLabels[latest.status] : f.input ? `draft v${f.draftVersion}` : "not started",
+      status: latest ? revisionStatusLabels[latest.status] : f.input ? `draft v${f.draftVersion}` : f.incomplete ? `draft v${f.draftVersion}, incomplete` : "not started",
       latestRevision: latest ? latest.label : "none issued",
       latestRevisionId: latest?.id ?? null,
       openComments: rev?.openComments ?? 0,
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
       flags: latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
       governing: governing[i] ?? null,
+      // A draft saved with blanks: no verdict until it is complete (issue 18).
+      draftIncomplete: f.incomplete,
       updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
     };
   });

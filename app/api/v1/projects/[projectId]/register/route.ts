@@ -30,7 +30,7 @@ export const GET = defineRoute({
         tag: f.tag,
         machineTrain: f.machineTrain,
         location: f.location,
-        draftState: f.input ? `draft v${f.draftVersion}, not issued` : "not started",
+        draftState: f.input ? `draft v${f.draftVersion}, not issued` : f.incomplete ? `draft v${f.draftVersion}, incomplete, not issued` : "not started",
         latest: latest ? { ...latest, result: latest.result } : null,
         revisionCount: state?.revisionCount ?? 0,
         flags,
