@@ -39,12 +39,11 @@ function isMissing(issue: z.core.$ZodIssue, json: unknown): boolean {
 export function parseDraftInput(json: unknown): DraftParseResult {
   const parsed = analysisInputSchema.safeParse(json);
   if (parsed.success) return { ok: true, complete: true, input: parsed.data };
-  const wrong = parsed.error.issues.filter((i) => !isMissing(i, json));
-  if (wrong.length) {
-    return {
-      ok: false,
-      issues: wrong.flatMap((i) => (i.code === "unrecognized_keys" ? i.keys.map((k) => ({ path: formatPath([...i.path, k]), message: "unknown field" })) : [{ path: formatPath(i.path), message: i.message }])),
-    };
-  }
-  return { ok: true, complete: false, missing: parsed.error.issues.map((i) => ({ path: formatPath(i.path), message: REQUIRED_MESSAGE })) };
+  const issues = parsed.error.issues.flatMap((i): InputIssue[] => {
+    if (i.code === "unrecognized_keys") return i.keys.map((k) => ({ path: formatPath([...i.path, k]), message: "unknown field" }));
+    return [{ path: formatPath(i.path), message: isMissing(i, json) ? REQUIRED_MESSAGE : i.message }];
+  });
+  // Refused: every problem is named, the blanks as "is required" beside the wrong values.
+  if (parsed.error.issues.some((i) => !isMissing(i, json))) return { ok: false, issues };
+  return { ok: true, complete: false, missing: issues };
 }
