@@ -14,6 +14,7 @@ import { createVendorSubmission } from "@/db/queries/vendor-submissions";
 import type { MachineInput } from "@/modules/calc/schema";
 import { emptyDraftForm, newMachine, toInputDocument } from "@/modules/desk/draft-form";
 import { acceptSubmissionAction } from "@/app/(desk)/projects/[projectId]/requests/actions";
+import { issueRevisionAction } from "@/app/(desk)/projects/[projectId]/foundations/[foundationId]/revisions/actions";
 import { callAction, callRoute, getFixture, type Fixture } from "./support/fixture";
 import { sampleAnalysisInput } from "./analysis-input-sample";
 
@@ -93,6 +94,10 @@ describe("an incomplete draft", () => {
     expect(byPath["input.soil.density"]).toBe("is required");
     expect(byPath["input.machines[0].mass"]).toBe("is required");
     expect(issues.some((i) => /finite/.test(i.message))).toBe(false);
+    // The issue form shows one line: it names the missing fields.
+    const { state } = await callAction(issueRevisionAction, { ...p }, fx.cookies.designer);
+    expect(state).toMatchObject({ ok: false, code: "invalid_input" });
+    expect((state as { message: string }).message).toMatch(/incomplete.*soil\.density.*machines\[0\]\.mass|incomplete.*machines\[0\]\.mass.*soil\.density/);
   });
 
   it("the project's foundation list (the project page's data) and the register do not fail on it", async () => {
