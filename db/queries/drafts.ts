@@ -136,6 +136,8 @@ export interface FoundationWithDraft {
   input: AnalysisInput | null;
   /** A draft is stored but incomplete: no verdict until it is complete. */
   incomplete: boolean;
+  /** The draft's machine names, complete or not (a data request asks for them by name). */
+  machineNames: string[];
 }
 
 /** Every foundation of the project with its draft, for members who may read foundations. */
@@ -158,7 +160,9 @@ export async function listFoundationsWithDrafts(actor: Actor, projectId: string)
     .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)))
     .orderBy(asc(foundations.tag));
   return rows.map((r) => {
-    const { input, incomplete } = storedDraftInput(r.input);
-    return { ...r, draftVersion: r.draftVersion ?? 0, input, incomplete };
+    const { input, document, incomplete } = storedDraftInput(r.input);
+    const machines: unknown[] = Array.isArray(document?.machines) ? document.machines : [];
+    const machineNames = machines.map((m) => (m as { name?: unknown } | null)?.name).filter((n): n is string => typeof n === "string" && n.trim() !== "");
+    return { ...r, draftVersion: r.draftVersion ?? 0, input, incomplete, machineNames };
   });
 }

@@ -103,7 +103,7 @@ describe("an incomplete draft", () => {
   it("the project's foundation list (the project page's data) and the register do not fail on it", async () => {
     const list = await listFoundationsWithDrafts({ userId: fx.userIds.manager, isAdmin: false }, fx.projectId);
     const mine = list.find((f) => f.id === p.foundationId);
-    expect(mine).toMatchObject({ input: null, incomplete: true, draftVersion: 1 });
+    expect(mine).toMatchObject({ input: null, incomplete: true, draftVersion: 1, machineNames: ["Feed pump"] });
     const res = await callRoute(REGISTER, "GET", { projectId: fx.projectId }, { cookie: fx.cookies.manager });
     expect(res.status).toBe(200);
     const wb = new ExcelJS.Workbook();
