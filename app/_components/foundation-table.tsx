@@ -30,6 +30,8 @@ export interface FoundationRowView {
   href: string;
   flags: string[];
   governing: GoverningSummary | null;
+  /** The draft is saved but incomplete: "incomplete" where the verdict would be. */
+  draftIncomplete?: boolean;
   updatedAt: string;
 }
 
@@ -94,7 +96,14 @@ export function FoundationTable({ projectId, rows, showComments = true }: { proj
         header: "Governing check",
         cell: (c) => {
           const g = c.row.original.governing;
-          if (!g) return <span className="text-basalt-400">no complete input</span>;
+          if (!g)
+            return c.row.original.draftIncomplete ? (
+              <span className="tag bg-ochre-100 text-ochre-700" data-verdict="incomplete">
+                incomplete
+              </span>
+            ) : (
+              <span className="text-basalt-400">no complete input</span>
+            );
           return (
             <span className="text-xs">
               <span

@@ -1,19 +1,25 @@
 import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
 import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
-import type { AnalysisInput } from "@/modules/calc";
+import { parseDraftInput, type AnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor } from "./projects";
 
 /**
  * A foundation's draft as the API shows it. `version` 0 with `input` null means nothing
- * has been saved yet; the first save must then expect version 0.
+ * has been saved yet; the first save must then expect version 0. A draft may be stored
+ * incomplete (issue 18): then `input` is null, `incomplete` true, and `document` holds what
+ * was saved (the contract's shape with blanks); readers show "incomplete" for it.
  */
 export interface Draft {
   foundationId: string;
   version: number;
+  /** The valid analysis input; null when nothing is saved or the draft is incomplete. */
   input: AnalysisInput | null;
+  /** What is stored, complete or not (null when nothing is saved). */
+  document: AnalysisInputDocument | null;
+  incomplete: boolean;
   vendorSubmissionId: string | null;
   updatedById: string | null;
   updatedAt: Date | null;
@@ -21,13 +27,20 @@ export interface Draft {
 
 export type SaveDraftResult = { ok: true; draft: Draft } | { ok: false; current: Draft };
 
+/** A stored draft's input: complete (a valid AnalysisInput) or incomplete (a draft document). */
+export function storedDraftInput(stored: unknown): { input: AnalysisInput | null; document: AnalysisInputDocument | null; incomplete: boolean } {
+  if (stored === null || stored === undefined) return { input: null, document: null, incomplete: false };
+  // Every writer checks with parseDraftInput first, so what is stored is complete or only incomplete.
+  const parsed = parseDraftInput(stored);
+  if (parsed.ok && parsed.complete) return { input: parsed.input, document: stored as AnalysisInputDocument, incomplete: false };
+  return { input: null, document: stored as AnalysisInputDocument, incomplete: true };
+}
+
 function toDraft(row: FoundationDraftRow): Draft {
   return {
     foundationId: row.foundationId,
     version: row.version,
-    // Only inputs that passed the contract's schema are ever written (saveDraft's callers
-    // parse first), so the stored JSON is an AnalysisInput.
-    input: row.input as AnalysisInput,
+    ...storedDraftInput(row.input),
     vendorSubmissionId: row.vendorSubmissionId,
     updatedById: row.updatedById,
     updatedAt: row.updatedAt,
@@ -35,7 +48,7 @@ function toDraft(row: FoundationDraftRow): Draft {
 }
 
 function emptyDraft(foundationId: string): Draft {
-  return { foundationId, version: 0, input: null, vendorSubmissionId: null, updatedById: null, updatedAt: null };
+  return { foundationId, version: 0, input: null, document: null, incomplete: false, vendorSubmissionId: null, updatedById: null, updatedAt: null };
 }
 
 /**
@@ -79,7 +92,8 @@ export async function saveDraft(
   actor: Actor,
   projectId: string,
   foundationId: string,
-  change: { input: AnalysisInput; expectedVersion: number },
+  /** A valid input, or an incomplete draft document that parseDraftInput accepted. */
+  change: { input: AnalysisInput | AnalysisInputDocument; expectedVersion: number },
 ): Promise<SaveDraftResult | undefined> {
   const foundation = await findFoundationFor(actor, projectId, foundationId, "draft.edit");
   if (!foundation) return undefined;
@@ -119,7 +133,12 @@ export interface FoundationWithDraft {
   updatedAt: Date;
   draftVersion: number;
   draftUpdatedAt: Date | null;
+  /** The draft's valid input; null when there is none or it is incomplete. */
   input: AnalysisInput | null;
+  /** A draft is stored but incomplete: no verdict until it is complete. */
+  incomplete: boolean;
+  /** The draft's machine names, complete or not (a data request asks for them by name). */
+  machineNames: string[];
 }
 
 /**
@@ -145,6 +164,11 @@ export async function listFoundationsWithDrafts(actor: Actor, projectId: string)
     .leftJoin(foundationDrafts, eq(foundationDrafts.foundationId, foundations.id))
     .where(and(eq(foundations.projectId, projectId), isNull(foundations.withdrawnAt)))
     .orderBy(asc(foundations.tag));
-  if (!mayReadDraft) return rows.map((r) => ({ ...r, draftVersion: 0, draftUpdatedAt: null, input: null }));
-  return rows.map((r) => ({ ...r, draftVersion: r.draftVersion ?? 0, input: (r.input as AnalysisInput | null) ?? null }));
+  if (!mayReadDraft) return rows.map((r) => ({ ...r, draftVersion: 0, draftUpdatedAt: null, input: null, incomplete: false, machineNames: [] as string[] }));
+  return rows.map((r) => {
+    const { input, document, incomplete } = storedDraftInput(r.input);
+    const machines: unknown[] = Array.isArray(document?.machines) ? document.machines : [];
+    const machineNames = machines.map((m) => (m as { name?: unknown } | null)?.name).filter((n): n is string => typeof n === "string" && n.trim() !== "");
+    return { ...r, draftVersion: r.draftVersion ?? 0, input, incomplete, machineNames };
+  });
 }

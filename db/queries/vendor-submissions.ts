@@ -12,7 +12,8 @@ import {
   type VendorRequestRow,
   type VendorSubmissionRow,
 } from "../schema";
-import { parseAnalysisInput, type AnalysisInput } from "@/modules/calc";
+import { parseDraftInput, type AnalysisInputDocument } from "@/modules/calc";
+import { emptyDraftForm, toInputDocument } from "@/modules/desk/draft-form";
 import type { MachineInput } from "@/modules/calc/schema";
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows } from "@/modules/platform/permissions";
@@ -137,9 +138,9 @@ export type AcceptResult = { submission: VendorSubmissionRow; request: VendorReq
 
 /**
  * Takes a submission's machines into the foundation's draft: the draft's machines are
- * replaced, the whole input is checked by the contract, and the save only happens if the
- * draft is still at the version the designer reviewed against (409 otherwise, nothing
- * changed). The review row and the draft change commit together.
+ * replaced (a foundation without a draft gets one, from the empty form), the input is checked
+ * as a draft (it may be incomplete, never invalid), and the save only happens if the draft is
+ * still at the version the designer reviewed against (409 otherwise, nothing changed). The review row and the draft change commit together.
  */
 export async function acceptVendorSubmission(actor: Actor, projectId: string, submissionId: string, expectedDraftVersion: number): Promise<AcceptResult> {
   const target = await reviewTarget(actor, projectId, submissionId);
@@ -149,28 +150,40 @@ export async function acceptVendorSubmission(actor: Actor, projectId: string, su
       await assertReviewable(tx, target);
       const drafts = await tx.select().from(foundationDrafts).where(eq(foundationDrafts.foundationId, target.request.foundationId)).for("update");
       const draft = drafts[0];
-      if (!draft) throw new AppError("conflict", "The foundation has no saved draft yet: save its block and soil first, then take the vendor data in.");
-      if (draft.version !== expectedDraftVersion) {
-        throw new AppError("conflict", `The draft changed since you opened this page (it is now at version ${draft.version}). Reload to review against the current draft.`);
+      const current = draft?.version ?? 0;
+      if (current !== expectedDraftVersion) {
+        throw new AppError("conflict", `The draft changed since you opened this page (it is now at version ${current}). Reload to review against the current draft.`);
       }
-      const next = { ...(draft.input as AnalysisInput), machines: target.submission.machines };
-      const parsed = parseAnalysisInput(next);
+      // A foundation with no saved draft starts from the workspace's empty form (one mat,
+      // blank soil): the vendor's data need not wait for a save (issue 18).
+      const base = (draft?.input ?? toInputDocument(emptyDraftForm())) as AnalysisInputDocument;
+      const next = { ...base, machines: target.submission.machines };
+      // The draft may stay incomplete (the analysis waits); a value that is wrong is refused.
+      const parsed = parseDraftInput(next);
       if (!parsed.ok) {
         throw new AppError("invalid_input", "With these machines the draft would not be a valid analysis input.", parsed.issues.map((i) => ({ path: i.path, message: i.message })));
       }
-      const saved = await tx
-        .update(foundationDrafts)
-        .set({
-          input: parsed.input,
-          vendorSubmissionId: target.submission.id,
-          version: sql`${foundationDrafts.version} + 1`,
-          updatedById: actor.userId,
-          // Taking vendor data in writes the draft: the one who did it is among its editors.
-          editorIds: draftEditorsWith(actor.userId),
-          updatedAt: new Date(),
-        })
-        .where(and(eq(foundationDrafts.id, draft.id), eq(foundationDrafts.version, expectedDraftVersion)))
-        .returning({ version: foundationDrafts.version });
+      const input = parsed.complete ? parsed.input : next;
+      const change = {
+        input,
+        vendorSubmissionId: target.submission.id,
+        updatedById: actor.userId,
+        // Taking vendor data in writes the draft: the one who did it is among its editors.
+        editorIds: draftEditorsWith(actor.userId),
+        updatedAt: new Date(),
+      };
+      const saved = draft
+        ? await tx
+            .update(foundationDrafts)
+            .set({ ...change, version: sql`${foundationDrafts.version} + 1` })
+            .where(and(eq(foundationDrafts.id, draft.id), eq(foundationDrafts.version, expectedDraftVersion)))
+            .returning({ version: foundationDrafts.version })
+        : await tx
+            .insert(foundationDrafts)
+            .values({ ...change, foundationId: target.request.foundationId, version: 1, editorIds: [actor.userId] })
+            // Someone saved the first draft meanwhile: a conflict, not an overwrite.
+            .onConflictDoNothing({ target: foundationDrafts.foundationId })
+            .returning({ version: foundationDrafts.version });
       const draftVersion = saved[0]?.version;
       if (draftVersion === undefined) throw new AppError("conflict");
       await tx.insert(vendorSubmissionReviews).values({ submissionId: target.submission.id, decision: "accepted", draftVersion, reviewedById: actor.userId });

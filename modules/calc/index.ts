@@ -16,6 +16,7 @@ export {
 } from "./schema";
 export { analyseTransient, TransientRequestError } from "./transient";
 export { TRANSIENT_LIMITS } from "./transient-settings";
+export { parseDraftInput, REQUIRED_MESSAGE, type DraftParseResult } from "./draft-input";
 export { INPUT_LIMITS, checkInputBounds, type BoundIssue } from "./input-limits";
 export type * from "./result-types";
 export { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS, MATERIAL_DAMPING_DEFAULT } from "./criteria-defaults";

@@ -37,7 +37,8 @@ function issuesFromZod(error: z.ZodError, json: unknown): InputIssue[] {
     if (issue.code === "unrecognized_keys") {
       return issue.keys.map((key) => ({ path: formatPath([...issue.path, key]), message: "unknown field" }));
     }
-    if (issue.code === "invalid_type" && valueAt(json, issue.path) === undefined) {
+    // A blank (null, as the desk's form sends it) is as missing as an absent field.
+    if (issue.code === "invalid_type" && (valueAt(json, issue.path) ?? null) === null) {
       return [{ path: formatPath(issue.path), message: "is required" }];
     }
     return [{ path: formatPath(issue.path), message: issue.message }];

@@ -315,6 +315,31 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
   };
 }
 
+type Loose = Record<string, unknown>;
+const obj = (v: unknown): Loose => (v !== null && typeof v === "object" && !Array.isArray(v) ? (v as Loose) : {});
+const list = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
+
+/**
+ * A stored draft document as the form shows it, complete or not (issue 18: a draft may be
+ * saved with blanks). Missing objects and lists are filled in empty, so the form opens on
+ * whatever was saved; blank values stay blank (null).
+ */
+export function formFromDraftDocument(doc: unknown): DraftForm {
+  const d = obj(doc);
+  const block = obj(d.block);
+  const filled = {
+    ...d,
+    block: { ...block, solids: list(block.solids).map(obj) },
+    soil: obj(d.soil),
+    impedance: d.impedance === undefined ? { method: "equivalent-radius" } : obj(d.impedance),
+    machines: list(d.machines).map((m) => {
+      const machine = obj(m);
+      return { ...machine, rotors: list(machine.rotors).map((r) => ({ ...obj(r), bearings: list(obj(r).bearings) })) };
+    }),
+  };
+  return formFromInput(filled as unknown as AnalysisInputDocument);
+}
+
 function dropNulls<T extends Record<string, unknown>>(o: T): Partial<T> {
   return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== null && v !== undefined)) as Partial<T>;
 }
@@ -411,9 +436,16 @@ export function withAcceptance(list: readonly AcceptanceForm[], checkKey: string
 
 // ---- the browser's validation (the same limits as the contract's zod schema) ----
 
-const req = (label: string) => yup.number().typeError(`${label} must be a number`).nullable().required(`Enter the ${label}`);
+// A blank is "required" (a draft may be saved with it; the analysis waits); a value that is
+// there but wrong is an error (the draft is not saved). isMissingMessage tells them apart.
+export const REQUIRED_PREFIX = "Required";
+const required = (what: string) => `${REQUIRED_PREFIX}: ${what}`;
+export function isMissingMessage(message: string): boolean {
+  return message.startsWith(REQUIRED_PREFIX);
+}
+const req = (label: string) => yup.number().typeError(`${label} must be a number`).nullable().required(required(`the ${label}`));
 const positive = (label: string) => req(label).moreThan(0, `The ${label} must be greater than 0`);
-const coordinate = yup.number().typeError("Must be a number").nullable().required("Enter a coordinate");
+const coordinate = yup.number().typeError("Must be a number").nullable().required(required("a coordinate"));
 const vec3 = yup.array().of(coordinate).length(3);
 const range = (label: string) =>
   yup
@@ -429,8 +461,8 @@ const optionalSpeed = yup.number().typeError("Must be a number").nullable().min(
 
 const transientRunSchema = yup
   .object({
-    machine: yup.string().trim().required("Pick the rotor of the run"),
-    rotor: yup.string().trim().required("Pick the rotor of the run"),
+    machine: yup.string().trim().required(required("the rotor of the run")),
+    rotor: yup.string().trim().required(required("the rotor of the run")),
     kind: yup.string().oneOf(["run-up", "coast-down"]),
     fromRpm: optionalSpeed,
     toRpm: optionalSpeed,
@@ -458,8 +490,8 @@ export const draftFormSchema = yup.object({
     concreteDensity: positive("concrete density"),
     solids: yup
       .array()
-      .of(yup.object({ name: yup.string().trim().required("Name the box"), x: range("x"), y: range("y"), z: range("z"), void: yup.boolean() }))
-      .min(1, "The block needs at least one box"),
+      .of(yup.object({ name: yup.string().trim().required(required("a name for the box")), x: range("x"), y: range("y"), z: range("z"), void: yup.boolean() }))
+      .min(1, required("at least one box")),
   }),
   soil: yup.object({
     modulusSource: yup.string().oneOf(["shearModulus", "shearWaveVelocity"]),
@@ -492,7 +524,7 @@ export const draftFormSchema = yup.object({
               poissonRatio: yup.number().typeError("Must be a number").nullable().moreThan(0, "Poisson's ratio must lie in (0, 0.5)").lessThan(0.5, "Poisson's ratio must lie in (0, 0.5)"),
             }),
           )
-          .min(1, "Add at least one layer"),
+          .min(1, required("at least one layer")),
     }),
     poissonRatio: req("Poisson's ratio").moreThan(0, "Poisson's ratio must lie in (0, 0.5)").lessThan(0.5, "Poisson's ratio must lie in (0, 0.5)"),
     density: positive("soil density"),
@@ -505,12 +537,12 @@ export const draftFormSchema = yup.object({
     .array()
     .of(
       yup.object({
-        name: yup.string().trim().required("Name the machine"),
+        name: yup.string().trim().required(required("a name for the machine")),
         mass: positive("machine mass"),
         cg: vec3,
         rotors: yup.array().of(
           yup.object({
-            name: yup.string().trim().required("Name the rotor"),
+            name: yup.string().trim().required(required("a name for the rotor")),
             mass: positive("rotor mass"),
             speedRpm: positive("rated speed"),
             unbalanceSource: yup.string().oneOf(["grade", "force"]),
@@ -525,12 +557,12 @@ export const draftFormSchema = yup.object({
               .nullable()
               .when("unbalanceSource", { is: "force", then: () => positive("vendor force") }),
             serviceFactor: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
-            bearings: yup.array().of(vec3).min(1, "A rotor needs at least one bearing"),
+            bearings: yup.array().of(vec3).min(1, required("at least one bearing")),
           }),
         ),
       }),
     )
-    .min(1, "At least one machine is needed"),
+    .min(1, required("at least one machine")),
   transient: yup.array().of(transientRunSchema).max(L.maxRuns, `At most ${L.maxRuns} runs`),
   acceptances: yup.array().of(
     yup.object({
@@ -543,3 +575,21 @@ export const draftFormSchema = yup.object({
     }),
   ),
 });
+
+/** Every message in a nested error object (Formik's `errors`), depth first. */
+function errorMessages(errors: unknown): string[] {
+  if (typeof errors === "string") return [errors];
+  if (errors === null || typeof errors !== "object") return [];
+  return Object.values(errors).flatMap(errorMessages);
+}
+
+/**
+ * What the form's errors mean for saving (issue 18): "complete" (no errors: it analyses),
+ * "incomplete" (only blanks: it saves as a draft, the analysis waits), "invalid" (a value
+ * that is there is wrong, e.g. a negative mass: not saved until it is fixed).
+ */
+export function formCompleteness(errors: unknown): "complete" | "incomplete" | "invalid" {
+  const messages = errorMessages(errors);
+  if (!messages.length) return "complete";
+  return messages.every(isMissingMessage) ? "incomplete" : "invalid";
+}

@@ -30,7 +30,11 @@ export function ReviewPanel({
         <input type="hidden" name="projectId" value={projectId} />
         <input type="hidden" name="submissionId" value={submissionId} />
         <input type="hidden" name="draftVersion" value={draftVersion} />
-        <p className="text-sm text-basalt-600">Replaces the machines of the foundation&apos;s draft (version {draftVersion}) with this version&apos;s; block, soil and criteria stay as they are.</p>
+        <p className="text-sm text-basalt-600">
+          {draftVersion === 0
+            ? "The foundation has no saved draft yet: this starts one with these machines and the workspace's starting block; soil and criteria are then still to be entered."
+            : <>Replaces the machines of the foundation&apos;s draft (version {draftVersion}) with this version&apos;s; block, soil and criteria stay as they are.</>}
+        </p>
         <SubmitButton>Take into draft</SubmitButton>
         <FormMessage state={acceptState} />
       </form>

@@ -3,7 +3,7 @@
 import { Formik, useFormikContext } from "formik";
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { AnalysisResult } from "@/modules/calc";
-import { draftFormSchema, formFromInput, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import { draftFormSchema, formCompleteness, formFromDraftDocument, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
@@ -70,7 +70,9 @@ function diffSummary(mine: unknown, theirs: unknown, prefix = ""): string[] {
 }
 
 function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number) => void }) {
-  const { values, setStatus, isValid, resetForm } = useFormikContext<DraftForm>();
+  const { values, setStatus, errors, resetForm } = useFormikContext<DraftForm>();
+  // Blanks do not stop a draft from saving (issue 18); a wrong value does.
+  const completeness = formCompleteness(errors);
   const units = useUnits();
   // Blank criteria take the project's defaults, so the result and the saved draft record what was used.
   const toDocument = useCallback((form: DraftForm) => withProjectDefaults(toInputDocument(form), props.projectDefaults), [props.projectDefaults]);
@@ -84,7 +86,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     initialSavedBody: JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)),
     version: props.version,
     setVersion: props.setVersion,
-    valid: isValid,
+    valid: completeness !== "invalid",
     readOnly: props.readOnly,
     onIssues,
   });
@@ -107,7 +109,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     if (!conflict) return;
     let storedBody: string | null = null;
     if (conflict.current) {
-      const form = formFromInput(conflict.current);
+      const form = formFromDraftDocument(conflict.current);
       resetForm({ values: form });
       storedBody = JSON.stringify(withProjectDefaults(toInputDocument(form), props.projectDefaults));
     }
@@ -176,7 +178,12 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           </div>
         </div>
       ) : null}
-      {!isValid && !props.readOnly ? <p className="text-xs text-brick-700">Some inputs need attention: see the fields marked in red.</p> : null}
+      {completeness === "invalid" && !props.readOnly ? <p className="text-xs text-brick-700">Some inputs need attention: see the fields marked in red.</p> : null}
+      {completeness === "incomplete" && !props.readOnly ? (
+        <p className="text-xs text-ochre-700" data-testid="draft-incomplete">
+          The draft is incomplete: it is saved as it stands, and the analysis waits for the fields marked &ldquo;required&rdquo;.
+        </p>
+      ) : null}
 
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="space-y-4">

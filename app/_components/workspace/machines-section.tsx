@@ -24,6 +24,11 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
     <FieldArray name="machines">
       {(machines) => (
         <div className="space-y-4">
+          {values.machines.length === 0 ? (
+            <p className="field-error" data-testid="no-machines">
+              Required: at least one machine (the draft saves without one; the analysis waits).
+            </p>
+          ) : null}
           {values.machines.map((m, mi) => (
             <div key={mi} className="rounded-plinth border border-grout-300 p-3" data-testid={`machine-${mi}`}>
               <div className="flex flex-wrap items-end gap-3">
@@ -41,7 +46,7 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
                   <input type="checkbox" name={`machines[${mi}].box.enabled`} checked={m.box.enabled} onChange={handleChange} disabled={readOnly} /> model as a box
                 </label>
                 {readOnly ? null : (
-                  <button type="button" className="btn-danger text-xs" disabled={values.machines.length <= 1} onClick={() => machines.remove(mi)}>
+                  <button type="button" className="btn-danger text-xs" onClick={() => machines.remove(mi)}>
                     Remove machine
                   </button>
                 )}

@@ -15,15 +15,15 @@ export interface DraftConflict {
 interface SaveAnswer {
   draft?: { version: number };
   error?: { message?: string; currentVersion?: number; issues?: CalcIssue[] };
-  current?: { version: number; input: AnalysisInputDocument | null };
+  current?: { version: number; input: AnalysisInputDocument | null; document?: AnalysisInputDocument | null };
 }
 
 /**
  * Saving the draft: by hand (Save draft) or on its own once typing pauses, when the page is
  * hidden and when the window loses focus. Every save sends the version it started from
  * (PUT .../draft, optimistic concurrency): a stale one answers 409 and the conflict stops
- * autosave until the designer chooses. A form with fields in error is never sent on its own;
- * it stays "unsaved" and says so. One save is in flight at a time.
+ * autosave until the designer chooses. An incomplete form (blanks only) saves like any other;
+ * one with a wrong value (`valid` false) is never sent on its own: it stays "unsaved" and says so. One save is in flight at a time.
  */
 export function useDraftSave(opts: {
   url: string;
@@ -81,7 +81,7 @@ export function useDraftSave(opts: {
           setFailure(null);
           setConflict(null);
         } else if (res.status === 409) {
-          setConflict({ currentVersion: answer.error?.currentVersion ?? answer.current?.version ?? 0, current: answer.current?.input ?? null, dismissed: false });
+          setConflict({ currentVersion: answer.error?.currentVersion ?? answer.current?.version ?? 0, current: answer.current?.document ?? answer.current?.input ?? null, dismissed: false });
         } else {
           if (answer.error?.issues) onIssues(answer.error.issues);
           setFailure({ body: sending, message: answer.error?.message ?? `Saving failed (${res.status})` });

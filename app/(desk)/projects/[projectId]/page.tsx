@@ -67,7 +67,7 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       tag: f.tag,
       machineTrain: f.machineTrain,
       location: f.location,
-      status: latest ? revisionStatusLabels[latest.status] : !mayReadDraft ? "none issued" : f.input ? `draft v${f.draftVersion}` : "not started",
+      status: latest ? revisionStatusLabels[latest.status] : !mayReadDraft ? "none issued" : f.input ? `draft v${f.draftVersion}` : f.incomplete ? `draft v${f.draftVersion}, incomplete` : "not started",
       latestRevision: latest ? latest.label : "none issued",
       latestRevisionId: latest?.id ?? null,
       latestApproved: rev?.latestApproved?.label ?? "none approved",
@@ -77,6 +77,8 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
       flags: mayReadDraft && latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
       governing: governing[i] ?? null,
+      // A draft saved with blanks: no verdict until it is complete (issue 18).
+      draftIncomplete: f.incomplete,
       updatedAt: (f.draftUpdatedAt ?? f.updatedAt).toISOString().slice(0, 10),
     };
   });

@@ -70,7 +70,7 @@ export default async function RequestsPage({ params }: { params: Promise<{ proje
           <h2>Ask a vendor for machine data</h2>
           <SendRequestForm
             projectId={projectId}
-            foundations={foundations.map((f) => ({ id: f.id, tag: f.tag, machineNames: (f.input?.machines ?? []).map((m) => m.name) }))}
+            foundations={foundations.map((f) => ({ id: f.id, tag: f.tag, machineNames: f.machineNames }))}
             contacts={contacts.map((c) => ({ userId: c.userId, label: `${c.name} (${c.companyName})` }))}
             mayInvite={roleAllows(role, "members.manage")}
             teamHref={`/projects/${projectId}/members`}

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
-import { emptyDraftForm, formFromInput } from "@/modules/desk/draft-form";
+import { emptyDraftForm, formFromDraftDocument } from "@/modules/desk/draft-form";
 import { getDraft } from "@/db/queries/drafts";
 import { getFoundation } from "@/db/queries/foundations";
 import { listOpenFoundationComments, listRevisions } from "@/db/queries/revisions";
@@ -43,7 +43,7 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         readOnly={!roleAllows(role, "draft.edit") || Boolean(foundation.withdrawnAt)}
         initialVersion={draft.version}
         initialInput={draft.input}
-        initialForm={draft.input ? formFromInput(draft.input) : emptyDraftForm()}
+        initialForm={draft.document ? formFromDraftDocument(draft.document) : emptyDraftForm()}
         units={user.unitsPreference ?? project.units}
         projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
         openComments={openComments}

@@ -45,7 +45,16 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
           <Link href={`/projects/${projectId}/requests`}>{project.code} · data requests</Link>
         </p>
         <h1>
-          Machine data for {request.foundationTag} <span className="text-basalt-500">({request.machineTrain})</span>
+          Machine data for{" "}
+          {/* The foundation's workspace, for the roles that may open it (vendors may not). */}
+          {roleAllows(role, "foundation.read") ? (
+            <Link href={`/projects/${projectId}/foundations/${request.foundationId}`} data-testid="request-foundation-link">
+              {request.foundationTag}
+            </Link>
+          ) : (
+            request.foundationTag
+          )}{" "}
+          <span className="text-basalt-500">({request.machineTrain})</span>
         </h1>
         <p className="mt-1 text-sm text-basalt-500">
           Asked of {request.companyName} ({request.contactName}) by {request.requestedByName ?? "the designer"}

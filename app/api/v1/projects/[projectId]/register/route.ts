@@ -31,7 +31,7 @@ export const GET = defineRoute({
         tag: f.tag,
         machineTrain: f.machineTrain,
         location: f.location,
-        draftState: f.input ? `draft v${f.draftVersion}, not issued` : "not started",
+        draftState: f.input ? `draft v${f.draftVersion}, not issued` : f.incomplete ? `draft v${f.draftVersion}, incomplete, not issued` : "not started",
         latest: latest ? { ...latest, result: latest.result } : null,
         latestApproved: approved ? { label: approved.label, approvedAt: approved.decision?.decidedAt ?? null } : null,
         revisionCount: state?.revisionCount ?? 0,

@@ -53,7 +53,15 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
       {mayIssue ? (
         <section className="slab max-w-2xl space-y-2 p-5" id="issue" aria-labelledby="issue-heading">
           <h2 id="issue-heading">Issue for check</h2>
-          {!draft?.input ? (
+          {draft?.incomplete ? (
+            // Saved with blanks (issue 18): issuing names what is missing and refuses it.
+            <>
+              <p className="text-sm text-ochre-700" data-testid="issue-incomplete">
+                The saved draft (version {draft.version}) is incomplete: fill in the fields marked required in the workspace, then issue it.
+              </p>
+              <IssueForm projectId={projectId} foundationId={foundationId} draftVersion={draft.version} />
+            </>
+          ) : !draft?.input ? (
             <p className="text-sm text-basalt-500">Nothing saved yet: build and save the draft in the workspace first.</p>
           ) : sameAsLatest ? (
             <p className="text-sm text-basalt-500" data-testid="issue-same">

@@ -1,4 +1,5 @@
 import "server-only";
+import { REQUIRED_MESSAGE } from "@/modules/calc";
 import { AppError } from "@/modules/platform/errors";
 import { revisionPurposeLabels, revisionStatusLabels, type RevisionPurpose } from "@/modules/revisions";
 import { getFoundation } from "@/db/queries/foundations";
@@ -53,8 +54,16 @@ export async function issueForCheck(actor: Actor, input: { projectId: string; fo
         throw new AppError("invalid_input", "Save the draft before issuing it for check.", [{ path: "draftVersion", message: "There is no saved draft yet" }]);
       case "stale-draft":
         throw new AppError("conflict", `The draft was saved again since you opened it (now version ${out.currentVersion}). Reload, look it over and issue again.`);
-      case "invalid-draft":
-        throw new AppError("invalid_input", "The saved draft is not a complete, valid input; fix it in the workspace first.", out.issues.map((i) => ({ path: `input.${i.path}`, message: i.message })));
+      case "invalid-draft": {
+        // A draft may be saved incomplete (issue 18): the message names what is still missing,
+        // so the issue form's one line says what to fill in.
+        const missing = out.issues.filter((i) => i.message === REQUIRED_MESSAGE).map((i) => i.path);
+        const shown = missing.slice(0, 12).join(", ") + (missing.length > 12 ? ` and ${missing.length - 12} more` : "");
+        const message = missing.length
+          ? `The saved draft is incomplete; fill in the workspace first: ${shown} (required).`
+          : "The saved draft is not a complete, valid input; fix it in the workspace first.";
+        throw new AppError("invalid_input", message, out.issues.map((i) => ({ path: `input.${i.path}`, message: i.message })));
+      }
       case "identical":
         throw new AppError("conflict", `The saved draft is identical to revision ${out.label} (same input fingerprint); change something before issuing again.`);
     }

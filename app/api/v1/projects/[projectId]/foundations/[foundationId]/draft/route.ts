@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { checkInputBounds, formatPath, parseAnalysisInput } from "@/modules/calc";
+import { checkInputBounds, formatPath, parseDraftInput, type AnalysisInputDocument } from "@/modules/calc";
 import { AppError, errorCodes } from "@/modules/platform/errors";
 import { getDraft, saveDraft } from "@/db/queries/drafts";
 import { defineRoute } from "@/app/_lib/route";
@@ -36,9 +36,13 @@ export const PUT = defineRoute({
     if (overLimit.length) {
       throw new AppError("invalid_input", "The analysis input is over the contract's limits.", overLimit.map((i) => ({ path: formatPath(i.path), message: i.message })));
     }
-    const parsed = parseAnalysisInput(body.input);
+    // A draft may be incomplete (blanks are "required", the analysis waits); a value that is
+    // there must be valid. A complete input is stored as the contract parses it, an incomplete
+    // one as sent.
+    const parsed = parseDraftInput(body.input);
     if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
-    const saved = await saveDraft(auth!.actor, params.projectId, foundationId, { input: parsed.input, expectedVersion: body.version });
+    const input = parsed.complete ? parsed.input : (body.input as AnalysisInputDocument);
+    const saved = await saveDraft(auth!.actor, params.projectId, foundationId, { input, expectedVersion: body.version });
     if (!saved) throw foundationNotFound();
     if (!saved.ok) {
       // The client needs the version it lost to, and the stored draft to offer a reload or a comparison.
