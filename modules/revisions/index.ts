@@ -4,3 +4,4 @@ export { diffDocuments, diffRevisions, flippedChecks, listLeafPaths, withoutLong
 export { isLetterLabel, isNumberLabel, letterLabel, nextRevisionLabel, type RevisionScheme } from "./labels";
 export { isApprovalStale, revisionStatus, revisionStatusLabels, type RevisionStatus } from "./status";
 export { revisionCommentSchema, revisionDecisionSchema, revisionIssueSchema, resolveCommentSchema } from "./schemas";
+export { compareChecks, COMPARE_GROUP_TITLES, COMPARE_NOISE, COMPARE_NOISE_TEXT, displayText, isNoise, kindOfPath, labelOfPath, readableDiff, readableDiffCsv, type CheckMoved, type CompareGroup, type QuantityRow, type ReadableDiff, type VerdictRow } from "./readable-diff";
