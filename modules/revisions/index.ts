@@ -1,6 +1,6 @@
 // Revisions: the pure part (diff, labels, canonical-input fingerprint, derived status).
 export { canonicalInputHash, canonicalJson } from "./canonical-hash";
-export { diffDocuments, diffRevisions, flippedChecks, listLeafPaths, withoutLongSeries, type ResultWithoutSeries, type CheckFlip, type DiffEntry, type DiffKind, type DiffOptions, type LeafValue, type RevisionDiff, type SectionDiff } from "./diff";
+export { diffDocuments, diffRevisions, flippedChecks, listLeafPaths, withoutLongSeries, type ComparableResult, type ResultWithoutSeries, type CheckFlip, type DiffEntry, type DiffKind, type DiffOptions, type LeafValue, type RevisionDiff, type SectionDiff } from "./diff";
 export { isLetterLabel, isNumberLabel, letterLabel, nextRevisionLabel, type RevisionScheme } from "./labels";
 export { isApprovalStale, revisionStatus, revisionStatusLabels, type RevisionStatus } from "./status";
 export { revisionCommentSchema, revisionDecisionSchema, revisionIssueSchema, resolveCommentSchema } from "./schemas";

@@ -5,10 +5,10 @@
 //
 // Built on diffRevisions (diff.ts): the raw difference is computed once, for the two chosen
 // revisions only, without the long sweep and speed-ramp series.
-import { checkVerdict, type AnalysisResult, type CheckResult, type CheckVerdict } from "@/modules/calc";
+import { checkVerdict, type CheckResult, type CheckVerdict } from "@/modules/calc";
 import { packageUnit, toPackageUnit, type PackageKind } from "@/modules/calc-package/package-units";
 import { formatSignificant, type UnitSystemKey } from "@/modules/units";
-import { diffRevisions, type DiffEntry, type LeafValue } from "./diff";
+import { diffRevisions, type ComparableResult, type DiffEntry, type LeafValue } from "./diff";
 
 /**
  * The noise rule: a change of a number is listed only when |new − old| exceeds BOTH the
@@ -446,7 +446,8 @@ function inputRank(path: string): number {
 
 export interface RevisionSide {
   input: unknown;
-  result: AnalysisResult;
+  /** The sweep is not needed (and not read by the route). */
+  result: ComparableResult;
 }
 
 /** The two revisions compared for a reader; the older one first. */
