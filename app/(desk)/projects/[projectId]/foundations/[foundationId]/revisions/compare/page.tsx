@@ -178,7 +178,9 @@ export default async function ComparePage({
           <Link href={revisionPath(projectId, foundationId, older.id)}>{older.label}</Link> <RevisionStatusTag status={older.status} />
           <span>→</span>
           <Link href={revisionPath(projectId, foundationId, newer.id)}>{newer.label}</Link> <RevisionStatusTag status={newer.status} />
-          <span className="text-xs text-basalt-500">values in {units === "us" ? "US customary" : "SI"} display units</span>
+          <span className="text-xs text-basalt-500" data-testid="units-note" data-units={units}>
+            values in {units === "us" ? "US customary" : "SI"} display units
+          </span>
         </p>
         <p className="mt-1 text-xs text-basalt-500" data-testid="noise-rule">
           Not listed as changes: {view.noise}
