@@ -433,6 +433,27 @@ function quantityRow(e: DiffEntry, group: QuantityRow["group"], system: UnitSyst
   };
 }
 
+// `criteria.<name>.value|unit|source` of the result: the criterion as the engine used it
+// (defaults filled in), named by the criterion and shown in its quantity's unit.
+function criterionUsedRow(e: DiffEntry, system: UnitSystemKey): QuantityRow {
+  const props = parsePath(e.path).filter((s): s is { prop: string } => "prop" in s).map((s) => s.prop);
+  const name = props[1] ?? "";
+  const field = props[2] ?? "value";
+  const row = quantityRow(e, "inputs", system);
+  const kind = field === "value" ? kindByKey[name] : undefined;
+  const typed: QuantityRow = { ...row, label: `criterion as used · ${words[name] ?? camelWords(name)}${field === "value" ? "" : ` · ${field}`}` };
+  if (!kind) return typed;
+  const delta = typeof e.old === "number" && typeof e.new === "number" ? toPackageUnit(kind, e.new, system) - toPackageUnit(kind, e.old, system) : undefined;
+  return {
+    ...typed,
+    quantity: kind,
+    unit: displayUnit(kind, system),
+    oldText: displayText(kind, e.old, system),
+    newText: displayText(kind, e.new, system),
+    deltaText: delta === undefined ? "" : `${delta > 0 ? "+" : ""}${formatSignificant(delta, { digits: 3 })}`,
+  };
+}
+
 function isNoiseEntry(e: DiffEntry): boolean {
   return e.kind === "changed" && typeof e.old === "number" && typeof e.new === "number" && isNoise(kindOfPath(e.path), e.old, e.new);
 }
@@ -467,7 +488,7 @@ export function readableDiff(older: RevisionSide, newer: RevisionSide, system: U
       noiseCount += 1;
       continue;
     }
-    if (g === "criteria") criteriaUsed.push(quantityRow(e, "inputs", system, "criterion as used · "));
+    if (g === "criteria") criteriaUsed.push(criterionUsedRow(e, system));
     else (g === "frequencies" ? frequencies : g === "amplitudes" ? amplitudes : results).push(quantityRow(e, g, system));
   }
   const inputs: QuantityRow[] = [];

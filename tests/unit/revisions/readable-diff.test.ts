@@ -26,6 +26,8 @@ describe("verdict rows", () => {
     expect(d.verdicts[0]?.key).toBe("mass-ratio");
     // The changed criterion is listed first among the inputs.
     expect(d.inputs[0]).toMatchObject({ path: "criteria.minMassRatio", change: "added", label: "criteria · least block-to-machine mass ratio" });
+    expect(d.inputs.find((r) => r.path === "criteria.minMassRatio.value")).toMatchObject({ label: "criterion as used · least block-to-machine mass ratio", oldText: "3.000", newText: "2.500", deltaText: "-0.500" });
+    expect(d.inputs.findIndex((r) => r.path === "criteria.minMassRatio.value")).toBeLessThan(d.inputs.findIndex((r) => !r.path.startsWith("criteria")) >>> 0);
   });
 
   it("says the value moved, or both, and marks a value that got worse while the verdict improved or stayed pass", () => {
