@@ -302,6 +302,12 @@ const kindByKey: Record<string, PackageKind> = {
   z: "length",
   size: "length",
   embedmentDepth: "length",
+  thickness: "length",
+  sidewallContactHeight: "length",
+  balanceGrade: "balanceGrade",
+  unbalanceForce: "force",
+  concreteDensity: "density",
+  serviceFactor: "ratio",
   baseThickness: "length",
   baseDimensions: "length",
 };
