@@ -511,6 +511,14 @@ export function readableDiff(older: RevisionSide, newer: RevisionSide, system: U
   for (const a of amplitudes) {
     if (typeof a.old === "number" && typeof a.new === "number" && Math.abs(a.new) > Math.abs(a.old) && !verdictOfKindWorse(a.quantity)) a.worseWhileBetter = true;
   }
+  // A frequency ratio nearer resonance (|r − 1| smaller) or a smaller mass ratio, while no
+  // separation or mass-ratio verdict got worse.
+  const idWorse = (prefix: string) => verdicts.some((v) => v.key.startsWith(prefix) && v.direction === "worse");
+  for (const f of frequencies) {
+    if (typeof f.old !== "number" || typeof f.new !== "number") continue;
+    if (/frequencyRatios|\.ratios\[/.test(f.path) && Math.abs(f.new - 1) < Math.abs(f.old - 1) && !idWorse("frequency-separation")) f.worseWhileBetter = true;
+    if (f.path === "massProperties.massRatio" && f.new < f.old && !idWorse("mass-ratio")) f.worseWhileBetter = true;
+  }
   const criteriaFirst = [...inputs.filter((r) => inputRank(r.path) === 0), ...criteriaUsed, ...inputs.filter((r) => inputRank(r.path) > 0)];
   return { units: system, noise: COMPARE_NOISE_TEXT, verdicts, frequencies, amplitudes, inputs: criteriaFirst, results, noiseCount };
 }

@@ -95,6 +95,19 @@ describe("numeric noise", () => {
     expect(d.amplitudes).toEqual([]);
     expect(d.noiseCount).toBe(1);
     expect(d.frequencies.map((r) => r.label)).toEqual(["mode 1 · natural frequency"]);
+    expect(d.frequencies[0]?.worseWhileBetter).toBeUndefined();
+  });
+
+  it("marks a frequency ratio that moved nearer resonance and an amplitude that grew while no verdict got worse", () => {
+    const b = structuredClone(demoResult);
+    const rotor = b.rotors[0]!;
+    const i = 0;
+    rotor.frequencyRatios[i] = rotor.frequencyRatios[i]! + (1 - rotor.frequencyRatios[i]!) / 2;
+    const point = b.rotors[0]!.cases[0]!.points[0]!;
+    point.displacementPeak = [point.displacementPeak[0] * 1.5, point.displacementPeak[1], point.displacementPeak[2]];
+    const d = readableDiff({ input: demo, result: demoResult }, { input: demo, result: b }, "si");
+    expect(d.frequencies.find((r) => r.path.endsWith(`frequencyRatios[${i}]`))?.worseWhileBetter).toBe(true);
+    expect(d.amplitudes.find((r) => r.path.endsWith("displacementPeak[0]"))?.worseWhileBetter).toBe(true);
   });
 });
 
