@@ -197,6 +197,23 @@ export async function getRevision(actor: Actor, projectId: string, foundationId:
   return { ...hit, input: body.input as AnalysisInput, result: body.result as AnalysisResult };
 }
 
+/**
+ * A revision for the comparison route: its result without the frequency sweep (hundreds of
+ * numbers per curve that the comparison does not list), read as `result - 'sweep'` in SQL so
+ * the long series never leave the database. The page, which plots the sweep, uses getRevision.
+ */
+export async function getRevisionForComparison(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<(RevisionSummary & { input: AnalysisInput; result: Omit<AnalysisResult, "sweep"> }) | undefined> {
+  if (!(await allowed(actor, projectId, "revision.read"))) return undefined;
+  const [hit] = await selectSummaries(getDb(), { projectId, foundationId, revisionId });
+  if (!hit) return undefined;
+  const [body] = await getDb()
+    .select({ input: revisions.input, result: sql<Omit<AnalysisResult, "sweep">>`${revisions.result} - 'sweep'` })
+    .from(revisions)
+    .where(eq(revisions.id, hit.id));
+  if (!body) return undefined;
+  return { ...hit, input: body.input as AnalysisInput, result: body.result };
+}
+
 export interface FoundationRevisionState {
   foundationId: string;
   latest: { id: string; label: string; status: RevisionStatus; vendorSubmissionId: string | null; supersededByNewerVersion: boolean; issuedAt: Date } | null;

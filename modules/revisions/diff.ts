@@ -268,7 +268,10 @@ export function flippedChecks(oldChecks: readonly CheckResult[], newChecks: read
 // stays.
 export type ResultWithoutSeries = Omit<AnalysisResult, "sweep" | "transient"> & { transient?: Omit<TransientResult, "series">[] };
 
-export function withoutLongSeries(result: AnalysisResult): ResultWithoutSeries {
+/** A result as stored, or read without its sweep (the comparison route reads only what it lists). */
+export type ComparableResult = Omit<AnalysisResult, "sweep"> & { sweep?: AnalysisResult["sweep"] };
+
+export function withoutLongSeries(result: ComparableResult): ResultWithoutSeries {
   const { sweep: _sweep, transient, ...rest } = result;
   void _sweep;
   if (!transient) return rest;
@@ -284,8 +287,8 @@ export function withoutLongSeries(result: AnalysisResult): ResultWithoutSeries {
 
 /** Inputs and results of two revisions compared; the older one first. */
 export function diffRevisions(
-  older: { input: unknown; result: AnalysisResult },
-  newer: { input: unknown; result: AnalysisResult },
+  older: { input: unknown; result: ComparableResult },
+  newer: { input: unknown; result: ComparableResult },
   options: DiffOptions = {},
 ): RevisionDiff {
   return {

@@ -29,13 +29,31 @@ describe("revisions", () => {
     expect(first.label).not.toBe("A");
 
     // 2. The checker compares it with revision A, comments on a field and returns it.
-    await asDemo(browser(), "checker", async ({ page }) => {
+    await asDemo(browser(), "checker", async ({ page, context }) => {
       const revisions = new RevisionPages(page);
       await revisions.openList(first.projectId, first.foundationId);
       await revisions.compare("A", first.label);
+      // Rows read by the quantity's name in display units; the raw path is on hover and in the download.
       const inputs = await textOf(page.getByTestId("diff-input"));
-      expect(inputs).toContain("soil.poissonRatio");
-      expect(inputs).toContain('machines["Raw-water pump RWP-101"].rotors["impeller"].mass');
+      expect(inputs).toContain("soil · Poisson's ratio");
+      expect(inputs).toContain("Raw-water pump RWP-101 · impeller · mass");
+      expect(inputs).not.toContain("soil.poissonRatio");
+      const poisson = page.getByTestId("diff-input").locator('[data-path="soil.poissonRatio"] td').first();
+      expect(await poisson.getAttribute("title")).toBe("soil.poissonRatio");
+      const mass = page.getByTestId("diff-input").getByTestId("diff-row").filter({ hasText: "Raw-water pump RWP-101 · impeller · mass" }).first();
+      expect(await mass.getAttribute("data-path")).toBe('machines["Raw-water pump RWP-101"].rotors["impeller"].mass');
+      // the demo project is in SI; a checker who switched to US customary sees pounds
+      const shown = await page.getByTestId("units-note").getAttribute("data-units");
+      expect(await textOf(mass.locator("td").nth(3))).toBe(shown === "us" ? "lb" : "kg");
+      expect(await textOf(page.getByTestId("noise-rule"))).toContain("1 nm displacement");
+      const csvHref = await page.getByTestId("download-csv").getAttribute("href");
+      expect(csvHref).toContain("format=csv");
+      const csv = await context.request.get(csvHref ?? "");
+      expect(csv.status()).toBe(200);
+      expect(csv.headers()["content-disposition"]).toMatch(/^attachment; filename="compare-A-/);
+      const csvText = await csv.text();
+      expect(csvText.split("\r\n")[0]).toMatch(/^group,label,path,change,/);
+      expect(csvText).toContain("inputs,soil · Poisson's ratio,soil.poissonRatio,changed,");
       // The overlaid plots draw once their container has been measured.
       await page.getByTestId("compare-plot-displacement").locator("svg").first().waitFor({ state: "visible", timeout: 20_000 });
       expect(await page.getByTestId("cautions").count()).toBe(1);
