@@ -2,7 +2,7 @@
 
 import { useFormikContext } from "formik";
 import { useId, useMemo, useState } from "react";
-import { DEFAULT_STEP_M, type CentreMode, type NearestCandidate, type ProposalToApply, type SizingProposal, type SizingResult } from "@/modules/sizing";
+import { DEFAULT_STEP_M, MAX_MARGIN, type CentreMode, type NearestCandidate, type ProposalToApply, type SizingProposal, type SizingResult } from "@/modules/sizing";
 import type { DraftForm } from "@/modules/desk/draft-form";
 import { loadProposalIntoForm, matDimensionsOfForm, SIZING_API_DEFAULT_ANALYSES, SIZING_API_MAX_ANALYSES, SIZING_DIMENSIONS, suggestedMatBounds, type SizingDimension } from "@/modules/desk/mat-sizing";
 import { Cautions } from "../cautions";
@@ -57,14 +57,15 @@ function startingRows(form: DraftForm): Record<SizingDimension, BoundRow> {
 }
 
 /** Options as the API takes them; a blank or junk number goes as null so the server names the field. */
-function optionsFrom(rows: Record<SizingDimension, BoundRow>, centre: CentreMode, requireSoilBand: boolean, maxAnalyses: SiValue): SizingOptionsBody {
+function optionsFrom(rows: Record<SizingDimension, BoundRow>, centre: CentreMode, requireSoilBand: boolean, marginPercent: SiValue, maxAnalyses: SiValue): SizingOptionsBody {
   const n = (v: SiValue) => (v === null || !Number.isFinite(v) ? null : v);
   const dimensions: SizingOptionsBody["dimensions"] = {};
   for (const d of SIZING_DIMENSIONS) {
     const r = rows[d];
     if (r.vary) dimensions[d] = { min: n(r.min), max: n(r.max), ...(r.step === null ? {} : { step: n(r.step) }) };
   }
-  return { dimensions, centre, requireSoilBand, maxAnalyses: n(maxAnalyses) };
+  const margin = n(marginPercent);
+  return { dimensions, centre, requireSoilBand, margin: margin === null ? null : margin / 100, maxAnalyses: n(maxAnalyses) };
 }
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -88,6 +89,8 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const [centre, setCentre] = useState<CentreMode>("current");
   const [requireSoilBand, setRequireSoilBand] = useState(false);
   const [maxAnalyses, setMaxAnalyses] = useState<SiValue>(SIZING_API_DEFAULT_ANALYSES);
+  // typed as a percentage, sent as a share
+  const [marginPercent, setMarginPercent] = useState<SiValue>(0);
   /** rank null: the closest-to-passing candidate of a search that found nothing. */
   const [loaded, setLoaded] = useState<{ rank: number | null; body: string; searched: string } | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
@@ -103,7 +106,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const search = () => {
     setLoaded(null);
     setLoadError(null);
-    void run({ input: document, options: optionsFrom(rows, centre, requireSoilBand, maxAnalyses) });
+    void run({ input: document, options: optionsFrom(rows, centre, requireSoilBand, marginPercent, maxAnalyses) });
   };
   const load = (p: ProposalToApply, rank: number | null) => {
     if (!data) return;
@@ -190,6 +193,13 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={requireSoilBand} onChange={(e) => setRequireSoilBand(e.target.checked)} />
           The soil band must pass too (frequency separation, displacement and velocity at the lower and upper shear modulus)
+        </label>
+        <label className="flex items-center gap-2">
+          <span>Margin inside every limit</span>
+          <span className="w-16">
+            <SiInput kind="ratio" label={`Margin inside every limit, 0 to ${MAX_MARGIN * 100} (%)`} value={marginPercent} onChange={setMarginPercent} error={fieldErrors["options.margin"]} />
+          </span>
+          <span className="text-2xs text-basalt-500">% of each limit (10: a mass ratio at least 1.1 × its minimum, a displacement at most 0.9 × its maximum)</span>
         </label>
         <label className="flex items-center gap-2">
           <span>Analyses at most</span>
