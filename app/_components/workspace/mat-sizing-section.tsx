@@ -271,7 +271,7 @@ function SizingOutcome({
   const u = useUnits();
   const len = (v: number) => u.toDisplayText("length", v);
   const dims = (d: { length: number; width: number; thickness: number }) => `${len(d.length)} × ${len(d.width)} × ${len(d.thickness)} ${u.unitLabel("length")}`;
-  const vol = (v: number) => `${u.toDisplayText("volume", v)} ${u.unitLabel("volume")}`;
+  const vol = (v: number) => `${u.toResultText("volume", v)} ${u.unitLabel("volume")}`;
   const examined = result.candidates.analysed + result.candidates.skippedClosedForm;
   return (
     <div className="space-y-3 text-xs">
@@ -314,12 +314,12 @@ function SizingOutcome({
                   <td className="font-mono">{p.rank}</td>
                   <td className="whitespace-nowrap font-mono">{dims(p.dimensions)}</td>
                   <td className="whitespace-nowrap text-right font-mono">{vol(p.concreteVolume)}</td>
-                  <td className="text-right font-mono">{u.toDisplayText("ratio", p.massRatio)}</td>
+                  <td className="text-right font-mono">{u.toResultText("ratio", p.massRatio)}</td>
                   <td>
                     {p.governing.label}
                     <span className="block text-2xs text-basalt-500">{percent(p.governing.margin)} of the limit to spare</span>
                   </td>
-                  <td className="text-right font-mono">{p.lowestFrequencyRatio === null ? "–" : p.lowestFrequencyRatio.toFixed(3)}</td>
+                  <td className="text-right font-mono">{p.lowestFrequencyRatio === null ? "–" : u.toResultText("ratio", p.lowestFrequencyRatio)}</td>
                   {readOnly ? null : (
                     <td>
                       <button type="button" className="btn-quiet whitespace-nowrap px-2 py-0.5 text-2xs" disabled={!canLoad} onClick={() => onLoad(p)} aria-label={`Load size ${p.rank} into the draft`}>

@@ -125,6 +125,8 @@ export function MassTable({ result }: { result: AnalysisResult }) {
 }
 
 function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
+  const u = useUnits();
+  const f = (k: QuantityKey, v: number) => `${u.toResultText(k, v)} ${u.unitLabel(k)}`;
   const rows = soilFactorRows(imp);
   const strat = stratumSummary(imp);
   if (!rows.length && !strat) return null;
@@ -151,7 +153,7 @@ function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
                 </td>
                 {r.values.map((v, i) => (
                   <td key={i} className="text-right font-mono text-xs">
-                    {v.toFixed(3)}
+                    {sig(v)}
                   </td>
                 ))}
               </tr>
@@ -161,9 +163,9 @@ function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
       ) : null}
       {strat ? (
         <p className="text-xs" data-testid="stratum-cutoffs">
-          Layer over rock, H = {strat.thickness.toPrecision(4)} m
-          {strat.profile ? ` (equivalent of the borehole layers: Vs = ${strat.profile.shearWaveVelocity.toPrecision(4)} m/s, ρ = ${strat.profile.density.toPrecision(4)} kg/m³, ν = ${strat.profile.poissonRatio.toPrecision(3)})` : ""}. Cutoff frequencies: vertical and rocking{" "}
-          {strat.cutoffCompressionHz.toFixed(2)} Hz, sliding and torsion {strat.cutoffShearHz.toFixed(2)} Hz; below them only material damping remains.
+          Layer over rock, H = {f("length", strat.thickness)}
+          {strat.profile ? ` (equivalent of the borehole layers: Vs = ${f("waveSpeed", strat.profile.shearWaveVelocity)}, ρ = ${f("density", strat.profile.density)}, ν = ${sig(strat.profile.poissonRatio)})` : ""}. Cutoff frequencies: vertical and rocking{" "}
+          {sig(strat.cutoffCompressionHz)} Hz, sliding and torsion {sig(strat.cutoffShearHz)} Hz; below them only material damping remains.
           <span className="block text-2xs text-basalt-400">{strat.source}</span>
         </p>
       ) : null}

@@ -375,7 +375,7 @@ describe("a required margin inside every limit", () => {
   });
 
   /** Share of the limit left, computed here from value and limit (not by the module's checkMargin). */
-  const spare = (c: { comparison: "min" | "max"; value: number; limit: number }) =>
+  const spare = (c: { comparison?: "min" | "max"; value: number; limit: number }) =>
     c.comparison === "min" ? c.value / c.limit - 1 : 1 - Math.abs(c.value) / c.limit;
 
   it("without a margin the smallest block sits on a limit (inside 10 %); with it every check of every proposal clears its limit by 10 %", () => {
