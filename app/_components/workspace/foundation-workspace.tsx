@@ -155,7 +155,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           <p className="mt-1 text-xs text-basalt-600">Automatic saving is paused until you choose; your changes stay in this form.</p>
           <details className="mt-2 text-xs">
             <summary className="cursor-pointer">See the difference</summary>
-            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono">
+            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono" tabIndex={0} aria-label="Differences from the saved draft, scrollable">
               {diffSummary(document, conflict.current)
                 .slice(0, 60)
                 .map((d) => (

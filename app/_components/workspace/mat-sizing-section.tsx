@@ -127,7 +127,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
         Searches base-mat sizes within your bounds, smallest concrete volume first, and lists those that pass every check with the inputs as they stand. Plinths, voids, machines, bearings
         and check points ride on the mat; soil, criteria and everything else stay as entered.
       </p>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Sizing bounds, scrollable">
         <table className="min-w-[520px]" data-testid="sizing-bounds">
           <thead>
             <tr>
@@ -295,7 +295,7 @@ function SizingOutcome({
       ) : null}
 
       {result.found ? (
-        <div className="overflow-x-auto rounded-plinth border border-grout-200">
+        <div className="overflow-x-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Proposed sizes, scrollable">
           <table data-testid="sizing-proposals">
             <thead>
               <tr>

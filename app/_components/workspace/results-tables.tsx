@@ -39,7 +39,7 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
         )}
       </p>
       {result.bounds ? <p className="mb-2 text-2xs text-basalt-500">Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.</p> : null}
-      <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200">
+      <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Checks, scrollable">
         <table data-testid="checks-table">
           <thead className="sticky top-0">
             <tr>
@@ -246,7 +246,7 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
   const upper = result.bounds?.upper.frequenciesHz;
   return (
     <div>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Natural frequencies and modes, scrollable">
         <table data-testid="modes-table">
           <thead>
             <tr>
@@ -303,7 +303,7 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
           <p className="text-xs font-semibold text-basalt-700">
             {r.machine} · {r.rotor} · {r.speedRpm} rpm · force amplitude {u.toResultText("force", r.forceAmplitude)} {u.unitLabel("force")}
           </p>
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Response of ${r.machine} ${r.rotor}, scrollable`}>
             <table>
               <thead>
                 <tr>

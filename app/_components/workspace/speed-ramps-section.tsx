@@ -405,6 +405,7 @@ function RampPlot({ result, run, index }: { result: AnalysisResult; run: Transie
       <div className="h-64 w-full" data-testid={`speed-ramp-plot-${index}`}>
         <ResponsiveLine
           data={series}
+          ariaLabel={`Plot of the ${quantity} envelope of run ${index + 1} against ${axis === "speed" ? "speed" : "time"}, with the steady state at the same speed`}
           margin={{ top: 14, right: 16, bottom: 40, left: 64 }}
           xScale={{ type: "linear", min: xMin, max: xMax }}
           yScale={{ type: "linear", min: 0, max: yMax }}
@@ -433,7 +434,7 @@ function PeakTable({ run, index }: { run: TransientResult; index: number }) {
     { what: "Velocity", kind: "velocity", peak: run.peakVelocity, max: run.steadyStateMax.velocityPeak, maxAt: run.steadyStateMax.velocityAtRpm },
   ];
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Peaks of run ${index + 1}, scrollable`}>
       <table data-testid={`speed-ramp-peaks-${index}`}>
         <thead>
           <tr>

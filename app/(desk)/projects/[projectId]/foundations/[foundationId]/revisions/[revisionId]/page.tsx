@@ -150,7 +150,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
       </section>
       <details className="slab p-4">
         <summary className="cursor-pointer text-sm font-semibold">Input as issued (JSON, SI)</summary>
-        <pre className="mt-2 max-h-96 overflow-auto text-2xs">{JSON.stringify(revision.input, null, 2)}</pre>
+        <pre className="mt-2 max-h-96 overflow-auto text-2xs" tabIndex={0} aria-label="Input document of this revision, scrollable">{JSON.stringify(revision.input, null, 2)}</pre>
       </details>
     </div>
   );
