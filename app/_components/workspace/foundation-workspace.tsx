@@ -15,6 +15,7 @@ import { MachinesSection } from "./machines-section";
 import { MatSizingSection } from "./mat-sizing-section";
 import { MethodSection } from "./method-section";
 import { ResponsePlots } from "./response-plots";
+import { ResultsSummaryBar } from "./results-summary";
 import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
@@ -37,7 +38,7 @@ export interface WorkspaceProps {
 
 function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
   return (
-    <section className="slab p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
+    <section id={id} className="slab scroll-mt-28 p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
       <div className="mb-3 flex items-center justify-between gap-2">
         <h2 id={`${id}-h`} className="text-base">
           {title}
@@ -175,6 +176,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
       ) : null}
       {!isValid && !props.readOnly ? <p className="text-xs text-brick-700">Some inputs need attention: see the fields marked in red.</p> : null}
 
+      <ResultsSummaryBar result={result ?? null} stale={stale} pending={pending} hasError={Boolean(error)} />
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="space-y-4">
           <Panel title="Block: boxes and voids" id="block">
