@@ -143,7 +143,7 @@ export function FoundationTable({ projectId, rows, showComments = true }: { proj
   return (
     <div className="space-y-2">
       <input className="field-input max-w-xs" placeholder="Filter by tag, train, status, check…" aria-label="Filter foundations" value={filter} onChange={(e) => setFilter(e.target.value)} />
-      <div className="slab overflow-x-auto">
+      <div className="slab overflow-x-auto" tabIndex={0} role="region" aria-label="Foundations, scrollable">
         <table data-testid="foundation-table">
           <thead>
             {table.getHeaderGroups().map((hg) => (

@@ -1,28 +1,25 @@
 // The units the package shows. Every sheet follows the project's unit system (projects.units,
-// SI or US customary) through the desk's own quantity table; the few quantities that table
-// lacks (dashpots, second moments of area, unbalance) are defined here from the same sizes.
+// SI or US customary) through the desk's own quantity table (time and dashpots included); the
+// few quantities that table lacks (second moments of area, unbalance) are defined here from
+// the same sizes. Figures are written by the one formatter (format-number.ts), so no kind
+// carries decimals here.
 import { convertValue, quantityKinds, type QuantityKindKey, type UnitInfo, type UnitSystemKey } from "@/modules/units";
 
-type ExtraKind = "dashpot" | "rotationalDashpot" | "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "time" | "count";
+type ExtraKind = "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "count";
 export type PackageKind = QuantityKindKey | ExtraKind;
 
 // Sizes taken from the quantity table, so that one foot or one pound-force is the same here.
 const foot = quantityKinds.length.us.siValue;
 const inch = foot / 12;
-const poundForce = quantityKinds.force.us.siValue;
 const pound = quantityKinds.mass.us.siValue;
-const kip = quantityKinds.largeForce.us.siValue;
 
-const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo; decimals: Record<UnitSystemKey, number> }> = {
-  dashpot: { base: { symbol: "N·s/m", siValue: 1 }, si: { symbol: "kN·s/m", siValue: 1e3 }, us: { symbol: "lbf·s/in", siValue: poundForce / inch }, decimals: { si: 1, us: 1 } },
-  rotationalDashpot: { base: { symbol: "N·m·s/rad", siValue: 1 }, si: { symbol: "kN·m·s/rad", siValue: 1e3 }, us: { symbol: "kip·ft·s/rad", siValue: kip * foot }, decimals: { si: 1, us: 2 } },
-  momentOfArea: { base: { symbol: "m⁴", siValue: 1 }, si: { symbol: "m⁴", siValue: 1 }, us: { symbol: "ft⁴", siValue: foot ** 4 }, decimals: { si: 3, us: 1 } },
-  unbalance: { base: { symbol: "kg·m", siValue: 1 }, si: { symbol: "g·mm", siValue: 1e-6 }, us: { symbol: "lb·in", siValue: pound * inch }, decimals: { si: 1, us: 4 } },
-  angularFrequency: { base: { symbol: "rad/s", siValue: 1 }, si: { symbol: "rad/s", siValue: 1 }, us: { symbol: "rad/s", siValue: 1 }, decimals: { si: 3, us: 3 } },
-  // Speed ramps (start-up and coast-down): time and the rate of change of the shaft speed.
-  angularAcceleration: { base: { symbol: "rad/s²", siValue: 1 }, si: { symbol: "rad/s²", siValue: 1 }, us: { symbol: "rad/s²", siValue: 1 }, decimals: { si: 3, us: 3 } },
-  time: { base: { symbol: "s", siValue: 1 }, si: { symbol: "s", siValue: 1 }, us: { symbol: "s", siValue: 1 }, decimals: { si: 3, us: 3 } },
-  count: { base: { symbol: "", siValue: 1 }, si: { symbol: "", siValue: 1 }, us: { symbol: "", siValue: 1 }, decimals: { si: 0, us: 0 } },
+const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo }> = {
+  momentOfArea: { base: { symbol: "m⁴", siValue: 1 }, si: { symbol: "m⁴", siValue: 1 }, us: { symbol: "ft⁴", siValue: foot ** 4 } },
+  unbalance: { base: { symbol: "kg·m", siValue: 1 }, si: { symbol: "g·mm", siValue: 1e-6 }, us: { symbol: "lb·in", siValue: pound * inch } },
+  angularFrequency: { base: { symbol: "rad/s", siValue: 1 }, si: { symbol: "rad/s", siValue: 1 }, us: { symbol: "rad/s", siValue: 1 } },
+  // Speed ramps (start-up and coast-down): the rate of change of the shaft speed.
+  angularAcceleration: { base: { symbol: "rad/s²", siValue: 1 }, si: { symbol: "rad/s²", siValue: 1 }, us: { symbol: "rad/s²", siValue: 1 } },
+  count: { base: { symbol: "", siValue: 1 }, si: { symbol: "", siValue: 1 }, us: { symbol: "", siValue: 1 } },
 };
 
 function kindOf(kind: PackageKind) {

@@ -16,7 +16,7 @@ export interface Evaluation {
   /** The result's checks (the soil band's included when required). An accepted band check still fails here. */
   checks: CheckResult[];
   pass: boolean;
-  /** Distinct ids of the failing checks. */
+  /** Distinct ids of the failing checks (those inside the required margin included). */
   failingIds: string[];
 }
 
@@ -30,10 +30,21 @@ export function checkMargin(c: CheckResult): number {
   return c.limit > 0 ? distance / c.limit : distance;
 }
 
+/**
+ * Relative tolerance on the required margin, so a candidate that keeps the margin to the last
+ * few bits of a float (10 % written as 0.1) is not refused for the rounding of the division.
+ */
+const MARGIN_TOLERANCE = 1e-9;
+
+/** The check passes and keeps the required margin inside its limit. */
+export function clearsWithMargin(c: CheckResult, margin: number): boolean {
+  return c.pass && (margin <= 0 || checkMargin(c) >= margin - MARGIN_TOLERANCE);
+}
+
 export type EvaluateResult = { ok: true; evaluation: Evaluation } | { ok: false; issues: InputIssue[] };
 
 /** Validates and analyses a resized document for the search. */
-export function evaluateCandidate(document: unknown, requireSoilBand: boolean): EvaluateResult {
+export function evaluateCandidate(document: unknown, requireSoilBand: boolean, margin = 0): EvaluateResult {
   const parsed = parseAnalysisInput(document);
   if (!parsed.ok) return parsed;
   const input: AnalysisInput = { ...parsed.input, sweep: { ...parsed.input.sweep, points: SEARCH_SWEEP_POINTS } };
@@ -43,6 +54,7 @@ export function evaluateCandidate(document: unknown, requireSoilBand: boolean): 
   delete (input as unknown as Record<string, unknown>)[OPTIONAL_RUNS_FIELD];
   const result = analyse(input, { soilBand: requireSoilBand });
   const checks = result.checks;
-  const failingIds = [...new Set(checks.filter((c) => !c.pass).map((c) => c.id))];
+  // With a required margin a check that passes but sits inside the margin counts as failing.
+  const failingIds = [...new Set(checks.filter((c) => !clearsWithMargin(c, margin)).map((c) => c.id))];
   return { ok: true, evaluation: { result, checks, pass: failingIds.length === 0, failingIds } };
 }

@@ -11,6 +11,7 @@ export {
   DEFAULT_STEP_M,
   DEFAULT_MAX_ANALYSES,
   DEFAULT_PROPOSALS,
+  MAX_MARGIN,
   type SizingOptions,
   type SizingOptionsDocument,
   type DimensionRange,
@@ -18,5 +19,6 @@ export {
   type OptionIssue,
   type SizingLimits,
 } from "./options";
+export { checkMargin, clearsWithMargin } from "./evaluate";
 export { readBaseMat, concreteVolume, minimumFit, type BaseMat, type MatDimensions } from "./base-mat";
 export type { Placement } from "./resize";

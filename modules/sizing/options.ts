@@ -19,6 +19,11 @@ export const MAX_ANALYSES_LIMIT = 5000;
 export const MAX_PROPOSALS = 10;
 export const MAX_VALUES_PER_DIMENSION = 1000;
 export const MAX_GRID_CANDIDATES = 200_000;
+/**
+ * Largest required margin: a share of each limit, so 1 would ask for a zero response or an
+ * infinite separation. 0.5 is a software bound, not an engineering one.
+ */
+export const MAX_MARGIN = 0.5;
 
 /** Tolerance when deciding that a bound is a whole number of steps (relative to the step). */
 const STEP_TOLERANCE = 1e-9;
@@ -52,16 +57,18 @@ const dimensionRangeSchema = z
   })
   .superRefine((r, ctx) => {
     if (r.max < r.min) {
-      ctx.addIssue({ code: "custom", path: ["max"], message: `must be at least min (${r.min} m)` });
+      // Numbers stay out of these messages: the bounds may have been typed in another unit
+      // system, and echoing the SI float back ("7.010400000000001 m") helps nobody.
+      ctx.addIssue({ code: "custom", path: ["max"], message: "must be at least min (the lower bound)" });
       return;
     }
     const n = countGridValues(r.min, r.max, r.step);
     // A step tiny against the bounds (or bounds near the float limit) makes the count NaN or
     // Infinity; it must be refused like any other too-fine grid, never searched.
     if (!Number.isFinite(n)) {
-      ctx.addIssue({ code: "custom", path: ["step"], message: `is too fine for bounds ${r.min} m to ${r.max} m: use a coarser step or narrower bounds` });
+      ctx.addIssue({ code: "custom", path: ["step"], message: "is too fine for these bounds: use a coarser step or narrower bounds" });
     } else if (n === 0) {
-      ctx.addIssue({ code: "custom", path: [], message: `no multiple of the step ${r.step} m lies between ${r.min} m and ${r.max} m` });
+      ctx.addIssue({ code: "custom", path: [], message: "no multiple of the step lies between min and max: widen the bounds or change the step" });
     } else if (n > MAX_VALUES_PER_DIMENSION) {
       ctx.addIssue({
         code: "custom",
@@ -119,6 +126,16 @@ export function makeSizingOptionsSchema(limits: SizingLimits) {
     centre: z.enum(["current", "load"], { error: 'must be "current" or "load"' }).default("current"),
     /** Also require the soil band's lower and upper frequencies to clear every operating range. */
     requireSoilBand: z.boolean({ error: "must be true or false" }).default(false),
+    /**
+     * Required margin inside every limit, as a share of the limit (0.1 = 10 %): a maximum
+     * must be undershot by it (value <= (1 - margin) x limit), a minimum exceeded by it
+     * (value >= (1 + margin) x limit), in the sense of checkMargin (evaluate.ts).
+     */
+    margin: z
+      .number({ error: "must be a number (a share of each limit, 0.1 = 10 %)" })
+      .min(0, { error: "must be at least 0" })
+      .max(MAX_MARGIN, { error: `must be at most ${MAX_MARGIN} (a share of each limit, 0.1 = 10 %)` })
+      .default(0),
     maxAnalyses: z
       .number({ error: "must be a whole number" })
       .int({ error: "must be a whole number" })

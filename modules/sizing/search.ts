@@ -13,8 +13,9 @@ import { bandCheckId, CRITERIA_DEFAULTS, nominalCheckId, parseAnalysisInput, typ
 import { STANDARD_GRAVITY } from "@/modules/calc/criteria-defaults";
 import { checkUtilisation } from "@/modules/desk/foundation-summary";
 import { concreteVolume, minimumFit, readBaseMat, LENGTH_TOLERANCE_M, type BaseMat, type MatDimensions } from "./base-mat";
-import { checkMargin, evaluateCandidate, type Evaluation } from "./evaluate";
+import { checkMargin, clearsWithMargin, evaluateCandidate, type Evaluation } from "./evaluate";
 import { gridValues, MODULE_SIZING_LIMITS, parseSizingOptions, roundLength, type CentreMode, type SizingLimits, type SizingOptions } from "./options";
+import { formatSignificant } from "@/modules/units/format-number";
 import { matCentre, placementFor, resizeDocument, type Placement } from "./resize";
 
 /** Relative miss below which a closed-form pre-check leaves the candidate to the core. */
@@ -200,14 +201,17 @@ function enumerate(mat: BaseMat, options: SizingOptions, need: MatDimensions): {
 }
 
 /** Checks that the candidate fails in closed form (contract definitions), if any. */
-function closedFormFailures(input: AnalysisInput, mat: BaseMat, c: Candidate): string[] {
+function closedFormFailures(input: AnalysisInput, mat: BaseMat, c: Candidate, margin: number): string[] {
   const out: string[] = [];
+  // the required margin moves each limit inward, as checkMargin measures it
+  const minFactor = 1 + margin;
+  const maxFactor = 1 - margin;
   const blockMass = mat.concreteDensity * c.volume;
   const minMassRatio = input.criteria?.minMassRatio ?? CRITERIA_DEFAULTS.minMassRatio.value;
-  if (blockMass / mat.machineMass < minMassRatio * (1 - PRUNE_TOLERANCE)) out.push("mass-ratio");
+  if (blockMass / mat.machineMass < minMassRatio * minFactor * (1 - PRUNE_TOLERANCE)) out.push("mass-ratio");
   const maxBearingRatio = input.criteria?.maxBearingRatio ?? CRITERIA_DEFAULTS.maxBearingRatio.value;
   const pressure = ((blockMass + mat.machineMass) * STANDARD_GRAVITY) / (c.dimensions.length * c.dimensions.width);
-  if (pressure / input.soil.allowableBearingPressure > maxBearingRatio * (1 + PRUNE_TOLERANCE)) out.push("bearing-pressure");
+  if (pressure / input.soil.allowableBearingPressure > maxBearingRatio * maxFactor * (1 + PRUNE_TOLERANCE)) out.push("bearing-pressure");
   return out;
 }
 
@@ -237,12 +241,13 @@ function proposalFrom(rank: number, c: Candidate, e: Evaluation, mat: BaseMat, m
 }
 
 /** Lower is closer to passing: fewer failing checks, then a smaller worst utilisation. */
-function distance(e: Evaluation): [number, number] {
-  const worst = worstFirst(e.checks.filter((c) => !c.pass))[0];
+function distance(e: Evaluation, margin: number): [number, number] {
+  const worst = worstFirst(e.checks.filter((c) => !clearsWithMargin(c, margin)))[0];
   return [e.failingIds.length, worst ? checkUtilisation(worst) : 0];
 }
 
-const fmt = (v: number, digits = 2) => v.toFixed(digits);
+// SI figures through the one formatter (the panel writes its own text in the project's units)
+const fmt = (v: number, digits: 3 | 4 = 4) => formatSignificant(v, { digits });
 // a margin of a few hundredths of a per cent is worth showing as such, not as "0.0"
 const percent = (share: number) => (Math.abs(share * 100) >= 1 ? (share * 100).toFixed(1) : (share * 100).toPrecision(2));
 const dims = (d: MatDimensions) => `${fmt(d.length)} m x ${fmt(d.width)} m x ${fmt(d.thickness)} m`;
@@ -302,7 +307,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
   const { fit, total } = enumerate(mat, options, need);
   const analyseCandidate = (c: Candidate): Evaluation => {
     // the parsed input is itself a valid document (defaults written out)
-    const out = evaluateCandidate(resizeDocument(input, mat, mode, c.dimensions), options.requireSoilBand);
+    const out = evaluateCandidate(resizeDocument(input, mat, mode, c.dimensions), options.requireSoilBand, options.margin);
     // The resizer keeps every rule of the core (no overlap, voids inside, O at the origin),
     // so a refusal here is a defect of this module, not of the user's input.
     if (!out.ok) throw new Error(`resized block refused by the core: ${JSON.stringify(out.issues)}`);
@@ -320,7 +325,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
 
   for (const c of fit) {
     if (proposals.length >= options.proposals) break;
-    const closed = closedFormFailures(input, mat, c);
+    const closed = closedFormFailures(input, mat, c, options.margin);
     if (closed.length > 0) {
       skipped++;
       examined++;
@@ -340,7 +345,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
       continue;
     }
     tally(e.failingIds);
-    const d = distance(e);
+    const d = distance(e, options.margin);
     if (!nearest || d[0] < nearest.d[0] || (d[0] === nearest.d[0] && d[1] < nearest.d[1])) nearest = { c, e, d };
   }
   // Nothing analysed (every candidate failed in closed form): let the core confirm on the
@@ -349,7 +354,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
   if (proposals.length === 0 && !nearest && largest && analysesRun < options.maxAnalyses) {
     const e = analyseCandidate(largest);
     analysesRun++;
-    nearest = { c: largest, e, d: distance(e) };
+    nearest = { c: largest, e, d: distance(e, options.margin) };
   }
 
   const failureList: FailureCount[] = [...failures.entries()]
@@ -382,7 +387,7 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
             dimensions: nearest.c.dimensions,
             concreteVolume: nearest.c.volume,
             placement: { mode, ...placementFor(mat, mode, nearest.c.dimensions) },
-            failing: worstFirst(nearest.e.checks.filter((ch) => !ch.pass)).map(summarise),
+            failing: worstFirst(nearest.e.checks.filter((ch) => !clearsWithMargin(ch, options.margin))).map(summarise),
           }
         : null,
     options,
@@ -411,11 +416,11 @@ function describe(r: SizingResult, need: MatDimensions): string {
   const first = r.proposals[0];
   if (first) {
     parts.push(
-      `${r.proposals.length} proposal${r.proposals.length > 1 ? "s" : ""}; the smallest, ${dims(first.dimensions)} (${fmt(first.concreteVolume)} m3 of concrete against ${fmt(r.current.concreteVolume)} m3 now), passes all ${first.checksPassed} checks; governing: ${words(first.governing.id).name} with ${percent(first.governing.margin)} % of its limit to spare.`,
+      `${r.proposals.length} proposal${r.proposals.length > 1 ? "s" : ""}; the smallest, ${dims(first.dimensions)} (${fmt(first.concreteVolume)} m³ of concrete against ${fmt(r.current.concreteVolume)} m³ now), passes all ${first.checksPassed} checks${r.options.margin > 0 ? ` with at least ${percent(r.options.margin)} % inside every limit` : ""}; governing: ${words(first.governing.id).name} with ${percent(first.governing.margin)} % of its limit to spare.`,
     );
   } else if (r.candidates.total === r.candidates.doNotFit) {
     parts.push(
-      `No combination within the bounds holds the plinths, voids and machines: the mat needs a length of at least ${fmt(need.length, 3)} m, a width of at least ${fmt(need.width, 3)} m and a thickness over ${fmt(need.thickness, 3)} m.`,
+      `No combination within the bounds holds the plinths, voids and machines: the mat needs a length of at least ${fmt(need.length)} m, a width of at least ${fmt(need.width)} m and a thickness over ${fmt(need.thickness)} m.`,
     );
   } else {
     const top = r.failures[0];
@@ -429,7 +434,7 @@ function describe(r: SizingResult, need: MatDimensions): string {
   }
   if (r.capped) {
     parts.push(
-      `The cap of ${r.maxAnalyses} analyses stopped the search with ${r.candidates.notReached} candidates not reached${r.candidates.examinedUpToVolume === null ? "" : `; every candidate up to ${fmt(r.candidates.examinedUpToVolume)} m3 was examined`}. Raise the cap or narrow the bounds.`,
+      `The cap of ${r.maxAnalyses} analyses stopped the search with ${r.candidates.notReached} candidates not reached${r.candidates.examinedUpToVolume === null ? "" : `; every candidate up to ${fmt(r.candidates.examinedUpToVolume)} m³ was examined`}. Raise the cap or narrow the bounds.`,
     );
   }
   parts.push(`${r.analysesRun} analyses run.`);

@@ -32,6 +32,19 @@ export function formatQuantity(kind: QuantityKindKey, storedValue: number, syste
   return options.withUnit === false || !symbol || text === "—" ? text : `${text} ${symbol}`;
 }
 
+/**
+ * A default value for a hint under a field, in the field's display unit with up to 3
+ * significant figures and no padding zeros: 31.1e-6 m -> "31.1 µm", 1.98e-3 m/s -> "1.98 mm/s",
+ * a ratio 3 -> "3".
+ */
+export function formatDefault(kind: QuantityKindKey, storedValue: number, system: UnitSystemKey): string {
+  if (!Number.isFinite(storedValue)) return "—";
+  const shown = Number(toDisplay(kind, storedValue, system).toPrecision(3));
+  const text = shown.toLocaleString("en-US", { maximumFractionDigits: 12, useGrouping: true });
+  const symbol = quantityKinds[kind][system].symbol;
+  return symbol ? `${text} ${symbol}` : text;
+}
+
 /** A length in feet and inches, e.g. `-5' 6.25"`, for US drawings and tables. */
 export function formatFeetInches(metres: number, inchDecimals = 2): string {
   if (!Number.isFinite(metres)) return "—";

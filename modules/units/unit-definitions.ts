@@ -89,6 +89,21 @@ export const newtonMetrePerRadian = named(newtons.times(meters).per(radians), "N
 export const meganewtonMetrePerRadian = named(mega(newtons).times(meters).per(radians), "MN·m/rad");
 export const kipFootPerRadian = named(kip.times(foot).per(radians), "kip·ft/rad");
 
+// ---- time: the second in both systems; milliseconds accepted for short time steps ----
+export const second = named(seconds, "s");
+export const millisecond = named(milli(seconds), "ms");
+
+// ---- viscous dashpots (force per velocity; moment per angular velocity) ----
+export const newtonSecondPerMetre = named(newtons.times(seconds).per(meters), "N·s/m");
+export const kilonewtonSecondPerMetre = named(kilo(newtons).times(seconds).per(meters), "kN·s/m");
+export const meganewtonSecondPerMetre = named(mega(newtons).times(seconds).per(meters), "MN·s/m");
+export const kipSecondPerInch = named(kip.times(seconds).per(inch), "kip·s/in");
+export const poundForceSecondPerInch = named(poundForce.times(seconds).per(inch), "lbf·s/in");
+export const newtonMetreSecondPerRadian = named(newtons.times(meters).times(seconds).per(radians), "N·m·s/rad");
+export const kilonewtonMetreSecondPerRadian = named(kilo(newtons).times(meters).times(seconds).per(radians), "kN·m·s/rad");
+export const meganewtonMetreSecondPerRadian = named(mega(newtons).times(meters).times(seconds).per(radians), "MN·m·s/rad");
+export const kipFootSecondPerRadian = named(kip.times(foot).times(seconds).per(radians), "kip·ft·s/rad");
+
 // ---- mass moment of inertia ----
 export const kilogramSquareMetre = named(kilograms.times(meters.squared()), "kg·m²");
 export const tonneSquareMetre = named(tonne.times(meters.squared()), "t·m²");

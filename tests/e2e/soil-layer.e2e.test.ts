@@ -3,6 +3,7 @@
 // plots mark the cutoffs, and the saved draft keeps the depth to rock.
 import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput } from "@/modules/calc";
+import { formatSignificant } from "@/modules/units";
 import { asDemo, sharedBrowser } from "./support/fixtures";
 import { screenshot } from "./support/browser";
 import { projectIdOf, textOf } from "./support/desk";
@@ -32,12 +33,13 @@ describe("designer: soil layer over rock", () => {
       if (!parsed.ok) throw new Error("stratum input invalid");
       const expected = analyse(parsed.input).impedance.details!;
       const line = await textOf(page.getByTestId("stratum-cutoffs"));
-      expect(line).toContain("H = 6.000 m");
-      expect(line).toContain(`vertical and rocking ${expected.cutoffHzCompression!.toFixed(2)} Hz`);
-      expect(line).toContain(`sliding and torsion ${expected.cutoffHzShear!.toFixed(2)} Hz`);
+      expect(line).toContain("H = 6.00 m");
+      expect(line).toContain(`vertical and rocking ${formatSignificant(expected.cutoffHzCompression!)} Hz`);
+      expect(line).toContain(`sliding and torsion ${formatSignificant(expected.cutoffHzShear!)} Hz`);
       const factors = await textOf(page.getByTestId("soil-factors"));
       expect(factors).toContain("Stratum factor (layer over rock)");
-      expect(factors).toContain(expected.stratumFactorZ!.toFixed(3));
+      // every table prints through the one formatter (3 significant figures)
+      expect(factors).toContain(formatSignificant(expected.stratumFactorZ!));
       expect(factors).toContain("Kausel (1974)");
       // both cutoffs lie inside the default sweep: each plot marks two lines
       expect(await page.getByTestId("plot-displacement").getByTestId("cutoff-marker").count()).toBe(2);

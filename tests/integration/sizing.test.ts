@@ -134,6 +134,22 @@ describe("POST /api/v1/sizing", () => {
     expect(((await ok.json()) as SizingResult).maxAnalyses).toBe(SIZING_API_MAX_ANALYSES);
   });
 
+  it("takes a required margin: 400 naming options.margin when out of range, and proposals that keep it inside every limit", async () => {
+    expect(await issuePaths(await size({ input: pumpTrain(), options: { ...OPTIONS, margin: 0.9 } }))).toEqual(["options.margin"]);
+    expect(await issuePaths(await size({ input: pumpTrain(), options: { ...OPTIONS, margin: null } }))).toEqual(["options.margin"]);
+    const res = await size({ input: pumpTrain(), options: { ...OPTIONS, margin: 0.1 } });
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as SizingResult;
+    expect(body.found).toBe(true);
+    const out = applySizingProposal(pumpTrain(), body.proposals[0]!);
+    if (!out.ok) throw new Error(JSON.stringify(out.issues));
+    // every nominal check of the applied size, re-analysed here, clears its limit by 10 %
+    for (const c of analyseDocument(out.document).checks.filter((ch) => !ch.soilCase)) {
+      const spare = c.comparison === "min" ? c.value / c.limit - 1 : 1 - Math.abs(c.value) / c.limit;
+      expect(spare, c.key).toBeGreaterThanOrEqual(0.1 - 1e-9);
+    }
+  });
+
   it("refuses at once a step too fine for its bounds to count the values (it would enumerate a billion Infinity lengths)", async () => {
     const fine = { min: 6, max: 6.4, step: 5e-324 };
     const huge = { min: 1e308, max: 1e308, step: 0.1 };

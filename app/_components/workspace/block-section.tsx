@@ -13,7 +13,7 @@ export function BlockSection({ readOnly }: { readOnly: boolean }) {
       </div>
       <FieldArray name="block.solids">
         {(arr) => (
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Solids of the block, scrollable">
             <table className="min-w-[760px]" data-testid="solids-table">
               <thead>
                 <tr>

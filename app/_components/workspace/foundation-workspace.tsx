@@ -15,6 +15,7 @@ import { MachinesSection } from "./machines-section";
 import { MatSizingSection } from "./mat-sizing-section";
 import { MethodSection } from "./method-section";
 import { ResponsePlots } from "./response-plots";
+import { ResultsSummaryBar } from "./results-summary";
 import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
@@ -40,7 +41,7 @@ export interface WorkspaceProps {
 
 function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
   return (
-    <section className="slab p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
+    <section id={id} className="slab scroll-mt-28 p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
       <div className="mb-3 flex items-center justify-between gap-2">
         <h2 id={`${id}-h`} className="text-base">
           {title}
@@ -160,7 +161,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           <p className="mt-1 text-xs text-basalt-600">Automatic saving is paused until you choose; your changes stay in this form.</p>
           <details className="mt-2 text-xs">
             <summary className="cursor-pointer">See the difference</summary>
-            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono">
+            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 font-mono" tabIndex={0} aria-label="Differences from the saved draft, scrollable">
               {diffSummary(document, conflict.current)
                 .slice(0, 60)
                 .map((d) => (
@@ -185,6 +186,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
         </p>
       ) : null}
 
+      <ResultsSummaryBar result={result ?? null} stale={stale} pending={pending} hasError={Boolean(error)} />
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="space-y-4">
           <Panel title="Block: boxes and voids" id="block">

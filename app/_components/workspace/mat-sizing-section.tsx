@@ -2,7 +2,7 @@
 
 import { useFormikContext } from "formik";
 import { useId, useMemo, useState } from "react";
-import { DEFAULT_STEP_M, type CentreMode, type NearestCandidate, type ProposalToApply, type SizingProposal, type SizingResult } from "@/modules/sizing";
+import { DEFAULT_STEP_M, MAX_MARGIN, type CentreMode, type NearestCandidate, type ProposalToApply, type SizingProposal, type SizingResult } from "@/modules/sizing";
 import type { DraftForm } from "@/modules/desk/draft-form";
 import { loadProposalIntoForm, matDimensionsOfForm, SIZING_API_DEFAULT_ANALYSES, SIZING_API_MAX_ANALYSES, SIZING_DIMENSIONS, suggestedMatBounds, type SizingDimension } from "@/modules/desk/mat-sizing";
 import { Cautions } from "../cautions";
@@ -57,14 +57,15 @@ function startingRows(form: DraftForm): Record<SizingDimension, BoundRow> {
 }
 
 /** Options as the API takes them; a blank or junk number goes as null so the server names the field. */
-function optionsFrom(rows: Record<SizingDimension, BoundRow>, centre: CentreMode, requireSoilBand: boolean, maxAnalyses: SiValue): SizingOptionsBody {
+function optionsFrom(rows: Record<SizingDimension, BoundRow>, centre: CentreMode, requireSoilBand: boolean, marginPercent: SiValue, maxAnalyses: SiValue): SizingOptionsBody {
   const n = (v: SiValue) => (v === null || !Number.isFinite(v) ? null : v);
   const dimensions: SizingOptionsBody["dimensions"] = {};
   for (const d of SIZING_DIMENSIONS) {
     const r = rows[d];
     if (r.vary) dimensions[d] = { min: n(r.min), max: n(r.max), ...(r.step === null ? {} : { step: n(r.step) }) };
   }
-  return { dimensions, centre, requireSoilBand, maxAnalyses: n(maxAnalyses) };
+  const margin = n(marginPercent);
+  return { dimensions, centre, requireSoilBand, margin: margin === null ? null : margin / 100, maxAnalyses: n(maxAnalyses) };
 }
 
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
@@ -88,6 +89,8 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const [centre, setCentre] = useState<CentreMode>("current");
   const [requireSoilBand, setRequireSoilBand] = useState(false);
   const [maxAnalyses, setMaxAnalyses] = useState<SiValue>(SIZING_API_DEFAULT_ANALYSES);
+  // typed as a percentage, sent as a share
+  const [marginPercent, setMarginPercent] = useState<SiValue>(0);
   /** rank null: the closest-to-passing candidate of a search that found nothing. */
   const [loaded, setLoaded] = useState<{ rank: number | null; body: string; searched: string } | null>(null);
   const [loadError, setLoadError] = useState<string | null>(null);
@@ -103,7 +106,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
   const search = () => {
     setLoaded(null);
     setLoadError(null);
-    void run({ input: document, options: optionsFrom(rows, centre, requireSoilBand, maxAnalyses) });
+    void run({ input: document, options: optionsFrom(rows, centre, requireSoilBand, marginPercent, maxAnalyses) });
   };
   const load = (p: ProposalToApply, rank: number | null) => {
     if (!data) return;
@@ -124,7 +127,7 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
         Searches base-mat sizes within your bounds, smallest concrete volume first, and lists those that pass every check with the inputs as they stand. Plinths, voids, machines, bearings
         and check points ride on the mat; soil, criteria and everything else stay as entered.
       </p>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Sizing bounds, scrollable">
         <table className="min-w-[520px]" data-testid="sizing-bounds">
           <thead>
             <tr>
@@ -190,6 +193,13 @@ export function MatSizingSection({ readOnly, document, toDocument }: { readOnly:
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={requireSoilBand} onChange={(e) => setRequireSoilBand(e.target.checked)} />
           The soil band must pass too (frequency separation, displacement and velocity at the lower and upper shear modulus)
+        </label>
+        <label className="flex items-center gap-2">
+          <span>Margin inside every limit</span>
+          <span className="w-16">
+            <SiInput kind="ratio" label={`Margin inside every limit, 0 to ${MAX_MARGIN * 100} (%)`} value={marginPercent} onChange={setMarginPercent} error={fieldErrors["options.margin"]} />
+          </span>
+          <span className="text-2xs text-basalt-500">% of each limit (10: a mass ratio at least 1.1 × its minimum, a displacement at most 0.9 × its maximum)</span>
         </label>
         <label className="flex items-center gap-2">
           <span>Analyses at most</span>
@@ -261,7 +271,7 @@ function SizingOutcome({
   const u = useUnits();
   const len = (v: number) => u.toDisplayText("length", v);
   const dims = (d: { length: number; width: number; thickness: number }) => `${len(d.length)} × ${len(d.width)} × ${len(d.thickness)} ${u.unitLabel("length")}`;
-  const vol = (v: number) => `${u.toDisplayText("volume", v)} ${u.unitLabel("volume")}`;
+  const vol = (v: number) => `${u.toResultText("volume", v)} ${u.unitLabel("volume")}`;
   const examined = result.candidates.analysed + result.candidates.skippedClosedForm;
   return (
     <div className="space-y-3 text-xs">
@@ -285,7 +295,7 @@ function SizingOutcome({
       ) : null}
 
       {result.found ? (
-        <div className="overflow-x-auto rounded-plinth border border-grout-200">
+        <div className="overflow-x-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Proposed sizes, scrollable">
           <table data-testid="sizing-proposals">
             <thead>
               <tr>
@@ -304,12 +314,12 @@ function SizingOutcome({
                   <td className="font-mono">{p.rank}</td>
                   <td className="whitespace-nowrap font-mono">{dims(p.dimensions)}</td>
                   <td className="whitespace-nowrap text-right font-mono">{vol(p.concreteVolume)}</td>
-                  <td className="text-right font-mono">{u.toDisplayText("ratio", p.massRatio)}</td>
+                  <td className="text-right font-mono">{u.toResultText("ratio", p.massRatio)}</td>
                   <td>
                     {p.governing.label}
                     <span className="block text-2xs text-basalt-500">{percent(p.governing.margin)} of the limit to spare</span>
                   </td>
-                  <td className="text-right font-mono">{p.lowestFrequencyRatio === null ? "–" : p.lowestFrequencyRatio.toFixed(3)}</td>
+                  <td className="text-right font-mono">{p.lowestFrequencyRatio === null ? "–" : u.toResultText("ratio", p.lowestFrequencyRatio)}</td>
                   {readOnly ? null : (
                     <td>
                       <button type="button" className="btn-quiet whitespace-nowrap px-2 py-0.5 text-2xs" disabled={!canLoad} onClick={() => onLoad(p)} aria-label={`Load size ${p.rank} into the draft`}>

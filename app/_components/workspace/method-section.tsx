@@ -4,7 +4,8 @@ import { useFormikContext } from "formik";
 import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS } from "@/modules/calc";
 import type { DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
-import type { QuantityKey } from "./units-context";
+import { formatDefault } from "@/modules/units";
+import { useUnits, type QuantityKey } from "./units-context";
 
 const methods = [
   { value: "equivalent-radius", label: "Equivalent-radius half-space (Richart, Hall & Woods 1970; Lysmer's analog damping)" },
@@ -32,6 +33,7 @@ const criteria: { key: keyof typeof CRITERIA_DEFAULTS; label: string; kind: Quan
 
 export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean; projectCriteria?: Record<string, number> }) {
   const { values, handleChange, setFieldValue } = useFormikContext<DraftForm>();
+  const units = useUnits();
   return (
     <div className="space-y-4">
       <fieldset className="space-y-1.5" disabled={readOnly}>
@@ -75,7 +77,7 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
               <div key={c.key}>
                 <NumberField name={`criteria.${c.key}`} label={c.label} kind={c.kind} readOnly={readOnly} />
                 <p className="mt-0.5 text-2xs text-basalt-400" title={CRITERIA_DEFAULTS[c.key].source}>
-                  default {Number(fallback.toPrecision(3))} {CRITERIA_DEFAULTS[c.key].unit === "-" ? "" : CRITERIA_DEFAULTS[c.key].unit} · {CRITERIA_DEFAULTS[c.key].source}
+                  default {formatDefault(c.kind, fallback, units.system)} · {CRITERIA_DEFAULTS[c.key].source}
                 </p>
               </div>
             );

@@ -51,6 +51,7 @@ function Plot({ series, bands, yLabel, testId }: { series: Series[]; bands: Band
       <div className="h-64 w-full">
         <ResponsiveLine
           data={series}
+          ariaLabel={`Plot of ${yLabel} against frequency: ${series.map((s) => String(s.id)).join(", ")}, with the operating ranges and natural frequencies marked`}
           margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
           xScale={{ type: "linear", min: "auto", max: "auto" }}
           yScale={{ type: "linear", min: 0, max: "auto" }}

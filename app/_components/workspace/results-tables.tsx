@@ -40,7 +40,7 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
         )}
       </p>
       {result.bounds ? <p className="mb-2 text-2xs text-basalt-500">Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.</p> : null}
-      <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200">
+      <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Checks, scrollable">
         <table data-testid="checks-table">
           <thead className="sticky top-0">
             <tr>
@@ -126,6 +126,8 @@ export function MassTable({ result }: { result: AnalysisResult }) {
 }
 
 function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
+  const u = useUnits();
+  const f = (k: QuantityKey, v: number) => `${u.toResultText(k, v)} ${u.unitLabel(k)}`;
   const rows = soilFactorRows(imp);
   const strat = stratumSummary(imp);
   if (!rows.length && !strat) return null;
@@ -152,7 +154,7 @@ function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
                 </td>
                 {r.values.map((v, i) => (
                   <td key={i} className="text-right font-mono text-xs">
-                    {v.toFixed(3)}
+                    {sig(v)}
                   </td>
                 ))}
               </tr>
@@ -162,9 +164,9 @@ function SoilFactorsTable({ imp }: { imp: AnalysisResult["impedance"] }) {
       ) : null}
       {strat ? (
         <p className="text-xs" data-testid="stratum-cutoffs">
-          Layer over rock, H = {strat.thickness.toPrecision(4)} m
-          {strat.profile ? ` (equivalent of the borehole layers: Vs = ${strat.profile.shearWaveVelocity.toPrecision(4)} m/s, ρ = ${strat.profile.density.toPrecision(4)} kg/m³, ν = ${strat.profile.poissonRatio.toPrecision(3)})` : ""}. Cutoff frequencies: vertical and rocking{" "}
-          {strat.cutoffCompressionHz.toFixed(2)} Hz, sliding and torsion {strat.cutoffShearHz.toFixed(2)} Hz; below them only material damping remains.
+          Layer over rock, H = {f("length", strat.thickness)}
+          {strat.profile ? ` (equivalent of the borehole layers: Vs = ${f("waveSpeed", strat.profile.shearWaveVelocity)}, ρ = ${f("density", strat.profile.density)}, ν = ${sig(strat.profile.poissonRatio)})` : ""}. Cutoff frequencies: vertical and rocking{" "}
+          {sig(strat.cutoffCompressionHz)} Hz, sliding and torsion {sig(strat.cutoffShearHz)} Hz; below them only material damping remains.
           <span className="block text-2xs text-basalt-400">{strat.source}</span>
         </p>
       ) : null}
@@ -245,7 +247,7 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
   const upper = result.bounds?.upper.frequenciesHz;
   return (
     <div>
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Natural frequencies and modes, scrollable">
         <table data-testid="modes-table">
           <thead>
             <tr>
@@ -302,7 +304,7 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
           <p className="text-xs font-semibold text-basalt-700">
             {r.machine} · {r.rotor} · {r.speedRpm} rpm · force amplitude {u.toResultText("force", r.forceAmplitude)} {u.unitLabel("force")}
           </p>
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Response of ${r.machine} ${r.rotor}, scrollable`}>
             <table>
               <thead>
                 <tr>

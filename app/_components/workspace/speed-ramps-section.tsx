@@ -18,6 +18,7 @@ import {
 import { Explain } from "./explain";
 import { NumberField } from "./number-field";
 import { useUnits } from "./units-context";
+import { formatSignificant } from "@/modules/units";
 
 // ---------------------------------------------------------------- the runs as the designer types them
 
@@ -113,7 +114,7 @@ function RunRow({ index, run, rotor, readOnly, onRemove }: { index: number; run:
         />
         <NumberField name={`${base}.fromRpm`} label="From speed" kind="speed" readOnly={readOnly} hint={`Blank: ${runUp ? "standstill" : rated}`} />
         <NumberField name={`${base}.toRpm`} label="To speed" kind="speed" readOnly={readOnly} hint={`Blank: ${runUp ? rated : "standstill"}`} />
-        <NumberField name={`${base}.durationS`} label="Duration (s)" kind="ratio" readOnly={readOnly} hint={`Up to ${TRANSIENT_LIMITS.maxDurationS} s`} />
+        <NumberField name={`${base}.durationS`} label="Duration" kind="time" readOnly={readOnly} hint={`Up to ${TRANSIENT_LIMITS.maxDurationS} s`} />
         <SelectField
           label="Load case"
           value={run.case}
@@ -404,6 +405,7 @@ function RampPlot({ result, run, index }: { result: AnalysisResult; run: Transie
       <div className="h-64 w-full" data-testid={`speed-ramp-plot-${index}`}>
         <ResponsiveLine
           data={series}
+          ariaLabel={`Plot of the ${quantity} envelope of run ${index + 1} against ${axis === "speed" ? "speed" : "time"}, with the steady state at the same speed`}
           margin={{ top: 14, right: 16, bottom: 40, left: 64 }}
           xScale={{ type: "linear", min: xMin, max: xMax }}
           yScale={{ type: "linear", min: 0, max: yMax }}
@@ -432,13 +434,13 @@ function PeakTable({ run, index }: { run: TransientResult; index: number }) {
     { what: "Velocity", kind: "velocity", peak: run.peakVelocity, max: run.steadyStateMax.velocityPeak, maxAt: run.steadyStateMax.velocityAtRpm },
   ];
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" tabIndex={0} role="region" aria-label={`Peaks of run ${index + 1}, scrollable`}>
       <table data-testid={`speed-ramp-peaks-${index}`}>
         <thead>
           <tr>
             <th>Largest component</th>
             <th className="text-right">Peak in the ramp</th>
-            <th className="text-right">At time (s)</th>
+            <th className="text-right">At time ({u.unitLabel("time")})</th>
             <th className="text-right">At speed (rpm)</th>
             <th>At bearing</th>
             <th className="text-right">Steady state at that speed</th>
@@ -452,19 +454,19 @@ function PeakTable({ run, index }: { run: TransientResult; index: number }) {
             <tr key={r.kind}>
               <td className="text-xs">{r.what}</td>
               <td className="whitespace-nowrap text-right font-mono text-xs font-semibold">
-                {u.toDisplayText(r.kind, r.peak.value)} {u.unitLabel(r.kind)}
+                {u.toResultText(r.kind, r.peak.value)} {u.unitLabel(r.kind)}
               </td>
-              <td className="text-right font-mono text-xs">{r.peak.atTimeS.toFixed(2)}</td>
+              <td className="text-right font-mono text-xs">{u.toResultText("time", r.peak.atTimeS)}</td>
               <td className="text-right font-mono text-xs">{Math.round(r.peak.atRpm)}</td>
               <td className="text-xs">{shortPointName(run, r.peak.point)}</td>
               <td className="whitespace-nowrap text-right font-mono text-xs">
-                {u.toDisplayText(r.kind, r.peak.steadyStateAtSameSpeed)} {u.unitLabel(r.kind)}
+                {u.toResultText(r.kind, r.peak.steadyStateAtSameSpeed)} {u.unitLabel(r.kind)}
               </td>
               <td className="whitespace-nowrap text-right font-mono text-xs">
-                {u.toDisplayText(r.kind, r.max)} {u.unitLabel(r.kind)}
+                {u.toResultText(r.kind, r.max)} {u.unitLabel(r.kind)}
               </td>
               <td className="text-right font-mono text-xs">{Math.round(r.maxAt)}</td>
-              <td className="text-right font-mono text-xs">{r.max > 0 ? (r.peak.value / r.max).toFixed(3) : "—"}</td>
+              <td className="text-right font-mono text-xs">{r.max > 0 ? u.toResultText("ratio", r.peak.value / r.max) : "—"}</td>
             </tr>
           ))}
         </tbody>
@@ -480,7 +482,8 @@ function RampResult({ result, run, index }: { result: AnalysisResult; run: Trans
   const dofs = ["x", "y", "z", "rx", "ry", "rz"] as const;
   const springText = (k: (typeof dofs)[number]) => {
     const kind = k.startsWith("r") ? "rotationalStiffness" : "stiffness";
-    return `${u.toDisplayText(kind, run.model.stiffness[k])} ${u.unitLabel(kind)}, c ${run.model.dashpot[k].toPrecision(4)} ${k.startsWith("r") ? "N·m·s/rad" : "N·s/m"}`;
+    const dashpot = k.startsWith("r") ? "rotationalDashpot" : "dashpot";
+    return `${u.toResultText(kind, run.model.stiffness[k])} ${u.unitLabel(kind)}, c ${u.toResultText(dashpot, run.model.dashpot[k])} ${u.unitLabel(dashpot)}`;
   };
   return (
     <article className="space-y-3 rounded-plinth border border-grout-300 p-3" data-testid={`speed-ramp-result-${index}`}>
@@ -490,7 +493,7 @@ function RampResult({ result, run, index }: { result: AnalysisResult; run: Trans
       <RampPlot result={result} run={run} index={index} />
       <Explain
         title="How this plot was computed"
-        method={`${SPEED_RAMP_METHOD.integration}, on the six-degree-of-freedom block of the harmonic analysis, in ${run.steps.toLocaleString("en-US")} steps of ${run.timeStepS.toPrecision(4)} s (${run.stepsPerShortestPeriod.toFixed(1)} per period of the highest frequency of the ramp). The speed changes at a constant rate from ${run.fromRpm} to ${run.toRpm} rpm. Springs and dashpots are frozen at the rotor's rated speed (${run.model.referenceHz.toFixed(2)} Hz); the material damping β becomes the viscous dashpot 2βK/ω_rated. Each curve keeps, per plot interval, the largest component of the bearing's motion; the dashed curve is the harmonic steady state of the frequency sweep at the same bearings.`}
+        method={`${SPEED_RAMP_METHOD.integration}, on the six-degree-of-freedom block of the harmonic analysis, in ${run.steps.toLocaleString("en-US")} steps of ${u.toResultText("time", run.timeStepS)} ${u.unitLabel("time")} (${run.stepsPerShortestPeriod.toFixed(1)} per period of the highest frequency of the ramp). The speed changes at a constant rate from ${run.fromRpm} to ${run.toRpm} rpm. Springs and dashpots are frozen at the rotor's rated speed (${run.model.referenceHz.toFixed(2)} Hz); the material damping β becomes the viscous dashpot 2βK/ω_rated. Each curve keeps, per plot interval, the largest component of the bearing's motion; the dashed curve is the harmonic steady state of the frequency sweep at the same bearings.`}
         formula={
           <>
             M ü + C u̇ + K u = Re(P (m e ω² − i m e α) e^(iφ)), φ = ω₀t + αt²/2; C = C_soil(ω_rated) + 2βK/ω_rated
@@ -498,15 +501,15 @@ function RampResult({ result, run, index }: { result: AnalysisResult; run: Trans
         }
         source={SPEED_RAMP_METHOD.source}
         inputs={[
-          ["angular acceleration α", `${run.angularAcceleration.toPrecision(4)} rad/s²`],
-          ["time step Δt", `${run.timeStepS.toPrecision(4)} s`],
+          ["angular acceleration α", `${formatSignificant(run.angularAcceleration)} rad/s²`],
+          ["time step Δt", `${u.toResultText("time", run.timeStepS)} ${u.unitLabel("time")}`],
           ["steps", run.steps.toLocaleString("en-US")],
           ["steps per shortest period", run.stepsPerShortestPeriod.toFixed(1)],
           ["plot intervals", String(run.series.timeS.length)],
-          ["springs frozen at", `${run.model.referenceHz.toFixed(2)} Hz (${Math.round(run.model.referenceHz * 60)} rpm)`],
+          ["springs frozen at", `${formatSignificant(run.model.referenceHz)} Hz (${Math.round(run.model.referenceHz * 60)} rpm)`],
           ["material damping β", String(beta)],
-          ["natural frequencies of this model", run.model.naturalFrequenciesHz.map((f) => f.toFixed(2)).join(", ") + " Hz"],
-          ["passed in the ramp", passed.length ? passed.map((m) => `f${m.mode} ${m.frequencyHz.toFixed(2)} Hz = ${Math.round(m.frequencyHz * 60)} rpm`).join("; ") : "none"],
+          ["natural frequencies of this model", run.model.naturalFrequenciesHz.map((f) => formatSignificant(f)).join(", ") + " Hz"],
+          ["passed in the ramp", passed.length ? passed.map((m) => `f${m.mode} ${formatSignificant(m.frequencyHz)} Hz = ${Math.round(m.frequencyHz * 60)} rpm`).join("; ") : "none"],
           ...dofs.map((k) => [`k, c ${k}`, springText(k)] as [string, string]),
         ]}
       />

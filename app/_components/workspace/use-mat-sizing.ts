@@ -10,6 +10,8 @@ export interface SizingOptionsBody {
   dimensions: Partial<Record<SizingDimension, { min: number | null; max: number | null; step?: number | null }>>;
   centre: CentreMode;
   requireSoilBand: boolean;
+  /** Required margin inside every limit, a share (0.1 = 10 %). */
+  margin: number | null;
   maxAnalyses: number | null;
 }
 

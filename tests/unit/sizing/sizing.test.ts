@@ -324,6 +324,13 @@ describe("validation", () => {
     expectIssue({ dimensions: { length: { min: "7", max: 8 } } }, "dimensions.length.min", /finite number/);
   });
 
+  it("echoes no floating-point noise of a bound converted from feet (the panel words it in the project's units)", () => {
+    // 23 ft = 7.0104 m, as a conversion writes it
+    const issues = issuesOf({ dimensions: { length: { min: 23 * 0.3048, max: 7 }, width: { min: 3.01, max: 3.09, step: 0.1 } } });
+    expect(issues.length).toBe(2);
+    for (const i of issues) expect(i.message).not.toMatch(/\d\.\d{5,}/);
+  });
+
   it("tells which argument a problem is in", () => {
     const out = proposeBlockSizes({ ...demo(), schemaVersion: 2 }, { dimensions: { length: { min: 8, max: 7 } } });
     expect(out.ok).toBe(false);
@@ -353,5 +360,61 @@ describe("validation", () => {
     const lowPlinth = demo();
     lowPlinth.block.solids.push({ name: "shelf", x: [3.8, 4.4], y: [-1, 1], z: [0.5, 1.4] });
     expect(refused(lowPlinth)).toEqual(["input:block.solids[4].z"]);
+  });
+});
+
+describe("a required margin inside every limit", () => {
+  // the same grid as the first suite; a margin of 10 % on every check
+  const MARGIN = 0.1;
+  const start = demo();
+  let plain: SizingResult;
+  let kept: SizingResult;
+  beforeAll(() => {
+    plain = found(proposeBlockSizes(start, { dimensions: BOUNDS, proposals: 1 }));
+    kept = found(proposeBlockSizes(start, { dimensions: BOUNDS, proposals: 2, margin: MARGIN }));
+  });
+
+  /** Share of the limit left, computed here from value and limit (not by the module's checkMargin). */
+  const spare = (c: { comparison?: "min" | "max"; value: number; limit: number }) =>
+    c.comparison === "min" ? c.value / c.limit - 1 : 1 - Math.abs(c.value) / c.limit;
+
+  it("without a margin the smallest block sits on a limit (inside 10 %); with it every check of every proposal clears its limit by 10 %", () => {
+    expect(plain.found && kept.found).toBe(true);
+    const r0 = analyseDoc(applied(start, plain.proposals[0]!));
+    expect(Math.min(...r0.checks.map(spare))).toBeLessThan(MARGIN);
+    for (const p of kept.proposals) {
+      const r = analyseDoc(applied(start, p));
+      expect(failing(r)).toEqual([]);
+      for (const c of r.checks) expect(spare(c), `${c.key}: ${c.value} against ${c.limit}`).toBeGreaterThanOrEqual(MARGIN - 1e-9);
+      // the mass ratio, in the contract's own definition, holds 1.1 x the minimum
+      expect(p.massRatio).toBeGreaterThanOrEqual(r.checks.find((c) => c.id === "mass-ratio")!.limit * (1 + MARGIN) - 1e-9);
+      expect(p.governing.margin).toBeGreaterThanOrEqual(MARGIN - 1e-9);
+    }
+    expect(kept.proposals[0]!.concreteVolume).toBeGreaterThan(plain.proposals[0]!.concreteVolume);
+    expect(kept.message).toMatch(/at least 10\.0 % inside every limit/);
+    expect(kept.options.margin).toBe(MARGIN);
+  });
+
+  it("keeps the margin on the soil band's checks too when the band is required", () => {
+    const grid = { length: { min: 7.0, max: 7.4 }, width: { min: 3.0, max: 3.4 }, thickness: { min: 1.4, max: 2.0 } };
+    const r = found(proposeBlockSizes(start, { dimensions: grid, requireSoilBand: true, proposals: 1, margin: 0.05 }));
+    expect(r.found).toBe(true);
+    const rb = analyseDoc(applied(start, r.proposals[0]!), true);
+    expect(rb.checks.some((c) => c.soilCase)).toBe(true);
+    for (const c of rb.checks) expect(spare(c), c.key).toBeGreaterThanOrEqual(0.05 - 1e-9);
+  });
+
+  it("is validated: a number from 0 to 0.5, 0 by default", () => {
+    const ok = parseSizingOptions({ dimensions: BOUNDS });
+    expect(ok.ok && ok.options.margin).toBe(0);
+    for (const [margin, message] of [
+      [-0.1, /at least 0/],
+      [0.6, /at most 0.5/],
+      ["10%", /must be a number/],
+    ] as const) {
+      const out = parseSizingOptions({ dimensions: BOUNDS, margin });
+      expect(out.ok).toBe(false);
+      if (!out.ok) expect(out.issues.find((i) => i.path === "margin")?.message).toMatch(message);
+    }
   });
 });

@@ -34,6 +34,7 @@ function Overlay({ series, yLabel, ranges, modes, testId }: { series: Series[]; 
     <div className="h-64 w-full" data-testid={testId}>
       <ResponsiveLine
         data={series}
+        ariaLabel={`Plot of ${yLabel}, the two revisions overlaid`}
         margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
         xScale={{ type: "linear", min: "auto", max: "auto" }}
         yScale={{ type: "linear", min: 0, max: "auto" }}

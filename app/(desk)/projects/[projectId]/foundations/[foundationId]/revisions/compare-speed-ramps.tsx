@@ -68,6 +68,7 @@ function Overlay({ older, newer }: { older: { label: string; result: AnalysisRes
       <div className="h-64 w-full" data-testid="compare-plot-speed-ramp">
         <ResponsiveLine
           data={series}
+          ariaLabel={`Plot of the ${quantity} envelope of the speed ramp, revisions ${older.label} and ${newer.label} overlaid`}
           margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
           xScale={{ type: "linear", min: "auto", max: "auto" }}
           yScale={{ type: "linear", min: 0, max: "auto" }}

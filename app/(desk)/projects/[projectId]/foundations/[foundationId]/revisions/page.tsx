@@ -83,7 +83,7 @@ export default async function RevisionsPage({ params }: { params: Promise<{ proj
         {revisions.length === 0 ? (
           <EmptyState title="No revision issued yet">{mayIssue ? "Issue the draft for check above." : "The designer issues them."}</EmptyState>
         ) : (
-          <div className="slab overflow-x-auto">
+          <div className="slab overflow-x-auto" tabIndex={0} role="region" aria-label="Revisions, scrollable">
             <table data-testid="revision-table">
               <thead>
                 <tr>

@@ -215,7 +215,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           <InputValues rows={inputValues} />
           <details>
             <summary className="cursor-pointer text-xs text-basalt-500">The same as JSON (SI)</summary>
-            <pre className="mt-2 max-h-96 overflow-auto text-2xs">{JSON.stringify(revision.input, null, 2)}</pre>
+            <pre className="mt-2 max-h-96 overflow-auto text-2xs" tabIndex={0} aria-label="Input document of this revision, scrollable">{JSON.stringify(revision.input, null, 2)}</pre>
           </details>
         </section>
       </FieldCommentArea>
