@@ -108,7 +108,7 @@ export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: R
 export function combinedChecks(criteria: Criteria, combined: CombinedResult[]): CheckResult[] {
   const checks: CheckResult[] = [];
   for (const g of combined) {
-    const what = g.speedRpm === null ? `${g.group.join(" + ")} at their different speeds (sum of peaks)` : `${g.group.join(" + ")} together at ${g.speedRpm} rpm (worst phase)`;
+    const what = g.speedRpm === undefined ? `${g.group.join(" + ")} at their different speeds (sum of peaks)` : `${g.group.join(" + ")} together at ${g.speedRpm} rpm (worst phase)`;
     for (const c of g.cases) {
       for (const p of c.points) {
         const where = `${p.name}, ${what}, ${c.case} ${c.unbalanceMode} unbalance, over the speed range`;

@@ -231,9 +231,27 @@ export function combinedResults(model: Model, solver: HarmonicSolver, modesHz: n
   if (model.rotors.length < 2) return [];
   const groups = speedGroups(model.rotors);
   const out: CombinedResult[] = [];
-  for (const g of groups) {
-    if (g.length < 2) continue;
+  const allPoints = combinedPoints(model, model.rotors);
+  const allKeys = combinedCaseKeys(model.rotors);
+  // Each group is solved once at every point of the input (all bearings, then the check points);
+  // a group's own entry takes its keys and its rotors' bearings plus the check points.
+  const several = groups.length >= 2;
+  const perGroup = groups.map((g) => (g.length >= 2 || several ? sameSpeedCombination(g, allPoints, solver, modesHz, allKeys) : []));
+  const bearingStart = new Map<RotorModel, number>();
+  let at = 0;
+  for (const r of model.rotors) {
+    bearingStart.set(r, at);
+    at += r.input.bearings.length;
+  }
+  const checkIdx = allPoints.map((_, i) => i).slice(at);
+  groups.forEach((g, gi) => {
+    if (g.length < 2) return;
     const first = g[0] as RotorModel;
+    const idx = [...g.flatMap((r) => Array.from({ length: r.input.bearings.length }, (_, j) => (bearingStart.get(r) as number) + j)), ...checkIdx];
+    const own = combinedCaseKeys(g);
+    const cases = (perGroup[gi] as CombinedCaseResult[])
+      .filter((c) => own.some((k) => k.case === c.case && k.unbalanceMode === c.unbalanceMode))
+      .map((c) => ({ ...c, points: idx.map((i) => c.points[i] as CombinedPointResult) }));
     out.push({
       id: `rpm-${first.speedRpm}-${first.rangeRpm[0]}-${first.rangeRpm[1]}`,
       group: groupName(g),
@@ -242,25 +260,17 @@ export function combinedResults(model: Model, solver: HarmonicSolver, modesHz: n
       speedRangeRpm: first.rangeRpm,
       rule: "same-speed",
       ruleText: SAME_SPEED_RULE_TEXT,
-      cases: sameSpeedCombination(g, combinedPoints(model, g), solver, modesHz),
+      cases,
     });
-  }
-  if (groups.length >= 2) {
-    const points = combinedPoints(model, model.rotors);
-    const keys = combinedCaseKeys(model.rotors);
+  });
+  if (several) {
     out.push({
       id: "all-speeds",
       group: groupName(model.rotors),
       rotors: rotorIds(model.rotors),
-      speedRpm: null,
-      speedRangeRpm: null,
       rule: "different-speeds-sum",
       ruleText: DIFFERENT_SPEEDS_RULE_TEXT,
-      cases: sumOfGroups(
-        keys,
-        points,
-        groups.map((g) => sameSpeedCombination(g, points, solver, modesHz, keys)),
-      ),
+      cases: sumOfGroups(allKeys, allPoints, perGroup),
     });
   }
   return out;

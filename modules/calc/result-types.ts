@@ -119,9 +119,9 @@ export interface CombinedResult {
   /** "<machine> <rotor>" of every rotor combined. */
   group: string[];
   rotors: { machine: string; rotor: string }[];
-  /** The group's speed; null for the combination of different speeds. */
-  speedRpm: number | null;
-  speedRangeRpm: [number, number] | null;
+  /** The group's speed and range; absent for the combination of different speeds (a result holds no nulls). */
+  speedRpm?: number;
+  speedRangeRpm?: [number, number];
   rule: "same-speed" | "different-speeds-sum";
   ruleText: string;
   cases: CombinedCaseResult[];

@@ -133,7 +133,8 @@ describe("different speeds", () => {
     expect(result.combined).toHaveLength(1);
     const all = result.combined![0]!;
     expect(all.id).toBe("all-speeds");
-    expect(all.speedRpm).toBeNull();
+    expect(all.speedRpm).toBeUndefined();
+    expect(JSON.stringify(result)).not.toContain("null");
     expect(all.rule).toBe("different-speeds-sum");
     expect(all.ruleText).toMatch(/absolute sum/);
     for (const key of ["vertical", "horizontal", "rotating"]) {
