@@ -49,14 +49,15 @@ export function soilCaseText(c: Pick<CheckResult, "soilCase" | "soilFactor">, us
  * `<id>@soil-<bound>/<rest of the nominal key>`.
  */
 export function boundChecks(criteria: Criteria, bound: SoilBoundName, sc: SoilCase, bandSource: string, userSprings: boolean): CheckResult[] {
+  const tagged = { soilCase: bound, soilFactor: sc.factor } as const;
+  const prefix = `At the ${soilCaseText(tagged, userSprings)}: `;
   return soilDependentChecks(criteria, sc.modes, sc.rotors, sc.combined).map((c) => {
     const id = bandCheckId(c.id as BandCheckedId, bound);
-    const tagged = { soilCase: bound, soilFactor: sc.factor } as const;
     return {
       ...c,
       id,
       key: `${id}${(c.key ?? "").slice(c.id.length)}`,
-      label: `At the ${soilCaseText(tagged, userSprings)}: ${c.label}`,
+      label: prefix + c.label,
       source: `${c.source}; soil band: ${bandSource}`,
       ...tagged,
     };

@@ -59,55 +59,63 @@ export function loadIndexFor(rotor: RotorModel, key: CaseKey): number {
   throw new Error("internal error: a rotor without a rotating load case");
 }
 
-/** Complex displacement (re x, im x, re y, im y, re z, im z) of a point p (relative to O) of response l, scaled. */
-function pointPhasor(u: ResponseSet, l: number, p: Vec3, scale: number, out: Float64Array): void {
-  const o = 6 * l;
-  const r = u.re;
-  const m = u.im;
-  const [px, py, pz] = p;
-  const at = (a: Float64Array, j: number) => a[o + j] as number;
-  // u_p = U_t + Theta x p
-  out[0] = (at(r, 0) + at(r, 4) * pz - at(r, 5) * py) * scale;
-  out[1] = (at(m, 0) + at(m, 4) * pz - at(m, 5) * py) * scale;
-  out[2] = (at(r, 1) + at(r, 5) * px - at(r, 3) * pz) * scale;
-  out[3] = (at(m, 1) + at(m, 5) * px - at(m, 3) * pz) * scale;
-  out[4] = (at(r, 2) + at(r, 3) * py - at(r, 4) * px) * scale;
-  out[5] = (at(m, 2) + at(m, 3) * py - at(m, 4) * px) * scale;
-}
-
 /** Per case key and point: worst-phase and in-phase displacement per axis at one speed. */
 interface SpeedSnapshot {
   worst: Float64Array; // [key][point][axis]
   inPhase: Float64Array;
 }
 
-function snapshot(rotors: RotorModel[], keys: CaseKey[], points: ResponsePoint[], solver: HarmonicSolver, omega: number, sets: ResponseSet[]): SpeedSnapshot {
+/**
+ * Worst-phase (sum of moduli) and in-phase (modulus of the sum) amplitudes per key, point and
+ * axis at one speed. `loadIdx[k][r]` is rotor r's load in key k; `coords` the points relative to O.
+ */
+function snapshot(rotors: RotorModel[], loadIdx: number[][], coords: Float64Array, solver: HarmonicSolver, omega: number, sets: ResponseSet[], out: SpeedSnapshot): void {
   solver.setFrequency(omega);
   rotors.forEach((r, i) => solver.solveAll(r.loads, sets[i] as ResponseSet));
-  const np = points.length;
-  const worst = new Float64Array(keys.length * np * 3);
-  const inPhase = new Float64Array(keys.length * np * 3);
-  const ph = new Float64Array(6);
-  const sum = new Float64Array(6);
-  keys.forEach((key, k) => {
-    const loadIdx = rotors.map((r) => loadIndexFor(r, key));
-    points.forEach((p, i) => {
-      sum.fill(0);
+  const np = coords.length / 3;
+  const { worst, inPhase } = out;
+  worst.fill(0);
+  const scales = rotors.map((r) => forceAt(r.forceAtRated, r.omegaRated, omega));
+  for (let k = 0; k < loadIdx.length; k++) {
+    const li = loadIdx[k] as number[];
+    for (let i = 0; i < np; i++) {
+      const px = coords[3 * i] as number;
+      const py = coords[3 * i + 1] as number;
+      const pz = coords[3 * i + 2] as number;
       const at = 3 * (k * np + i);
-      rotors.forEach((r, ri) => {
-        pointPhasor(sets[ri] as ResponseSet, loadIdx[ri] as number, p.local, forceAt(r.forceAtRated, r.omegaRated, omega), ph);
-        for (let a = 0; a < 3; a++) {
-          const re = ph[2 * a] as number;
-          const im = ph[2 * a + 1] as number;
-          worst[at + a] = (worst[at + a] as number) + Math.hypot(re, im);
-          sum[2 * a] = (sum[2 * a] as number) + re;
-          sum[2 * a + 1] = (sum[2 * a + 1] as number) + im;
-        }
-      });
-      for (let a = 0; a < 3; a++) inPhase[at + a] = Math.hypot(sum[2 * a] as number, sum[2 * a + 1] as number);
-    });
-  });
-  return { worst, inPhase };
+      let sxr = 0, sxi = 0, syr = 0, syi = 0, szr = 0, szi = 0;
+      let wx = 0, wy = 0, wz = 0;
+      for (let ri = 0; ri < rotors.length; ri++) {
+        const u = sets[ri] as ResponseSet;
+        const o = 6 * (li[ri] as number);
+        const f = scales[ri] as number;
+        const r = u.re;
+        const m = u.im;
+        // u_p = U_t + Theta x p, scaled by the rotor's force amplitude at this speed
+        const xr = ((r[o] as number) + (r[o + 4] as number) * pz - (r[o + 5] as number) * py) * f;
+        const xi = ((m[o] as number) + (m[o + 4] as number) * pz - (m[o + 5] as number) * py) * f;
+        const yr = ((r[o + 1] as number) + (r[o + 5] as number) * px - (r[o + 3] as number) * pz) * f;
+        const yi = ((m[o + 1] as number) + (m[o + 5] as number) * px - (m[o + 3] as number) * pz) * f;
+        const zr = ((r[o + 2] as number) + (r[o + 3] as number) * py - (r[o + 4] as number) * px) * f;
+        const zi = ((m[o + 2] as number) + (m[o + 3] as number) * py - (m[o + 4] as number) * px) * f;
+        wx += Math.sqrt(xr * xr + xi * xi);
+        wy += Math.sqrt(yr * yr + yi * yi);
+        wz += Math.sqrt(zr * zr + zi * zi);
+        sxr += xr;
+        sxi += xi;
+        syr += yr;
+        syi += yi;
+        szr += zr;
+        szi += zi;
+      }
+      worst[at] = wx;
+      worst[at + 1] = wy;
+      worst[at + 2] = wz;
+      inPhase[at] = Math.sqrt(sxr * sxr + sxi * sxi);
+      inPhase[at + 1] = Math.sqrt(syr * syr + syi * syi);
+      inPhase[at + 2] = Math.sqrt(szr * szr + szi * szi);
+    }
+  }
 }
 
 const vec = (a: Float64Array, at: number, s = 1): Vec3 => [(a[at] as number) * s, (a[at + 1] as number) * s, (a[at + 2] as number) * s];
@@ -132,12 +140,17 @@ export function sameSpeedCombination(
   if (!first) return [];
   const sets = rotors.map((r) => responseSet(r.loads.length));
   const omega = first.omegaRated;
-  const rated = snapshot(rotors, keys, points, solver, omega, sets);
   const np = points.length;
+  const loadIdx = keys.map((key) => rotors.map((r) => loadIndexFor(r, key)));
+  const coords = Float64Array.from(points.flatMap((p) => p.local));
+  const fresh = (): SpeedSnapshot => ({ worst: new Float64Array(keys.length * np * 3), inPhase: new Float64Array(keys.length * np * 3) });
+  const rated = fresh();
+  snapshot(rotors, loadIdx, coords, solver, omega, sets, rated);
+  const s = fresh();
   const env = { dW: new Float64Array(keys.length * np), vW: new Float64Array(keys.length * np), dP: new Float64Array(keys.length * np), vP: new Float64Array(keys.length * np) };
   for (const rpm of speedGridRpm(first.rangeRpm, first.speedRpm, modesHz)) {
     const w = rpmToRadPerSec(rpm);
-    const s = snapshot(rotors, keys, points, solver, w, sets);
+    snapshot(rotors, loadIdx, coords, solver, w, sets, s);
     for (let j = 0; j < keys.length * np; j++) {
       const dw = maxOf(s.worst, 3 * j);
       const dp = maxOf(s.inPhase, 3 * j);
