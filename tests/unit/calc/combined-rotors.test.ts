@@ -127,6 +127,26 @@ describe("same-speed combination", () => {
   });
 });
 
+describe("rotors with different shaft axes at one speed", () => {
+  it("a vertical shaft with a horizontal one: every case of either, a missing case taken from the rotor's rotating case", () => {
+    const vertical: RotorDoc = { name: "vpump", mass: 400, speedRpm: 1480, speedRangeRpm: [1400, 1480], balanceGrade: 6.3, axis: "z", bearings: [[1.5, -1, 1.8], [1.5, -1, 2.6]] };
+    const result = run(withRotors([motor, vertical]));
+    const combo = result.combined![0]!;
+    expect(combo.cases.map((c) => c.case)).toEqual(["vertical", "horizontal", "horizontal-x", "horizontal-y", "rotating"]);
+    const at = (rotor: number, name: string) => result.rotors[rotor]!.cases.find((c) => c.case === name)!.points.find((p) => p.name === "corner")!;
+    const pairs: [string, string, string][] = [
+      ["vertical", "vertical", "rotating"],
+      ["horizontal", "horizontal", "rotating"],
+      ["horizontal-x", "rotating", "horizontal-x"],
+      ["rotating", "rotating", "rotating"],
+    ];
+    for (const [key, m, v] of pairs) {
+      const p = caseOf(combo, key).points.find((x) => x.name === "corner")!;
+      for (let a = 0; a < 3; a++) expect(p.displacementPeak[a]).toBeCloseTo(at(0, m).displacementPeak[a]! + at(1, v).displacementPeak[a]!, 15);
+    }
+  });
+});
+
 describe("different speeds", () => {
   it("the all-speeds combination is the absolute sum of the speed groups' peaks, per point and axis and over the ranges", () => {
     const result = run(withRotors([motor, fan]));
