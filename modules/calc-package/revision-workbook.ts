@@ -429,7 +429,7 @@ function response(w: SheetWriter, d: RevisionPackageData): void {
   const r = d.result;
   const L: PackageKind = "length";
   w.title("Response at rated speed: harmonic steady state of the six-degree-of-freedom block");
-  w.note("Peak amplitudes per axis; velocity = w x amplitude. Each rotor is analysed on its own (different rotors run at unrelated phases).");
+  w.note("Peak amplitudes per axis; velocity = w x amplitude. Each rotor is analysed on its own first; rotors responding together follow at the end of this sheet.");
   w.blank();
   w.table(
     "Rotors",
@@ -503,6 +503,45 @@ function response(w: SheetWriter, d: RevisionPackageData): void {
         p.overSpeedRange?.displacementPeak ?? null,
         p.overSpeedRange?.velocityPeak ?? null,
       ]),
+    ),
+  );
+  const combined = r.combined ?? [];
+  if (!combined.length) return;
+  w.note("Rotors responding together. Same speed: the responses superposed per point and axis at the worst relative unbalance phase (the sum of the amplitudes) and, beside it, all forces in phase. Different speeds: the absolute sum of the speed groups' peaks (upper bound, common practice). Largest component per point.");
+  w.table(
+    "Combinations",
+    [{ header: "Combination" }, { header: "Rotors" }, { header: "Speed", kind: "speed" }, { header: "Rule" }],
+    combined.map((g) => [g.id, g.group.join(" + "), g.speedRpm ?? null, g.ruleText]),
+  );
+  w.table(
+    "Combined response: largest component at each point",
+    [
+      { header: "Combination" },
+      { header: "Case" },
+      { header: "Unbalance" },
+      { header: "Point" },
+      { header: "Displacement at rated speed", kind: "displacement" },
+      { header: "Velocity at rated speed", kind: "velocity" },
+      { header: "Displacement over speed range", kind: "displacement" },
+      { header: "Velocity over speed range", kind: "velocity" },
+      { header: "In phase: displacement over speed range", kind: "displacement" },
+      { header: "In phase: velocity over speed range", kind: "velocity" },
+    ],
+    combined.flatMap((g) =>
+      g.cases.flatMap((c) =>
+        c.points.map((p) => [
+          g.id,
+          c.case,
+          c.unbalanceMode,
+          p.name,
+          Math.max(...p.displacementPeak),
+          Math.max(...p.velocityPeak),
+          p.overSpeedRange.displacementPeak,
+          p.overSpeedRange.velocityPeak,
+          p.inPhase.overSpeedRange.displacementPeak,
+          p.inPhase.overSpeedRange.velocityPeak,
+        ]),
+      ),
     ),
   );
 }
@@ -605,6 +644,28 @@ export function checkKind(c: CheckResult): PackageKind {
   return "ratio";
 }
 
+/** A check of rotors responding together (`displacement-combined`, `velocity-combined`, at nominal or a bound). */
+export function isCombinedCheck(c: CheckResult): boolean {
+  return c.combination !== undefined;
+}
+
+/**
+ * The combined checks the package lists: per combination, soil case and quantity the largest
+ * value, then every failing one not already listed (the page budget of the package would not
+ * hold every point of every combination at three soil cases).
+ */
+export function packageCombinedChecks(checks: CheckResult[]): CheckResult[] {
+  const largest = new Map<string, CheckResult>();
+  for (const c of checks) {
+    if (!isCombinedCheck(c)) continue;
+    const k = `${c.id}|${c.combination}`;
+    const have = largest.get(k);
+    if (!have || c.value > have.value) largest.set(k, c);
+  }
+  const listed = new Set(largest.values());
+  return [...listed, ...checks.filter((c) => isCombinedCheck(c) && !c.pass && !listed.has(c))];
+}
+
 function checks(w: SheetWriter, d: RevisionPackageData): void {
   const all = d.result.checks;
   const gov = governingCheck(d.result);
@@ -623,7 +684,7 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
   ];
   const keys = sourceKeys(all);
   for (const g of groups) {
-    const mine = all.filter((c) => checkKind(c) === g.kind);
+    const mine = all.filter((c) => checkKind(c) === g.kind && !isCombinedCheck(c));
     if (!mine.length) continue;
     w.table(
       g.title,
@@ -646,6 +707,45 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
       ],
       checkRows(mine, keys),
     );
+  }
+  const combined = packageCombinedChecks(all);
+  if (combined.length) {
+    w.note(
+      `Rotors responding together: of the ${all.filter(isCombinedCheck).length} combined displacement and velocity checks (every point and load case of each combination, at nominal soil and both bounds; all kept in the stored result) the two tables below list, for each combination, soil case and quantity, the largest, and every failing one.`,
+    );
+    for (const kind of ["displacement", "velocity"] as const) {
+      const mine = combined.filter((c) => checkKind(c) === kind);
+      if (!mine.length) continue;
+      w.table(
+        `Combined ${kind} of rotors responding together (enveloped over the speed range)`,
+        [
+          { header: "Soil" },
+          { header: "Combination" },
+          { header: "Case" },
+          { header: "Unbalance" },
+          { header: "Point" },
+          { header: "Value", kind },
+          { header: "Limit", kind },
+          { header: "Use of limit", kind: "ratio" },
+          { header: "Verdict" },
+          { header: "Justification" },
+          { header: "Source" },
+        ],
+        mine.map((c) => [
+          packageSoilText(c),
+          c.combination ?? null,
+          c.case ?? null,
+          c.unbalanceMode ?? null,
+          c.point ?? null,
+          c.value,
+          c.limit,
+          checkUtilisation(c),
+          packageVerdict(c),
+          c.acceptance?.justification ?? null,
+          keys.get(c.source) ?? c.source,
+        ]),
+      );
+    }
   }
   w.table(
     "Sources of the limits",

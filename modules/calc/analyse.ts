@@ -15,7 +15,7 @@ import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
-export const ENGINE_VERSION = "1.1.0";
+export const ENGINE_VERSION = "1.2.0";
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
@@ -37,7 +37,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
   const accepted = applyAcceptances(
     [
-      ...buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure),
+      ...buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined),
       ...(band ? [...boundChecks(criteria, "lower", band.cases.lower, band.source, userSprings), ...boundChecks(criteria, "upper", band.cases.upper, band.source, userSprings)] : []),
     ],
     input.acceptances,
@@ -66,6 +66,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     crossCheck,
     criteria,
     ...(transient ? { transient } : {}),
+    ...(nominal.combined.length ? { combined: nominal.combined } : {}),
   };
   // the sweep's series are checked in the sweep loop itself
   assertFinite(result, new Set<object>([sweep.series, sweep.transmissibility ?? []]));

@@ -3,7 +3,7 @@
 // desk's verdict table, the project table's governing check, the revision comparison and the
 // calculation package: each reads `soilCase`, `acceptance` and `checkVerdict` from here.
 //
-// Frequency separation, displacement and velocity depend on the soil stiffness; they are
+// Frequency separation, displacement and velocity (single rotors and combined) depend on the soil stiffness; they are
 // repeated at the lower and the upper bound with the nominal case's measures and criteria
 // (checks.ts `soilDependentChecks`). Mass ratio, eccentricity and bearing pressure do not
 // depend on it and are not repeated.
@@ -15,7 +15,7 @@ import type { SoilCase } from "./soil-case";
 export type SoilBoundName = "lower" | "upper";
 
 /** The checks that are repeated at the band's bounds (their nominal ids). */
-export const BAND_CHECKED_IDS = ["frequency-separation", "displacement", "velocity"] as const;
+export const BAND_CHECKED_IDS = ["frequency-separation", "displacement", "velocity", "displacement-combined", "velocity-combined"] as const;
 export type BandCheckedId = (typeof BAND_CHECKED_IDS)[number];
 
 /** Id of a check at a soil bound, e.g. `frequency-separation@soil-upper`. The nominal ids are unchanged. */
@@ -24,7 +24,7 @@ export function bandCheckId(nominalId: BandCheckedId, bound: SoilBoundName): str
 }
 
 /** A check key that names a band check (the only kind a designer may accept with a justification). */
-export const BAND_CHECK_KEY_PATTERN = /^(frequency-separation|displacement|velocity)@soil-(lower|upper)\/.+/;
+export const BAND_CHECK_KEY_PATTERN = /^(frequency-separation|displacement|velocity|displacement-combined|velocity-combined)@soil-(lower|upper)\/.+/;
 
 /** The check's nominal id (`frequency-separation` for `frequency-separation@soil-upper`). */
 export function nominalCheckId(c: Pick<CheckResult, "id">): string {
@@ -49,14 +49,15 @@ export function soilCaseText(c: Pick<CheckResult, "soilCase" | "soilFactor">, us
  * `<id>@soil-<bound>/<rest of the nominal key>`.
  */
 export function boundChecks(criteria: Criteria, bound: SoilBoundName, sc: SoilCase, bandSource: string, userSprings: boolean): CheckResult[] {
-  return soilDependentChecks(criteria, sc.modes, sc.rotors).map((c) => {
+  const tagged = { soilCase: bound, soilFactor: sc.factor } as const;
+  const prefix = `At the ${soilCaseText(tagged, userSprings)}: `;
+  return soilDependentChecks(criteria, sc.modes, sc.rotors, sc.combined).map((c) => {
     const id = bandCheckId(c.id as BandCheckedId, bound);
-    const tagged = { soilCase: bound, soilFactor: sc.factor } as const;
     return {
       ...c,
       id,
       key: `${id}${(c.key ?? "").slice(c.id.length)}`,
-      label: `At the ${soilCaseText(tagged, userSprings)}: ${c.label}`,
+      label: prefix + c.label,
       source: `${c.source}; soil band: ${bandSource}`,
       ...tagged,
     };

@@ -4,7 +4,7 @@
 import { CRITERIA_DEFAULTS, USER_CRITERION_SOURCE, type CriterionKey } from "./criteria-defaults";
 import type { Mode } from "./eigen";
 import type { AnalysisInput } from "./schema";
-import type { CheckResult, MassPropertiesResult, ResolvedCriterion, RotorResult } from "./result-types";
+import type { CheckResult, CombinedResult, MassPropertiesResult, ResolvedCriterion, RotorResult } from "./result-types";
 
 export type Criteria = Record<CriterionKey, ResolvedCriterion>;
 
@@ -40,7 +40,7 @@ function check(
  * one soil case's modes and rotor responses: at nominal here, at the band's bounds in
  * band-checks.ts, with the same measures and criteria.
  */
-export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: RotorResult[]): CheckResult[] {
+export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: RotorResult[], combined: CombinedResult[] = []): CheckResult[] {
   const checks: CheckResult[] = [];
   for (const r of rotors) {
     const range = r.speedRangeRpm ?? [r.speedRpm, r.speedRpm];
@@ -95,6 +95,51 @@ export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: R
       }
     }
   }
+  checks.push(...combinedChecks(criteria, combined));
+  return checks;
+}
+
+/**
+ * `displacement-combined` and `velocity-combined`: every point of every combination (same-speed
+ * groups at their worst relative phase, then all speeds by the absolute sum), every combined case,
+ * the value enveloped over the speed range as for the single-rotor checks, against the same limits.
+ * The single-rotor checks above are unchanged.
+ */
+export function combinedChecks(criteria: Criteria, combined: CombinedResult[]): CheckResult[] {
+  const checks: CheckResult[] = [];
+  for (const g of combined) {
+    const what = g.speedRpm === undefined ? `${g.group.join(" + ")} at their different speeds (sum of peaks)` : `${g.group.join(" + ")} together at ${g.speedRpm} rpm (worst phase)`;
+    for (const c of g.cases) {
+      for (const p of c.points) {
+        const where = `${p.name}, ${what}, ${c.case} ${c.unbalanceMode} unbalance, over the speed range`;
+        const common = { combination: g.id, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name } as const;
+        checks.push(
+          check({
+            id: "displacement-combined",
+            key: `displacement-combined/${g.id}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            label: `Combined peak displacement at ${where}`,
+            value: p.overSpeedRange.displacementPeak,
+            limit: criteria.maxDisplacementPeak.value,
+            comparison: "max",
+            unit: "m",
+            source: criteria.maxDisplacementPeak.source,
+            ...common,
+          }),
+          check({
+            id: "velocity-combined",
+            key: `velocity-combined/${g.id}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            label: `Combined peak velocity at ${where}`,
+            value: p.overSpeedRange.velocityPeak,
+            limit: criteria.maxVelocityPeak.value,
+            comparison: "max",
+            unit: "m/s",
+            source: criteria.maxVelocityPeak.source,
+            ...common,
+          }),
+        );
+      }
+    }
+  }
   return checks;
 }
 
@@ -104,8 +149,9 @@ export function buildChecks(
   modes: Mode[],
   rotors: RotorResult[],
   allowableBearingPressure: number,
+  combined: CombinedResult[] = [],
 ): CheckResult[] {
-  const checks = soilDependentChecks(criteria, modes, rotors);
+  const checks = soilDependentChecks(criteria, modes, rotors, combined);
   checks.push(
     check({
       id: "mass-ratio",

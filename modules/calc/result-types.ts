@@ -90,6 +90,43 @@ export interface RotorResult {
   cases: CaseResult[];
 }
 
+/** A point of a combination of rotors (combination.ts). */
+export interface CombinedPointResult {
+  name: string;
+  position: Vec3;
+  /**
+   * Same speed: the worst relative unbalance phase per point and axis, sum_r |U_r| (m, m/s), at
+   * the rated speed. Different speeds: the absolute sum of the speed groups' values.
+   */
+  displacementPeak: Vec3;
+  velocityPeak: Vec3;
+  /** Largest component over the speed range (different speeds: sum of each group's over its own range). */
+  overSpeedRange: { displacementPeak: number; velocityPeak: number };
+  /** Every rotor's force phasor in phase: |sum_r U_r| (different speeds: the sum of the groups' in-phase values). */
+  inPhase: { displacementPeak: Vec3; velocityPeak: Vec3; overSpeedRange: { displacementPeak: number; velocityPeak: number } };
+}
+
+export interface CombinedCaseResult {
+  case: LoadCaseName;
+  unbalanceMode: UnbalanceModeName;
+  points: CombinedPointResult[];
+}
+
+/** Rotors responding together: a same-speed group, or all rotors at different speeds. */
+export interface CombinedResult {
+  /** `rpm-<speed>-<from>-<to>` for a same-speed group, `all-speeds` for all rotors. */
+  id: string;
+  /** "<machine> <rotor>" of every rotor combined. */
+  group: string[];
+  rotors: { machine: string; rotor: string }[];
+  /** The group's speed and range; absent for the combination of different speeds (a result holds no nulls). */
+  speedRpm?: number;
+  speedRangeRpm?: [number, number];
+  rule: "same-speed" | "different-speeds-sum";
+  ruleText: string;
+  cases: CombinedCaseResult[];
+}
+
 export interface CheckResult {
   id: string;
   label: string;
@@ -108,6 +145,8 @@ export interface CheckResult {
   unbalanceMode?: UnbalanceModeName;
   point?: string;
   mode?: number;
+  /** Combined checks (`displacement-combined`, `velocity-combined`): the `combined` entry's id. */
+  combination?: string;
   /**
    * Soil case of a check of the soil band (band-checks.ts): absent at nominal soil. Band checks
    * have their own ids (`frequency-separation@soil-upper` ...), so a nominal id keeps its meaning.
@@ -273,4 +312,6 @@ export interface AnalysisResult {
   criteria?: Record<string, ResolvedCriterion>;
   /** Start-up and coast-down runs, present only when the input asks for them (input.transient). */
   transient?: TransientResult[];
+  /** Rotors responding together (present when the input has two or more rotors). */
+  combined?: CombinedResult[];
 }

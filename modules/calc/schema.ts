@@ -165,7 +165,7 @@ const acceptanceSchema = z.strictObject({
   checkKey: z
     .string({ error: "must be a text" })
     .trim()
-    .regex(BAND_CHECK_KEY_PATTERN, { error: "must be the key of a soil-band check (frequency-separation, displacement or velocity @soil-lower or @soil-upper); only band checks can be accepted" }),
+    .regex(BAND_CHECK_KEY_PATTERN, { error: "must be the key of a soil-band check (frequency-separation, displacement, velocity, displacement-combined or velocity-combined @soil-lower or @soil-upper); only band checks can be accepted" }),
   justification: z
     .string({ error: "must be a text" })
     .trim()

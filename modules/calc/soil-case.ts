@@ -6,7 +6,8 @@ import { HarmonicSolver } from "./harmonic";
 import { buildImpedance } from "./impedance";
 import { ratioFromDashpot, type ImpedanceModel } from "./impedance-model";
 import type { Model } from "./model";
-import type { ImpedanceResult, RotorResult } from "./result-types";
+import { combinedResults } from "./combination";
+import type { CombinedResult, ImpedanceResult, RotorResult } from "./result-types";
 import { rotorResults } from "./rotor-response";
 import { soilProperties, type SoilProperties } from "./soil";
 
@@ -20,6 +21,8 @@ export interface SoilCase {
   dashpotUsed: Float64Array;
   modes: Mode[];
   rotors: RotorResult[];
+  /** Rotors responding together (combination.ts); empty with fewer than two rotors. */
+  combined: CombinedResult[];
   solver: HarmonicSolver;
 }
 
@@ -35,11 +38,9 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
   // Undamped modes with the real stiffness at the first rotor's rated speed.
   const modes = naturalModes(model.massMatrix, k);
   const solver = new HarmonicSolver(model.massMatrix, impedance, soil.materialDamping);
-  const rotors = rotorResults(
-    model,
-    solver,
-    modes.map((m) => m.frequencyHz),
-  );
+  const modesHz = modes.map((m) => m.frequencyHz);
+  const rotors = rotorResults(model, solver, modesHz);
+  const combined = combinedResults(model, solver, modesHz);
   const ratio = Array.from(k, (ki, i) => ratioFromDashpot(c[i] as number, ki, model.massDiagonal[i] as number));
   const impedanceResult: ImpedanceResult = {
     method: impedance.method,
@@ -52,5 +53,5 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
     ...(input.impedance.method === "user" ? {} : { shearModulus: soil.shearModulus, shearWaveVelocity: soil.shearWaveVelocity }),
     details: impedance.details,
   };
-  return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, modes, rotors, solver };
+  return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, modes, rotors, combined, solver };
 }

@@ -148,6 +148,15 @@ const CHECK_WORDS: Record<string, { name: string; hint: string }> = {
     name: "velocity",
     hint: "the response is too large: allow a heavier, larger block, and check the unbalance data and service factor",
   },
+  // rotors responding together (issue 18 item 7)
+  "displacement-combined": {
+    name: "combined displacement of rotors responding together",
+    hint: "the rotors together move the block too much: allow a heavier, larger block, and check the unbalance data and service factors",
+  },
+  "velocity-combined": {
+    name: "combined velocity of rotors responding together",
+    hint: "the rotors together move the block too much: allow a heavier, larger block, and check the unbalance data and service factors",
+  },
 };
 
 function words(id: string): { name: string; hint: string } {

@@ -16,7 +16,7 @@ import { MatSizingSection } from "./mat-sizing-section";
 import { MethodSection } from "./method-section";
 import { ResponsePlots } from "./response-plots";
 import { ResultsSummaryBar } from "./results-summary";
-import { ChecksTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
+import { ChecksTable, CombinedResponseTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
 import { useCalculation, type CalcIssue } from "./use-calculation";
@@ -260,6 +260,7 @@ function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: b
       </Panel>
       <Panel title="Amplitudes at rated speed" id="response">
         <ResponseTable result={result} />
+        <CombinedResponseTable result={result} />
       </Panel>
       <Panel title="Mass and block rules" id="mass">
         <MassTable result={result} />

@@ -345,6 +345,67 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
   );
 }
 
+/**
+ * Rotors responding together (result `combined`): same speed at the worst relative phase (sum of
+ * the amplitudes) beside the in-phase case; different speeds by the absolute sum of the peaks.
+ * Largest component per point; the single-rotor tables above are unchanged.
+ */
+export function CombinedResponseTable({ result }: { result: AnalysisResult }) {
+  const u = useUnits();
+  const combined = result.combined ?? [];
+  if (!combined.length) return null;
+  const d = (v: number) => u.toResultText("displacement", v);
+  const v = (x: number) => u.toResultText("velocity", x);
+  return (
+    <div className="mt-4 space-y-3" data-testid="combined-response">
+      <p className="text-xs font-semibold text-basalt-700">Rotors responding together</p>
+      {combined.map((g) => (
+        <div key={g.id} data-combination={g.id}>
+          <p className="text-xs text-basalt-700">
+            {g.group.join(" + ")} · {g.speedRpm === undefined ? "different speeds" : `${g.speedRpm} rpm`}
+          </p>
+          <p className="text-2xs text-basalt-500">{g.ruleText}</p>
+          <div className="overflow-x-auto">
+            <table>
+              <thead>
+                <tr>
+                  <th>Case</th>
+                  <th>Point</th>
+                  <th className="text-right">Displacement, rated ({u.unitLabel("displacement")})</th>
+                  <th className="text-right">Velocity, rated ({u.unitLabel("velocity")})</th>
+                  <th className="text-right">Displacement over range ({u.unitLabel("displacement")})</th>
+                  <th className="text-right">Velocity over range ({u.unitLabel("velocity")})</th>
+                  <th className="text-right">In phase: displacement over range ({u.unitLabel("displacement")})</th>
+                </tr>
+              </thead>
+              <tbody>
+                {g.cases.flatMap((c) =>
+                  c.points.map((p, pi) => (
+                    <tr key={`${c.case}-${c.unbalanceMode}-${pi}`}>
+                      <td className="text-xs">{pi === 0 ? `${c.case} (${c.unbalanceMode})` : ""}</td>
+                      <td className="text-xs">{p.name}</td>
+                      <td className="text-right font-mono text-xs">{d(Math.max(...p.displacementPeak))}</td>
+                      <td className="text-right font-mono text-xs">{v(Math.max(...p.velocityPeak))}</td>
+                      <td className="text-right font-mono text-xs">{d(p.overSpeedRange.displacementPeak)}</td>
+                      <td className="text-right font-mono text-xs">{v(p.overSpeedRange.velocityPeak)}</td>
+                      <td className="text-right font-mono text-xs">{d(p.inPhase.overSpeedRange.displacementPeak)}</td>
+                    </tr>
+                  )),
+                )}
+              </tbody>
+            </table>
+          </div>
+        </div>
+      ))}
+      <Explain
+        method="Same speed: the rotors' harmonic responses superposed per point and axis, each at its worst relative unbalance phase (the sum of the amplitudes), and with every force in phase. Different speeds: the absolute sum of the speed groups' peak amplitudes (upper bound)."
+        formula="same speed: max over phases |Σ e^{iφ_r} U_r| = Σ |U_r| per component; in phase |Σ U_r|; different speeds: Σ peaks"
+        source="Triangle inequality for the worst phase; sum of peaks for multi-frequency excitation is common practice"
+      />
+    </div>
+  );
+}
+
 export function CrossCheckTable({ result }: { result: AnalysisResult }) {
   const cc = result.crossCheck;
   if (!cc) return <p className="text-sm text-basalt-400">No cross-check for this input.</p>;

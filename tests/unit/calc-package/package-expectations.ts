@@ -5,7 +5,7 @@ import { expect } from "vitest";
 import { CRITERIA_DEFAULTS, DOF_KEYS, type AnalysisInput, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { CAUTIONS } from "@/modules/platform/cautions";
 import { deliverableSource } from "@/modules/calc-package/citations";
-import { packageCheckLabel } from "@/modules/calc-package/revision-workbook";
+import { isCombinedCheck, packageCheckLabel, packageCombinedChecks } from "@/modules/calc-package/revision-workbook";
 import { readTables, tableByTitle, toStored, unitIn, type ReadTable } from "./read-tables";
 
 const REL = 1e-9;
@@ -225,6 +225,23 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
     expectNumber(caseTable, i, "Largest displacement over speed range", c.maxOverSpeedRange.displacementPeak, what);
     expectNumber(caseTable, i, "Largest velocity over speed range", c.maxOverSpeedRange.velocityPeak, what);
   });
+  // rotors responding together (issue 18 item 7): every combination and point, largest component
+  const combos = result.combined ?? [];
+  if (combos.length) {
+    const ct = tableByTitle(resp, "Combined response");
+    const rows = combos.flatMap((g) => g.cases.flatMap((c) => c.points.map((p) => ({ g, c, p }))));
+    expect(ct.rows).toHaveLength(rows.length);
+    rows.forEach(({ g, c, p }, i) => {
+      const what = `${g.id} ${c.case} ${c.unbalanceMode} ${p.name}`;
+      expect([cellOf(ct, i, "Combination"), cellOf(ct, i, "Point")]).toEqual([g.id, p.name]);
+      expectNumber(ct, i, "Displacement at rated speed", Math.max(...p.displacementPeak), what);
+      expectNumber(ct, i, "Displacement over speed range", p.overSpeedRange.displacementPeak, what);
+      expectNumber(ct, i, "Velocity over speed range", p.overSpeedRange.velocityPeak, what);
+      expectNumber(ct, i, "In phase: displacement over speed range", p.inPhase.overSpeedRange.displacementPeak, what);
+    });
+  } else {
+    expect(resp.some((t) => t.title.startsWith("Combined response"))).toBe(false);
+  }
   const pointTable = tableByTitle(resp, "Points");
   const pts = cases.flatMap(({ r, c }) => c.points.map((p) => ({ r, c, p })));
   expect(pointTable.rows).toHaveLength(pts.length);
@@ -268,7 +285,7 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
   const sources = sheet("Checks").find((t) => t.headers[0] === "Key") as ReadTable;
   expect(sources.rows.length).toBe(new Set(result.checks.map((c) => c.source)).size);
   const kindOf = (c: CheckResult) => (c.unit === "m" ? 1 : c.unit === "m/s" ? 2 : 0);
-  const groups = [0, 1, 2].map((g) => result.checks.filter((c) => kindOf(c) === g)).filter((g) => g.length);
+  const groups = [0, 1, 2].map((g) => result.checks.filter((c) => kindOf(c) === g && !isCombinedCheck(c))).filter((g) => g.length);
   expect(checkTables).toHaveLength(groups.length);
   let seen = 0;
   groups.forEach((g, gi) => {
@@ -289,5 +306,22 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
       seen += 1;
     });
   });
-  expect(seen).toBe(result.checks.length);
+  // combined checks: per combination, soil case and quantity the largest, then every failing one
+  const listed = packageCombinedChecks(result.checks);
+  const combinedTables = sheet("Checks").filter((t) => t.headers[0] === "Soil" && t.headers.includes("Combination"));
+  [1, 2].forEach((kind) => {
+    const mine = listed.filter((c) => kindOf(c) === kind);
+    const t = combinedTables.find((x) => x.title.startsWith(kind === 1 ? "Combined displacement" : "Combined velocity"));
+    if (!mine.length) return expect(t).toBeUndefined();
+    expect(t!.rows).toHaveLength(mine.length);
+    mine.forEach((c, i) => {
+      expect([cellOf(t!, i, "Combination"), cellOf(t!, i, "Point")]).toEqual([c.combination, c.point]);
+      expectNumber(t!, i, "Value", c.value, c.key ?? c.label);
+      expect(cellOf(t!, i, "Verdict")).toBe(c.pass ? "pass" : c.acceptance ? "FAIL, accepted with justification" : "FAIL");
+      seen += 1;
+    });
+  });
+  expect(seen).toBe(result.checks.filter((c) => !isCombinedCheck(c)).length + listed.length);
+  // every failing combined check is listed
+  expect(result.checks.filter((c) => isCombinedCheck(c) && !c.pass).every((c) => listed.includes(c))).toBe(true);
 }

@@ -68,7 +68,10 @@ describe("sizing the failing demo pump train", () => {
     expect(sliced).toEqual(whole);
     // the other work (the timer) ran while the search was going on
     expect(ticks).toBeGreaterThan(0);
-  });
+    // two full searches with the band required; since issue 18 item 7 each analysis of the pump
+    // train also combines the motor and pump (and checks the combination at three soil cases),
+    // which took the test past vitest's 5 s default on this machine (about 3 s before)
+  }, 30_000);
 
   it("starts from a block that fails only the mass ratio", () => {
     expect(failing(analyseDoc(start))).toEqual(["mass-ratio"]);
