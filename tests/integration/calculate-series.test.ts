@@ -3,9 +3,9 @@
 import { readFileSync, readdirSync } from "node:fs";
 import { gzipSync } from "node:zlib";
 import { beforeAll, describe, expect, it } from "vitest";
-import { analyse, parseAnalysisInput, type AnalysisResult } from "@/modules/calc";
+import { ENGINE_VERSION, analyse, parseAnalysisInput, type AnalysisResult } from "@/modules/calc";
 import { POST } from "@/app/api/v1/calculate/route";
-import { getFixture, makeRequest, type Fixture } from "./support/fixture";
+import { callRoute, getFixture, makeRequest, type Fixture } from "./support/fixture";
 
 let fx: Fixture;
 beforeAll(async () => {
@@ -92,5 +92,12 @@ describe("POST /api/v1/calculate sweep series", () => {
     expect(res.status).toBe(400);
     const body = (await res.json()) as { error: { issues: { path: string }[] } };
     expect(body.error.issues.map((i) => i.path)).toEqual(["series"]);
+  });
+
+  it("GET /api/v1/engine names the server's engine, which the workspace compares with its own", async () => {
+    const res = await callRoute("v1/engine", "GET", {}, { cookie: fx.cookies.viewer });
+    expect(res.status).toBe(200);
+    expect(await res.json()).toEqual({ engineVersion: ENGINE_VERSION, schemaVersion: 1 });
+    expect((await callRoute("v1/engine", "GET", {}, { cookie: null })).status).toBe(401);
   });
 });
