@@ -22,6 +22,9 @@ const nextConfig = {
   // A second build folder lets a developer build while another server runs from .next.
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   poweredByHeader: false,
+  // next start gzips every answer the client accepts compressed, route handlers included
+  // (the calculate API's plot-sized answer is bounded compressed); said here so it stays on.
+  compress: true,
   // Packages with Node-only code stay external to the server bundle.
   serverExternalPackages: ["pg", "bcryptjs", "nodemailer", "exceljs", "smtp-server", "mailparser", "pdfjs-dist", "pdfkit", "@resvg/resvg-js"],
   async headers() {

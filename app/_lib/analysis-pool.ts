@@ -3,6 +3,7 @@ import { availableParallelism } from "node:os";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
+import type { SeriesMode } from "@/modules/calc/sweep-downsample";
 import type { GoverningSummary } from "@/modules/desk/foundation-summary";
 import type { SizingLimits, SizingOutcome } from "@/modules/sizing";
 import { AppError } from "@/modules/platform/errors";
@@ -186,9 +187,9 @@ function submit(job: AnalysisJob, timeoutMs?: number): Promise<string> {
   });
 }
 
-/** The analysis result of a valid input, as the JSON text of an AnalysisResult. */
-export function analyseToJson(input: AnalysisInput): Promise<string> {
-  return submit({ kind: "analyse", input });
+/** The analysis result of a valid input, as the JSON text of an AnalysisResult (sweep series as asked, full by default). */
+export function analyseToJson(input: AnalysisInput, series: SeriesMode = "full"): Promise<string> {
+  return submit({ kind: "analyse", input, series });
 }
 
 /** The analysis result of a valid input. */

@@ -3,6 +3,7 @@
 // large object graph on the request thread. Relative imports: Next bundles this file itself.
 import { parentPort } from "node:worker_threads";
 import { analyse } from "../../modules/calc/analyse";
+import { withSeries } from "../../modules/calc/sweep-downsample";
 import { governingCheck } from "../../modules/desk/foundation-summary";
 import { proposeBlockSizes } from "../../modules/sizing/search";
 import type { AnalysisJob } from "./analysis-jobs";
@@ -10,7 +11,8 @@ import type { AnalysisJob } from "./analysis-jobs";
 function run(job: AnalysisJob): string {
   switch (job.kind) {
     case "analyse":
-      return JSON.stringify(analyse(job.input));
+      // thinned here, so only the answer's own size crosses back to the request thread
+      return JSON.stringify(withSeries(analyse(job.input), job.series ?? "full"));
     case "governing":
       return JSON.stringify(governingCheck(analyse(job.input)));
     case "sizing":

@@ -25,6 +25,9 @@ export interface ProxyEnv {
  * chunks Next's runtime loads, so no host list or 'unsafe-inline' is needed. Styles keep
  * 'unsafe-inline': the charts and the resizable panes set style attributes, which a nonce
  * cannot cover (and a nonce in style-src would switch 'unsafe-inline' off).
+ * worker-src 'self': the workspace's engine runs in a Web Worker loaded from the app's own
+ * /_next/static chunks; without it the worker falls back to script-src, where 'strict-dynamic'
+ * ignores 'self' and the worker would be refused. No blob: (Turbopack starts workers from a URL).
  */
 export function contentSecurityPolicy(nonce: string, env: ProxyEnv, https: boolean): string {
   return [
@@ -34,6 +37,7 @@ export function contentSecurityPolicy(nonce: string, env: ProxyEnv, https: boole
     "img-src 'self' data: blob:",
     "font-src 'self'",
     "connect-src 'self'",
+    "worker-src 'self'",
     "object-src 'none'",
     "base-uri 'self'",
     "form-action 'self'",

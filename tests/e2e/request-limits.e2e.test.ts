@@ -19,7 +19,8 @@ beforeAll(async () => {
   expect(cookie).toContain("=");
 });
 
-const calculate = (body: unknown) => fetch(`${appUrl}/api/v1/calculate`, { method: "POST", headers: { cookie, "content-type": "application/json" }, body: JSON.stringify(body) });
+// ?series=full: the heaviest answer (the default is plot-sampled)
+const calculate = (body: unknown) => fetch(`${appUrl}/api/v1/calculate?series=full`, { method: "POST", headers: { cookie, "content-type": "application/json" }, body: JSON.stringify(body) });
 
 describe("no single request stops the server", () => {
   it("refuses the probe's input (2,000 check points, 10,000 sweep points) with 400 naming both fields", async () => {

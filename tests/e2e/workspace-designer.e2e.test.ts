@@ -58,10 +58,10 @@ describe("designer in the foundation workspace", () => {
       const mat = before.input!.block.solids[0]!;
       expect(mat.name).toBe("mat");
       const half = mat.x[1] === 4.4 && mat.x[0] === -4.4 ? 4.5 : 4.4;
+      // The engine runs in the browser within a frame of each change, so the badge may be back
+      // to "fresh" before it can be read; what it then shows must belong to the new inputs.
       await ws.setNumber(ws.box(1, "x", "from", "m"), String(-half));
-      expect(await ws.state()).toBe("stale");
       await ws.setNumber(ws.box(1, "x", "to", "m"), String(half));
-      expect(await ws.state()).toBe("stale");
       // Unsaved, or already saving itself when the machine is slow (autosave after a 2 s pause).
       expect(["unsaved", "saving", "saved"]).toContain(await ws.saveStatus());
       // The drawing follows the table at once: the plan's overall length is the new one.
@@ -181,7 +181,6 @@ describe("designer in the foundation workspace", () => {
       await ws.setNumber(ws.box(1, "x", "to", "m"), "2.5");
       await ws.setNumber(ws.box(1, "y", "from", "m"), "-1.8");
       await ws.setNumber(ws.box(1, "y", "to", "m"), "1.8");
-      expect(await ws.state()).toBe("stale");
       await ws.waitForState("fresh");
       expect(await textOf(ws.summary)).toBe(`all ${first.total} checks pass`);
       expect(await ws.checkRows("fail").count()).toBe(0);

@@ -156,6 +156,15 @@ describe("proxy.ts decisions", () => {
     expect(csp).toContain(`'nonce-${a.requestHeaders.get("x-nonce")}'`);
     expect(b.requestHeaders.get("x-nonce")).not.toBe(a.requestHeaders.get("x-nonce"));
     expect(csp).toContain("frame-ancestors 'none'");
+    // the workspace's engine worker: same-origin chunks only (under 'strict-dynamic' a worker
+    // would otherwise fall back to script-src, where 'self' no longer counts)
+    expect(csp.split("; ")).toContain("worker-src 'self'");
+  });
+
+  it("leaves response compression on (next start gzips route-handler answers, the lean calculate answer relies on it)", async () => {
+    // @ts-expect-error -- next.config.js is plain JavaScript without a declaration file
+    const config = (await import("../../next.config.js")).default as { compress?: boolean };
+    expect(config.compress).toBe(true);
   });
 
   it("sends HSTS only over https: an https APP_URL, or a trusted proxy's X-Forwarded-Proto", () => {

@@ -19,7 +19,7 @@ import { ResultsSummaryBar } from "./results-summary";
 import { ChecksTable, CombinedResponseTable, CrossCheckTable, ImpedanceTable, MassTable, ModesTable, ResponseTable } from "./results-tables";
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
-import { useCalculation, type CalcIssue } from "./use-calculation";
+import { useCalculation, useEngineStatus, type CalcIssue } from "./use-calculation";
 import { useDraftSave } from "./use-draft-save";
 import { useLeaveGuard } from "./use-leave-guard";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
@@ -211,6 +211,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
           <Cautions />
+          <EngineNotice />
           {error ? (
             <div className="slab border-brick-500 p-4 text-sm" role="status">
               <p className="font-semibold text-brick-700">
@@ -230,6 +231,16 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
       </div>
     </div>
   );
+}
+
+/** Shown only when the server's engine is not the one bundled with this page (its numbers are then the server's). */
+function EngineNotice() {
+  const { notice } = useEngineStatus();
+  return notice ? (
+    <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" role="status" data-testid="engine-notice">
+      {notice}
+    </p>
+  ) : null;
 }
 
 function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: boolean; readOnly: boolean }) {

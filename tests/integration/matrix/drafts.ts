@@ -51,4 +51,10 @@ export const routeCases: RouteCase[] = [
     allowed: signedIn,
     request: async () => ({ params: {}, body: sampleAnalysisInput() }),
   },
+  {
+    route: "v1/engine",
+    method: "GET",
+    allowed: signedIn,
+    request: async () => ({ params: {} }),
+  },
 ];
