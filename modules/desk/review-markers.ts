@@ -2,7 +2,8 @@
 // their revision path (`machines["Motor RWM-101"].rotors["rotor"].mass`); the form names the
 // same field by position (`machines[0].rotors[0].mass`). Items are matched by name in the
 // form as it stands, so a comment follows its machine when machines are reordered.
-import { parseFieldPath } from "@/modules/revisions";
+// Not the module index, which re-exports the input hash (node:crypto): this file runs in the browser.
+import { parseFieldPath } from "@/modules/revisions/field-labels";
 
 /** The form field name of a revision path, or null when the form has no such field (a result, a removed machine). */
 export function formFieldNameOf(path: string, form: unknown): string | null {

@@ -56,14 +56,14 @@ describe("review on the fields", () => {
     await asDemo(browser(), "checker", async ({ page }) => {
       const revisions = new RevisionPages(page);
       await revisions.open(made.projectId, made.foundationId, revisionId);
-      await page.getByRole("button", { name: "Comment on Soil · Poisson's ratio", exact: true }).click();
+      await page.getByTitle("Comment on Soil · Poisson's ratio", { exact: true }).click();
       expect(await textOf(page.getByTestId("field-comment-label"))).toBe("Soil · Poisson's ratio");
       await revisions.commentBox.getByLabel("Comment", { exact: true }).fill("Which borehole gives this Poisson's ratio?");
       await revisions.commentBox.getByRole("button", { name: "Post comment" }).click();
       await revisions.commentBox.getByText("Comment posted.").waitFor({ state: "visible", timeout: 20_000 });
       await screenshot(page, "review-checker-field-comment");
 
-      const checkButton = page.getByRole("button", { name: "Comment on Check · mass ratio", exact: true });
+      const checkButton = page.getByTitle("Comment on Check · mass ratio", { exact: true });
       await checkButton.focus();
       await page.keyboard.press("Enter");
       await page.getByTestId("field-comment-label").filter({ hasText: "Check · mass ratio" }).waitFor({ state: "visible" });

@@ -89,7 +89,7 @@ describe("viewer", () => {
       const input = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "aeration-blower.json"), "utf8")) as unknown;
       const saved = await request.put(`/api/v1/projects/${projectId}/foundations/${foundationId}/draft`, { data: { version: 0, input } });
       expect(saved.status()).toBe(200);
-      const a = await request.post(`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions`, { data: {} });
+      const a = await request.post(`/api/v1/projects/${projectId}/foundations/${foundationId}/revisions`, { data: { note: "Issued for the client journey." } });
       expect(a.status()).toBe(201);
       const revisionA = ((await a.json()) as { revision: { id: string } }).revision.id;
       return { projectId, foundationId, revisionA };
@@ -102,7 +102,7 @@ describe("viewer", () => {
     });
     const revisionB = await asDemo(browser(), "designer", async ({ context }) => {
       await changeDraft(context.request, ids.projectId, ids.foundationId, (input) => (input.soil.poissonRatio = 0.31));
-      const b = await context.request.post(`/api/v1/projects/${ids.projectId}/foundations/${ids.foundationId}/revisions`, { data: {} });
+      const b = await context.request.post(`/api/v1/projects/${ids.projectId}/foundations/${ids.foundationId}/revisions`, { data: { note: "Issued for the client journey." } });
       expect(b.status()).toBe(201);
       return ((await b.json()) as { revision: { id: string } }).revision.id;
     });

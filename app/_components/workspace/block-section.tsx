@@ -53,7 +53,7 @@ export function BlockSection({ readOnly }: { readOnly: boolean }) {
                     </td>
                     {readOnly ? null : (
                       <td className="whitespace-nowrap">
-                        <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" onClick={() => arr.insert(i + 1, { ...structuredClone(s), name: `${s.name} copy` })} aria-label={`Duplicate box ${i + 1}`}>
+                        <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" onClick={() => arr.insert(i + 1, { ...structuredClone(s), name: `${s.name} copy` })} aria-label={`Copy box ${i + 1}`}>
                           Copy
                         </button>{" "}
                         <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" disabled={i === 0} onClick={() => arr.swap(i, i - 1)} aria-label={`Move box ${i + 1} up`}>

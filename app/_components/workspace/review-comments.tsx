@@ -2,7 +2,7 @@
 
 import { useFormikContext } from "formik";
 import { createContext, useContext, useMemo, type ReactNode } from "react";
-import { fieldLabel } from "@/modules/revisions";
+import { fieldLabel } from "@/modules/revisions/field-labels";
 import { placeComments } from "@/modules/desk/review-markers";
 
 /** An open review comment as the workspace receives it from the page. */

@@ -82,7 +82,7 @@ export class RevisionPages {
 
   /** On a revision page: chooses the value labelled `fieldLabel` (e.g. "Soil · Poisson's ratio") and comments on it. */
   async comment(fieldLabel: string, body: string): Promise<void> {
-    await this.page.getByRole("button", { name: `Comment on ${fieldLabel}`, exact: true }).click();
+    await this.page.getByTitle(`Comment on ${fieldLabel}`, { exact: true }).click();
     const box = this.commentBox;
     await box.waitFor({ state: "visible" });
     await box.getByLabel("Comment", { exact: true }).fill(body);

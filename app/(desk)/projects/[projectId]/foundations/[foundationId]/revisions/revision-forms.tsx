@@ -3,7 +3,8 @@
 import { useActionState, useRef } from "react";
 import { useFormStatus } from "react-dom";
 import { FormMessage, SubmitButton, fieldErrorsOf, type FormState } from "@/app/_components/form-kit";
-import { REVISION_PURPOSES, revisionPurposeLabels } from "@/modules/revisions";
+// Not the module index: it re-exports the input hash (node:crypto), which would pull Node polyfills that eval into the browser bundle.
+import { REVISION_PURPOSES, revisionPurposeLabels } from "@/modules/revisions/status";
 import { commentOnRevisionAction, decideRevisionAction, issueRevisionAction, resolveRevisionCommentAction, shareRevisionAction } from "./actions";
 
 type Act = (s: FormState, f: FormData) => Promise<FormState>;

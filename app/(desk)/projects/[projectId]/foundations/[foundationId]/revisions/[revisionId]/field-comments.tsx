@@ -1,7 +1,8 @@
 "use client";
 
 import { useCallback, useRef, useState, type ReactNode } from "react";
-import { fieldLabel, type LeafValue } from "@/modules/revisions";
+import { fieldLabel } from "@/modules/revisions/field-labels";
+import type { LeafValue } from "@/modules/revisions/diff";
 import { FieldPick, FieldPickProvider } from "@/app/_components/workspace/field-pick";
 import { CommentForm } from "../revision-forms";
 
@@ -55,7 +56,7 @@ function shown(v: LeafValue): string {
 /** The input as issued, one row a field, each value choosable for a comment. */
 export function InputValues({ rows }: { rows: { path: string; value: LeafValue }[] }) {
   return (
-    <div className="max-h-[480px] overflow-auto rounded-plinth border border-grout-200">
+    <div className="max-h-[480px] overflow-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Input as issued, scrollable">
       <table data-testid="revision-input-values">
         <thead className="sticky top-0">
           <tr>
