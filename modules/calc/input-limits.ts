@@ -38,6 +38,8 @@ export const INPUT_LIMITS = {
   maxTransientTotalSteps: TRANSIENT_LIMITS.maxTotalSteps,
   /** Characters of any text (names, references to names). */
   maxTextLength: 100,
+  /** Characters of a band-check acceptance's written justification (a paragraph, with its references). */
+  maxJustificationLength: 2000,
   /**
    * Largest magnitude of any number, in SI units. Far above every real quantity of the contract
    * (a rocking stiffness of a 30 m mat on hard rock is about 1e15 N m/rad) and far below the
@@ -94,7 +96,8 @@ export function checkInputBounds(raw: unknown): BoundIssue[] {
       if (!Number.isFinite(value)) add(pathOf(node), "must be a finite number");
       else if (Math.abs(value) > L.maxAbsNumber) add(pathOf(node), `must lie within ±${L.maxAbsNumber.toExponential().replace("+", "")} (SI units)`);
     } else if (typeof value === "string") {
-      if (value.length > L.maxTextLength) add(pathOf(node), `must be at most ${L.maxTextLength} characters`);
+      const max = node.key === "justification" ? L.maxJustificationLength : L.maxTextLength;
+      if (value.length > max) add(pathOf(node), `must be at most ${max} characters`);
     } else if (Array.isArray(value)) {
       for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], key: i, parent: node });
     } else if (isObject(value)) {

@@ -158,7 +158,7 @@ const soilBandSchema = z.strictObject({
 
 /** Shortest written justification of an acceptance (software rule: a word or two is no justification). */
 export const ACCEPTANCE_JUSTIFICATION_MIN = 20;
-export const ACCEPTANCE_JUSTIFICATION_MAX = 2000;
+export const ACCEPTANCE_JUSTIFICATION_MAX = L.maxJustificationLength;
 
 /** The designer's acceptance of one failing soil-band check, with the written justification. */
 const acceptanceSchema = z.strictObject({

@@ -12,8 +12,7 @@ const browser = sharedBrowser();
 const P101 = DEMO_FOUNDATION_TAGS[0];
 
 describe("designer in the foundation workspace", () => {
-  // Skipped at the last merge: after the second wave the save line never reached "saved" in this journey (see the closing note); to be fixed next, not dropped.
-  it.skip("enlarges the mat of PH1-P101 until every nominal check passes, accepts the upper-bound separation with a written justification, saves, and the reload keeps it", async () => {
+  it("enlarges the mat of PH1-P101 until every nominal check passes, accepts the upper-bound separation with a written justification, saves, and the reload keeps it", async () => {
     await asDemo(browser(), "designer", async ({ context, page }) => {
       const projectId = projectIdOf(page.url());
       const ws = new WorkspacePage(page);

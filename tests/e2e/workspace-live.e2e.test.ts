@@ -15,8 +15,7 @@ const browser = sharedBrowser();
 const B201 = DEMO_FOUNDATION_TAGS[1];
 
 describe("live results in the browser", () => {
-  // Skipped at the last merge: the save after typing never reached "saved" (see the closing note); to be fixed next, not dropped.
-  it.skip("typing the mat's height updates the modes and checks with no calculate request, and the numbers are the engine's", async () => {
+  it("typing the mat's height updates the modes and checks with no calculate request, and the numbers are the engine's", async () => {
     await asDemo(browser(), "designer", async ({ context, page }) => {
       const projectId = projectIdOf(page.url());
       const calculatePosts: string[] = [];

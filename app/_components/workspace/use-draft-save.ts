@@ -3,6 +3,7 @@
 import { useCallback, useEffect, useLayoutEffect, useRef, useState } from "react";
 import type { AnalysisInputDocument } from "@/modules/calc";
 import { AUTOSAVE_PAUSE_MS, draftSaveStatus, KEEPALIVE_BODY_LIMIT, mayAutosave, type DraftSaveStatus } from "@/modules/desk/draft-autosave";
+import { fieldLabel } from "@/modules/revisions/field-labels";
 import type { CalcIssue } from "./use-calculation";
 
 export interface DraftConflict {
@@ -25,6 +26,14 @@ interface SaveAnswer {
  * autosave until the designer chooses. An incomplete form (blanks only) saves like any other;
  * one with a wrong value (`valid` false) is never sent on its own: it stays "unsaved" and says so. One save is in flight at a time.
  */
+/** The server's refusal with the fields it names, so a field the form does not mark is still found. */
+function failureMessage(message: string, issues: CalcIssue[] | undefined): string {
+  if (!issues?.length) return message;
+  const named = issues.slice(0, 3).map((i) => `${fieldLabel(i.path)}: ${i.message}`);
+  const more = issues.length > 3 ? ` (and ${issues.length - 3} more)` : "";
+  return `${message} ${named.join("; ")}${more}.`;
+}
+
 export function useDraftSave(opts: {
   url: string;
   document: unknown;
@@ -84,7 +93,7 @@ export function useDraftSave(opts: {
           setConflict({ currentVersion: answer.error?.currentVersion ?? answer.current?.version ?? 0, current: answer.current?.document ?? answer.current?.input ?? null, dismissed: false });
         } else {
           if (answer.error?.issues) onIssues(answer.error.issues);
-          setFailure({ body: sending, message: answer.error?.message ?? `Saving failed (${res.status})` });
+          setFailure({ body: sending, message: failureMessage(answer.error?.message ?? `Saving failed (${res.status})`, answer.error?.issues) });
         }
       } catch {
         setFailure({ body: sending, message: "The server could not be reached; your changes are kept here and saved with the next change." });

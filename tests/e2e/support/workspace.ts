@@ -126,14 +126,18 @@ export class WorkspacePage {
     await this.page.locator(`[data-testid="save-state"][data-state="${status}"]`).waitFor({ state: "visible", timeout });
   }
   /**
-   * Saves now and waits for "saved … · vN"; returns N. The draft also saves itself after a
-   * pause, so when autosave got there first (the button is disabled: nothing left to save)
-   * there is nothing to click.
+   * Saves now and waits until nothing is left to save; returns the stored version N. The draft
+   * also saves itself after a pause, so when autosave got there first ("saved … · vN") or the
+   * form is back to what is stored ("vN": an edit undone before the pause ran out) there is
+   * nothing to click.
    */
   async save(): Promise<number> {
     if (await this.saveButton.isEnabled()) await this.saveButton.click({ timeout: 3000 }).catch(() => undefined);
-    await this.page.getByTestId("save-state").filter({ hasText: /^saved .* · v\d+$/ }).waitFor({ state: "visible", timeout: 20_000 });
-    const m = /· v(\d+)$/.exec(await textOf(this.saveState));
+    await this.page
+      .locator('[data-testid="save-state"][data-state="saved"], [data-testid="save-state"][data-state="clean"]')
+      .filter({ hasText: /(^saved .* · v\d+$)|(^v\d+$)/ })
+      .waitFor({ state: "visible", timeout: 20_000 });
+    const m = /v(\d+)$/.exec(await textOf(this.saveState));
     if (!m) throw new Error("no version in the save-state");
     return Number(m[1]);
   }

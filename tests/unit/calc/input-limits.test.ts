@@ -28,6 +28,18 @@ const overLimit: [string, string, (d: Doc) => void][] = [
 ];
 
 describe("input limits", () => {
+  it("a band acceptance's justification may be a paragraph (up to maxJustificationLength), not a name's 100 characters", () => {
+    const doc = pumpTrainInput() as Doc & { acceptances?: { checkKey: string; justification: string }[] };
+    const paragraph = "Cross-hole tests on the compacted fill bound G at 1.2 x nominal; see the geotechnical addendum. ".repeat(4);
+    expect(paragraph.length).toBeGreaterThan(L.maxTextLength);
+    doc.acceptances = [{ checkKey: "frequency-separation@soil-upper/pump/impeller", justification: paragraph }];
+    expect(boundPaths(doc)).toEqual([]);
+    expect(parserPaths(doc).filter((p) => p.startsWith("acceptances[0].justification"))).toEqual([]);
+    doc.acceptances[0]!.justification = "x".repeat(L.maxJustificationLength + 1);
+    expect(boundPaths(doc)).toEqual(["acceptances[0].justification"]);
+    expect(parserPaths(doc)).toContain("acceptances[0].justification");
+  });
+
   it.each(overLimit)("%s: the parser and checkInputBounds both name %s", (_what, path, change) => {
     const doc = pumpTrainInput();
     change(doc);
