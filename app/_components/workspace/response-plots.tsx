@@ -1,14 +1,14 @@
 "use client";
 
-import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries } from "@nivo/line";
 import { useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { cutoffMarkers } from "@/modules/desk/soil-factors";
 import { Explain } from "./explain";
+import { FrequencyLineChart, sweepCaseKey, type FrequencyLayer, type FrequencySeries } from "./frequency-line-chart";
 import { CurveLegend, FrequencyMarks, MODE_COLOUR, type FrequencyBand, type ModeMark, type OperatingBand } from "./plot-marks";
 import { useUnits } from "./units-context";
 
-type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
+type Series = FrequencySeries;
 
 const palette = ["#2e3d46", "#d49a1e", "#3f8a4a", "#b8432f", "#647d88", "#8f650f", "#2b6233", "#84291b"];
 
@@ -21,11 +21,11 @@ interface Bands {
   cutoffs: { hz: number; label: string }[];
 }
 
-function bandLayer(bands: Bands, idPrefix: string) {
+function bandLayer(bands: Bands, idPrefix: string): FrequencyLayer {
   // Drawn under the curves: operating speed range (ochre), the band each natural frequency
   // must keep clear of (brick hatch), where the natural frequencies move within the soil band
   // (slate), and the natural frequencies themselves as dashed lines.
-  function BandLayer({ xScale, innerWidth, innerHeight }: LineCustomSvgLayerProps<Series>) {
+  function BandLayer({ xScale, innerWidth, innerHeight }: Parameters<FrequencyLayer>[0]) {
     const x = (v: number) => xScale(v as never);
     return (
       <g>
@@ -49,23 +49,12 @@ function Plot({ series, bands, yLabel, testId }: { series: Series[]; bands: Band
   return (
     <div data-testid={testId}>
       <div className="h-64 w-full">
-        <ResponsiveLine
-          data={series}
+        <FrequencyLineChart
+          series={series}
+          colours={palette}
+          yLabel={yLabel}
           ariaLabel={`Plot of ${yLabel} against frequency: ${series.map((s) => String(s.id)).join(", ")}, with the operating ranges and natural frequencies marked`}
-          margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
-          xScale={{ type: "linear", min: "auto", max: "auto" }}
-          yScale={{ type: "linear", min: 0, max: "auto" }}
-          curve="linear"
-          colors={palette}
-          lineWidth={1.6}
-          enablePoints={false}
-          enableGridX={false}
-          useMesh
-          animate={false}
-          axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
-          axisLeft={{ legend: yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
-          layers={[layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
-          theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
+          layer={layer}
         />
       </div>
       <CurveLegend items={series.map((s, i) => ({ id: s.id, colour: palette[i % palette.length] ?? MODE_COLOUR }))} testId={`${testId}-legend`} />
@@ -80,7 +69,7 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
   const sw = result.sweep;
   const options = useMemo(() => {
     const keys = new Set<string>();
-    for (const s of sw.series) keys.add(`${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})`);
+    for (const s of sw.series) keys.add(sweepCaseKey(s));
     return [...keys];
   }, [sw.series]);
   const [pick, setPick] = useState(0);
@@ -101,7 +90,7 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
       cutoffs: cutoffMarkers(result.impedance),
     };
   }, [sw, result.bounds, result.modes, result.impedance]);
-  const picked = sw.series.filter((s) => `${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})` === chosen);
+  const picked = sw.series.filter((s) => sweepCaseKey(s) === chosen);
   const toSeries = (values: (s: (typeof picked)[number]) => number[], kind: "displacement" | "velocity"): Series[] =>
     picked.map((s) => ({ id: s.point, data: sw.frequencyHz.map((f, i) => ({ x: f, y: u.toDisplayNumber(kind, values(s)[i] ?? 0) })) }));
   const [machine, rotor, rest] = chosen.split(" · ");

@@ -1,19 +1,17 @@
 "use client";
 
-import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries } from "@nivo/line";
 import { useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { UnitsProvider, useUnits, type UnitSystem } from "@/app/_components/workspace/units-context";
 import { FrequencyMarks, type ModeMark, type OperatingBand } from "@/app/_components/workspace/plot-marks";
+import { FrequencyLineChart, sweepCaseKey, type FrequencyLayer, type FrequencySeries } from "@/app/_components/workspace/frequency-line-chart";
 
-type Series = LineSeries & { id: string; data: { x: number; y: number }[] };
+type Series = FrequencySeries;
 
 // Older revision in slate, newer in ochre: the same palette as the workspace plots.
 const colours = ["#647d88", "#d49a1e"];
 
-function caseKey(s: { machine: string; rotor: string; case: string; unbalanceMode: string }): string {
-  return `${s.machine} · ${s.rotor} · ${s.case} (${s.unbalanceMode})`;
-}
+const caseKey = sweepCaseKey;
 
 /** Largest value over every point of the chosen rotor and case, at each frequency. */
 function envelope(result: AnalysisResult, key: string, pick: (s: AnalysisResult["sweep"]["series"][number]) => number[]): number[] {
@@ -21,8 +19,8 @@ function envelope(result: AnalysisResult, key: string, pick: (s: AnalysisResult[
   return result.sweep.frequencyHz.map((_, i) => series.reduce((m, s) => Math.max(m, pick(s)[i] ?? 0), 0));
 }
 
-function marksLayer(ranges: OperatingBand[], modes: ModeMark[], idPrefix: string) {
-  function MarksLayer({ xScale, innerWidth, innerHeight }: LineCustomSvgLayerProps<Series>) {
+function marksLayer(ranges: OperatingBand[], modes: ModeMark[], idPrefix: string): FrequencyLayer {
+  function MarksLayer({ xScale, innerWidth, innerHeight }: Parameters<FrequencyLayer>[0]) {
     return <FrequencyMarks x={(v) => xScale(v as never)} innerWidth={innerWidth} innerHeight={innerHeight} operating={ranges} modes={modes} idPrefix={idPrefix} />;
   }
   return MarksLayer;
@@ -32,23 +30,7 @@ function Overlay({ series, yLabel, ranges, modes, testId }: { series: Series[]; 
   const layer = useMemo(() => marksLayer(ranges, modes, testId), [ranges, modes, testId]);
   return (
     <div className="h-64 w-full" data-testid={testId}>
-      <ResponsiveLine
-        data={series}
-        ariaLabel={`Plot of ${yLabel}, the two revisions overlaid`}
-        margin={{ top: 12, right: 16, bottom: 40, left: 64 }}
-        xScale={{ type: "linear", min: "auto", max: "auto" }}
-        yScale={{ type: "linear", min: 0, max: "auto" }}
-        colors={colours}
-        lineWidth={1.6}
-        enablePoints={false}
-        enableGridX={false}
-        useMesh
-        animate={false}
-        axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
-        axisLeft={{ legend: yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
-        layers={[layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
-        theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
-      />
+      <FrequencyLineChart series={series} colours={colours} yLabel={yLabel} ariaLabel={`Plot of ${yLabel}, the two revisions overlaid`} layer={layer} />
     </div>
   );
 }
