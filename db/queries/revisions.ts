@@ -7,6 +7,7 @@ import { canonicalInputHash, listLeafPaths, nextRevisionLabel, revisionStatus, w
 import { roleAllows, type ProjectPermission, type ProjectRole } from "@/modules/platform/permissions";
 import { isAppError } from "@/modules/platform/errors";
 import type { GoverningSource } from "@/modules/desk/foundation-summary";
+import type { OpenFieldComment as OpenFieldCommentShown } from "@/modules/desk/review-markers";
 import { getMembership, type Actor } from "./projects";
 import { assertFoundationActive } from "./foundations";
 
@@ -481,13 +482,7 @@ export async function listRevisionComments(actor: Actor, projectId: string, foun
 }
 
 /** An open review comment of one of a foundation's revisions, for the designer's workspace. */
-export interface OpenFieldComment {
-  id: string;
-  revisionId: string;
-  revisionLabel: string;
-  fieldPath: string | null;
-  body: string;
-  authorName: string;
+export interface OpenFieldComment extends OpenFieldCommentShown {
   createdAt: Date;
 }
 

@@ -5,6 +5,16 @@
 // Not the module index, which re-exports the input hash (node:crypto): this file runs in the browser.
 import { parseFieldPath } from "@/modules/revisions/field-labels";
 
+/** An open review comment as the workspace shows it beside its field (db/queries adds the date). */
+export interface OpenFieldComment {
+  id: string;
+  revisionId: string;
+  revisionLabel: string;
+  fieldPath: string | null;
+  body: string;
+  authorName: string;
+}
+
 /** The form field name of a revision path, or null when the form has no such field (a result, a removed machine). */
 export function formFieldNameOf(path: string, form: unknown): string | null {
   const segs = parseFieldPath(path);

@@ -3,17 +3,10 @@
 import { useFormikContext } from "formik";
 import { createContext, useContext, useMemo, type ReactNode } from "react";
 import { fieldLabel } from "@/modules/revisions/field-labels";
-import { placeComments } from "@/modules/desk/review-markers";
+import { placeComments, type OpenFieldComment } from "@/modules/desk/review-markers";
 
 /** An open review comment as the workspace receives it from the page. */
-export interface WorkspaceComment {
-  id: string;
-  revisionId: string;
-  revisionLabel: string;
-  fieldPath: string | null;
-  body: string;
-  authorName: string;
-}
+export type WorkspaceComment = OpenFieldComment;
 
 const ByField = createContext<Map<string, WorkspaceComment[]>>(new Map());
 
