@@ -66,30 +66,14 @@ export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: R
   for (const r of rotors) {
     for (const c of r.cases) {
       for (const p of c.points) {
-        const where = `${p.name}, ${r.machine} ${r.rotor} ${c.case} ${c.unbalanceMode} unbalance, over the speed range`;
-        const common = { machine: r.machine, rotor: r.rotor, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name } as const;
         checks.push(
-          check({
-            id: "displacement",
-            key: `displacement/${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${p.name}`,
-            label: `Peak displacement at ${where}`,
-            value: p.overSpeedRange?.displacementPeak ?? Math.max(...p.displacementPeak),
-            limit: criteria.maxDisplacementPeak.value,
-            comparison: "max",
-            unit: "m",
-            source: criteria.maxDisplacementPeak.source,
-            ...common,
-          }),
-          check({
-            id: "velocity",
-            key: `velocity/${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${p.name}`,
-            label: `Peak velocity at ${where}`,
-            value: p.overSpeedRange?.velocityPeak ?? Math.max(...p.velocityPeak),
-            limit: criteria.maxVelocityPeak.value,
-            comparison: "max",
-            unit: "m/s",
-            source: criteria.maxVelocityPeak.source,
-            ...common,
+          ...amplitudeChecks(criteria, {
+            kind: "single",
+            keyTail: `${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            where: `${p.name}, ${r.machine} ${r.rotor} ${c.case} ${c.unbalanceMode} unbalance, over the speed range`,
+            displacement: p.overSpeedRange?.displacementPeak ?? Math.max(...p.displacementPeak),
+            velocity: p.overSpeedRange?.velocityPeak ?? Math.max(...p.velocityPeak),
+            common: { machine: r.machine, rotor: r.rotor, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name },
           }),
         );
       }
@@ -97,6 +81,43 @@ export function soilDependentChecks(criteria: Criteria, modes: Mode[], rotors: R
   }
   checks.push(...combinedChecks(criteria, combined));
   return checks;
+}
+
+/**
+ * The displacement and velocity checks of one point and load case, a single rotor's
+ * (`displacement`, `velocity`) or a combination's (`displacement-combined`, `velocity-combined`),
+ * against the same two limits.
+ */
+function amplitudeChecks(
+  criteria: Criteria,
+  at: { kind: "single" | "combined"; keyTail: string; where: string; displacement: number; velocity: number; common: Partial<CheckResult> },
+): CheckResult[] {
+  const suffix = at.kind === "combined" ? "-combined" : "";
+  const lead = at.kind === "combined" ? "Combined peak" : "Peak";
+  return [
+    check({
+      id: `displacement${suffix}`,
+      key: `displacement${suffix}/${at.keyTail}`,
+      label: `${lead} displacement at ${at.where}`,
+      value: at.displacement,
+      limit: criteria.maxDisplacementPeak.value,
+      comparison: "max",
+      unit: "m",
+      source: criteria.maxDisplacementPeak.source,
+      ...at.common,
+    }),
+    check({
+      id: `velocity${suffix}`,
+      key: `velocity${suffix}/${at.keyTail}`,
+      label: `${lead} velocity at ${at.where}`,
+      value: at.velocity,
+      limit: criteria.maxVelocityPeak.value,
+      comparison: "max",
+      unit: "m/s",
+      source: criteria.maxVelocityPeak.source,
+      ...at.common,
+    }),
+  ];
 }
 
 /**
@@ -111,30 +132,14 @@ export function combinedChecks(criteria: Criteria, combined: CombinedResult[]): 
     const what = g.speedRpm === undefined ? `${g.group.join(" + ")} at their different speeds (sum of peaks)` : `${g.group.join(" + ")} together at ${g.speedRpm} rpm (worst phase)`;
     for (const c of g.cases) {
       for (const p of c.points) {
-        const where = `${p.name}, ${what}, ${c.case} ${c.unbalanceMode} unbalance, over the speed range`;
-        const common = { combination: g.id, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name } as const;
         checks.push(
-          check({
-            id: "displacement-combined",
-            key: `displacement-combined/${g.id}/${c.case}/${c.unbalanceMode}/${p.name}`,
-            label: `Combined peak displacement at ${where}`,
-            value: p.overSpeedRange.displacementPeak,
-            limit: criteria.maxDisplacementPeak.value,
-            comparison: "max",
-            unit: "m",
-            source: criteria.maxDisplacementPeak.source,
-            ...common,
-          }),
-          check({
-            id: "velocity-combined",
-            key: `velocity-combined/${g.id}/${c.case}/${c.unbalanceMode}/${p.name}`,
-            label: `Combined peak velocity at ${where}`,
-            value: p.overSpeedRange.velocityPeak,
-            limit: criteria.maxVelocityPeak.value,
-            comparison: "max",
-            unit: "m/s",
-            source: criteria.maxVelocityPeak.source,
-            ...common,
+          ...amplitudeChecks(criteria, {
+            kind: "combined",
+            keyTail: `${g.id}/${c.case}/${c.unbalanceMode}/${p.name}`,
+            where: `${p.name}, ${what}, ${c.case} ${c.unbalanceMode} unbalance, over the speed range`,
+            displacement: p.overSpeedRange.displacementPeak,
+            velocity: p.overSpeedRange.velocityPeak,
+            common: { combination: g.id, case: c.case, unbalanceMode: c.unbalanceMode, point: p.name },
           }),
         );
       }
