@@ -43,6 +43,7 @@ export const METHOD_NAMES = {
   "equivalent-radius": "equivalent-radius half-space springs with Lysmer's analog damping (Richart, Hall & Woods 1970)",
   gazetas: "static and dynamic stiffness and radiation dashpots of a rectangular base (Gazetas 1991)",
   user: "springs and damping ratios entered by the user (geotechnical report or pile-group analysis)",
+  springs: "steel springs at given positions (catalogue kz, kh typed by the designer) with dampers or a damping ratio, assembled at O; isolation by the SDOF transmissibility (Chopra, Dynamics of Structures, §3.6)",
 } as const;
 
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
