@@ -69,6 +69,11 @@ export interface SoilLayerForm {
   poissonRatio: Num;
 }
 
+/** A blank steel spring row of the "springs" method (issue 16). */
+export function newSpring(): NonNullable<DraftForm["impedance"]["springs"]>[number] {
+  return { x: null, y: null, kz: null, kh: null, cz: null, ch: null };
+}
+
 export function newSoilLayer(): SoilLayerForm {
   return { thickness: null, shearWaveVelocity: null, shearModulus: null, density: null, poissonRatio: null };
 }
