@@ -43,6 +43,7 @@ export const METHOD_NAMES = {
   "equivalent-radius": "equivalent-radius half-space springs with Lysmer's analog damping (Richart, Hall & Woods 1970)",
   gazetas: "static and dynamic stiffness and radiation dashpots of a rectangular base (Gazetas 1991)",
   user: "springs and damping ratios entered by the user (geotechnical report or pile-group analysis)",
+  springs: "steel springs at given positions (catalogue kz, kh typed by the designer) with dampers or a damping ratio, assembled at O; isolation by the SDOF transmissibility (Chopra, Dynamics of Structures, §3.6)",
 } as const;
 
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
@@ -172,6 +173,14 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
       ? [{ label: "Dynamic coefficients", value: input.impedance.gazetasDynamic ?? "published", note: input.impedance.gazetasDynamic === "simplified" ? "k_z = k_y = 1, c = 1 (warned)" : "published closed forms" }]
       : []),
   ]);
+  if (input.impedance.method === "springs") {
+    const imp = input.impedance;
+    w.table(
+      "Steel springs (catalogue values typed by the designer; tops on the underside of the block)",
+      [{ header: "Spring", kind: "count" }, { header: "x", kind: L }, { header: "y", kind: L }, { header: "kz", kind: "stiffness" }, { header: "kh", kind: "stiffness" }, { header: "Damper cz", kind: "dashpot" }, { header: "Damper ch", kind: "dashpot" }],
+      imp.springs.map((s, i) => [i + 1, s.x, s.y, s.kz, s.kh, s.cz ?? null, s.ch ?? null]),
+    );
+  }
   if (input.impedance.method === "user") {
     const imp = input.impedance;
     w.table(
@@ -350,6 +359,26 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
     }
     sp.push({ label: "Source", value: strat.source });
     w.pairs("Soil layer over rock", sp);
+  }
+  const sr = d.result.springs;
+  if (sr) {
+    w.pairs("Block on steel springs", [
+      { label: "Static deflection W / sum kz", value: sr.staticDeflection, kind: "length" },
+      { label: "Vertical isolator frequency sqrt(sum kz / m) / 2 pi", value: sr.verticalFrequencyHz, kind: "frequency" },
+      { label: "Vertical damping ratio", value: sr.verticalDampingRatio, kind: "ratio" },
+      { label: "Highest natural frequency", value: sr.highestNaturalFrequencyHz, kind: "frequency" },
+      { label: "Source", value: sr.transmissibilitySource },
+    ]);
+    w.table(
+      "Isolation per operating speed (vertical mode as SDOF)",
+      [{ header: "Machine" }, { header: "Rotor" }, { header: "Speed", kind: "speed" }, { header: "Frequency ratio r", kind: "ratio" }, { header: "Transmissibility TR", kind: "ratio" }, { header: "Isolation efficiency 1 - TR", kind: "ratio" }],
+      sr.rotors.flatMap((r) => r.isolation.map((row) => [r.machine, r.rotor, row.speedRpm, row.frequencyRatio, row.transmissibility, row.isolationEfficiency])),
+    );
+    w.table(
+      "Force amplitude in each spring at the rated speed",
+      [{ header: "Machine" }, { header: "Rotor" }, { header: "Case" }, { header: "Unbalance" }, { header: "Spring", kind: "count" }, { header: "Force x", kind: "force" }, { header: "Force y", kind: "force" }, { header: "Force z", kind: "force" }],
+      sr.rotors.flatMap((r) => r.springForces.flatMap((c) => c.forces.map((f, i) => [r.machine, r.rotor, c.case, c.unbalanceMode, i + 1, f[0], f[1], f[2]]))),
+    );
   }
   w.table(
     "Intermediate values of the method (SI, as the engine reports them)",

@@ -10,12 +10,13 @@ import { buildModel } from "./model";
 import type { AnalysisResult } from "./result-types";
 import type { AnalysisInput } from "./schema";
 import { soilBand } from "./soil-band";
+import { springsResults } from "./springs-results";
 import { runSoilCase } from "./soil-case";
 import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
-export const ENGINE_VERSION = "1.2.0";
+export const ENGINE_VERSION = "1.4.0";
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
@@ -32,7 +33,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   const sweep = frequencySweep(model, nominal.solver, sweepSettings, modesHz, criteria.frequencySeparation.value);
   const crossCheck = buildCrossCheck(model, nominal);
   const band = options.soilBand === false ? undefined : soilBand(model);
-  const userSprings = input.impedance.method === "user";
+  const userSprings = input.impedance.method === "user" || input.impedance.method === "springs";
   // Nominal checks first (their ids and order unchanged), then the same soil-dependent checks at
   // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
   const accepted = applyAcceptances(
@@ -42,7 +43,8 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     ],
     input.acceptances,
   );
-  const checks = accepted.checks;
+  const springs = springsResults(model, nominal);
+  const checks = [...accepted.checks, ...(springs?.checks ?? [])];
   // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
   const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;
   const warnings = [
@@ -67,6 +69,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     criteria,
     ...(transient ? { transient } : {}),
     ...(nominal.combined.length ? { combined: nominal.combined } : {}),
+    ...(springs ? { springs: springs.result } : {}),
   };
   // the sweep's series are checked in the sweep loop itself
   assertFinite(result, new Set<object>([sweep.series, sweep.transmissibility ?? []]));

@@ -8,10 +8,12 @@ export interface ImpedanceContext {
   base: ContactArea;
   /** Diagonal of the mass matrix about O: m, m, m, I_xx,O, I_yy,O, I_zz,O. */
   massDiagonal: number[];
+  /** O in plan in the input's coordinates (springs are placed in input coordinates). */
+  origin?: [number, number];
 }
 
 export interface ImpedanceModel {
-  method: "equivalent-radius" | "gazetas" | "user";
+  method: "equivalent-radius" | "gazetas" | "user" | "springs";
   /** Static stiffness per DOF (embedment included), order x, y, z, rx, ry, rz. */
   staticStiffness: number[];
   frequencyDependent: boolean;

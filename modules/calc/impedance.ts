@@ -4,6 +4,7 @@ import type { ImpedanceContext, ImpedanceModel } from "./impedance-model";
 import { equivalentRadiusImpedance } from "./impedance-equivalent-radius";
 import { gazetasImpedance } from "./impedance-gazetas";
 import { userImpedance } from "./impedance-user";
+import { springsImpedance } from "./impedance-springs";
 
 /**
  * The impedance model. `factor` is the soil-band factor: the soil methods receive it through
@@ -17,5 +18,7 @@ export function buildImpedance(input: ImpedanceInput, ctx: ImpedanceContext, fac
       return gazetasImpedance(ctx, input.gazetasDynamic ?? "published");
     case "user":
       return userImpedance(ctx, input.stiffness, input.dampingRatio, factor);
+    case "springs":
+      return springsImpedance(ctx, input.springs, input.dampingRatio, factor, ctx.origin ?? [0, 0]);
   }
 }

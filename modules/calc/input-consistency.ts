@@ -4,6 +4,7 @@ import type { AnalysisInput, TransientRequest } from "./schema";
 import { resolveTransientSpeeds } from "./transient-settings";
 import { loadCasesFor } from "./unbalance";
 import { resolveSweep } from "./sweep-grid";
+import { springCouplingIssues } from "./impedance-springs";
 import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
 
 export type PathPart = string | number;
@@ -80,6 +81,21 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
   const depthToRock = soil.stratum?.thickness ?? soil.layers?.reduce((sum, l) => sum + l.thickness, 0);
   if (depthToRock !== undefined && soil.embedmentDepth >= depthToRock) {
     add(["soil", "embedmentDepth"], "the base must lie above the rigid base of the stratum");
+  }
+  if (input.impedance.method === "springs") {
+    // The engine's impedance is diagonal at O: refuse a layout whose coupling terms do not vanish.
+    const base = contactArea(
+      input.block.solids.filter((s) => !s.void),
+      input.block.solids.filter((s) => s.void),
+    );
+    if (base) {
+      for (const issue of springCouplingIssues(input.impedance.springs, [base.centroid[0], base.centroid[1]])) {
+        add(
+          ["impedance", "springs"],
+          `the springs must be laid out symmetrically about the centroid of the base (O): ${issue}; a layout whose stiffness centre is off O couples the modes, which this method does not model`,
+        );
+      }
+    }
   }
   if (input.impedance.method === "user" && soil.materialDamping === 0) {
     for (const [key, ratio] of Object.entries(input.impedance.dampingRatio)) {

@@ -20,6 +20,8 @@ export const INPUT_LIMITS = {
   maxRotors: 8,
   /** machines[i].rotors[j].bearings */
   maxBearingsPerRotor: 6,
+  /** impedance.springs (method "springs"): an inertia block rarely sits on more than a few dozen isolators. */
+  maxSprings: 64,
   /** checkPoints */
   maxCheckPoints: 24,
   /** sweep.points: a plotting grid of 600 to 2000 points is usual. */
@@ -112,6 +114,7 @@ export function checkInputBounds(raw: unknown): BoundIssue[] {
   const block = raw.block;
   if (isObject(block)) maxLength(block.solids, ["block", "solids"], L.maxSolids, "solids");
   maxLength(raw.checkPoints, ["checkPoints"], L.maxCheckPoints, "check points");
+  if (isObject(raw.impedance)) maxLength(raw.impedance.springs, ["impedance", "springs"], L.maxSprings, "springs");
   maxLength(raw.transient, ["transient"], L.maxTransientRuns, "runs");
   maxLength(raw.machines, ["machines"], L.maxMachines, "machines");
 

@@ -33,7 +33,7 @@ export interface MassPropertiesResult {
 }
 
 export interface ImpedanceResult {
-  method: "equivalent-radius" | "gazetas" | "user";
+  method: "equivalent-radius" | "gazetas" | "user" | "springs";
   staticStiffness: Dof6;
   stiffness: Dof6;
   dampingRatio: Dof6;
@@ -314,4 +314,28 @@ export interface AnalysisResult {
   transient?: TransientResult[];
   /** Rotors responding together (present when the input has two or more rotors). */
   combined?: CombinedResult[];
+  /** Block on steel springs only (impedance.method "springs", issue 16). */
+  springs?: SpringsResult;
+}
+
+/** Results of a block on steel springs (springs-results.ts). */
+export interface SpringsResult {
+  /** Static deflection W / sum kz (m). */
+  staticDeflection: number;
+  sumKz: number;
+  sumKh: number;
+  /** Vertical mode as an SDOF isolator: sqrt(sum kz / m) / 2 pi (Hz), and its damping ratio. */
+  verticalFrequencyHz: number;
+  verticalDampingRatio: number;
+  /** Highest of the six natural frequencies (Hz): the isolator frequency of the ratio check. */
+  highestNaturalFrequencyHz: number;
+  transmissibilitySource: string;
+  rotors: {
+    machine: string;
+    rotor: string;
+    /** At the ends of the speed range and the rated speed: r = f / f_z, TR (Chopra §3.6), 1 - TR. */
+    isolation: { speedRpm: number; frequencyRatio: number; transmissibility: number; isolationEfficiency: number }[];
+    /** Per load case at the rated speed: force amplitude [x, y, z] in each spring, in input order (N). */
+    springForces: { case: LoadCaseName; unbalanceMode: UnbalanceModeName; speedRpm: number; forces: [number, number, number][] }[];
+  }[];
 }

@@ -84,6 +84,18 @@ const ratio = () =>
   finite().min(0, { error: "must lie in [0, 1)" }).lt(1, { error: "must lie in [0, 1)" });
 const dofRatioSchema = z.strictObject({ x: ratio(), y: ratio(), z: ratio(), rx: ratio(), ry: ratio(), rz: ratio() });
 
+const springSchema = z.strictObject({
+  /** Position of the spring's axis in plan (input coordinates, m); the spring top bears on the underside. */
+  x: finite(),
+  y: finite(),
+  /** Catalogue vertical and horizontal stiffness of the spring (N/m). */
+  kz: positive(),
+  kh: positive(),
+  /** Optional viscous damper at the spring (N s/m). */
+  cz: nonNegative().optional(),
+  ch: nonNegative().optional(),
+});
+
 const impedanceSchema = z.discriminatedUnion(
   "method",
   [
@@ -94,8 +106,23 @@ const impedanceSchema = z.discriminatedUnion(
       gazetasDynamic: z.enum(["published", "simplified"], { error: 'must be "published" or "simplified"' }).optional(),
     }),
     z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
+    // Optional (issue 16): a block on steel springs at given positions (impedance-springs.ts).
+    z
+      .strictObject({
+        method: z.literal("springs"),
+        springs: z
+          .array(springSchema, { error: "must be a list of springs" })
+          .min(3, { error: "give at least 3 springs (a block on fewer springs is not stable in rocking)" })
+          .max(L.maxSprings, atMost(L.maxSprings, "springs")),
+        // one damping ratio for all six DOFs when the springs have no dampers (default 0.005)
+        dampingRatio: ratio().optional(),
+      })
+      .superRefine((imp, ctx) => {
+        const dampers = imp.springs.some((s) => s.cz !== undefined || s.ch !== undefined);
+        if (dampers && imp.dampingRatio !== undefined) ctx.addIssue({ code: "custom", path: ["dampingRatio"], message: "give either dampers (cz, ch) on the springs or one damping ratio, not both" });
+      }),
   ],
-  { error: 'method must be "equivalent-radius", "gazetas" or "user"' },
+  { error: 'method must be "equivalent-radius", "gazetas", "user" or "springs"' },
 );
 
 const rotorSchema = z.strictObject({

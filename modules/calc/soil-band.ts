@@ -9,7 +9,7 @@ import { runSoilCase, type SoilCase } from "./soil-case";
 export function boundFromCase(model: Model, sc: SoilCase): BoundResult {
   return {
     factor: sc.factor,
-    ...(model.input.impedance.method === "user" ? {} : { shearModulus: sc.soil.shearModulus }),
+    ...(model.input.impedance.method === "user" || model.input.impedance.method === "springs" ? {} : { shearModulus: sc.soil.shearModulus }),
     frequenciesHz: sc.modes.map((m) => m.frequencyHz),
     frequencyRatios: sc.rotors.map((r) => ({ machine: r.machine, rotor: r.rotor, ratios: r.frequencyRatios })),
     governing: governingAmplitudes(sc.rotors),

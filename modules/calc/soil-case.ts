@@ -28,9 +28,12 @@ export interface SoilCase {
 
 export function runSoilCase(model: Model, factor: number): SoilCase {
   const input = model.input;
-  // Soil methods: the factor scales G; user springs: it scales the stiffness (impedance.ts).
-  const soil = soilProperties(input.soil, input.impedance.method === "user" ? 1 : factor);
-  const impedance = buildImpedance(input.impedance, { soil, base: model.base, massDiagonal: model.massDiagonal }, factor);
+  // Soil methods: the factor scales G; user and steel springs: it scales the stiffness (impedance.ts).
+  const springMethod = input.impedance.method === "user" || input.impedance.method === "springs";
+  const soilNominal = soilProperties(input.soil, springMethod ? 1 : factor);
+  // steel springs carry no soil hysteresis: their damping is the dampers' or the ratio given
+  const soil = input.impedance.method === "springs" ? { ...soilNominal, materialDamping: 0 } : soilNominal;
+  const impedance = buildImpedance(input.impedance, { soil, base: model.base, massDiagonal: model.massDiagonal, origin: [model.origin[0], model.origin[1]] }, factor);
   const omega1 = model.rotors[0]?.omegaRated ?? 0;
   const k = new Float64Array(6);
   const c = new Float64Array(6);
@@ -50,7 +53,7 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
     dashpot: dofFromArray(c),
     evaluatedAtHz: omega1 / (2 * Math.PI),
     materialDamping: soil.materialDamping,
-    ...(input.impedance.method === "user" ? {} : { shearModulus: soil.shearModulus, shearWaveVelocity: soil.shearWaveVelocity }),
+    ...(springMethod ? {} : { shearModulus: soil.shearModulus, shearWaveVelocity: soil.shearWaveVelocity }),
     details: impedance.details,
   };
   return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, modes, rotors, combined, solver };

@@ -69,6 +69,11 @@ export interface SoilLayerForm {
   poissonRatio: Num;
 }
 
+/** A blank steel spring row of the "springs" method (issue 16). */
+export function newSpring(): NonNullable<DraftForm["impedance"]["springs"]>[number] {
+  return { x: null, y: null, kz: null, kh: null, cz: null, ch: null };
+}
+
 export function newSoilLayer(): SoilLayerForm {
   return { thickness: null, shearWaveVelocity: null, shearModulus: null, density: null, poissonRatio: null };
 }
@@ -92,8 +97,12 @@ export interface DraftForm {
     layers: SoilLayerForm[];
   };
   impedance: {
-    method: "equivalent-radius" | "gazetas" | "user";
+    method: "equivalent-radius" | "gazetas" | "user" | "springs";
     stiffness: Dof6Form;
+    /** Steel springs only (issue 16): plan position, catalogue kz and kh, optional dampers. */
+    springs?: { x: Num; y: Num; kz: Num; kh: Num; cz: Num; ch: Num }[];
+    /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
+    springsDampingRatio?: Num;
     dampingRatio: Dof6Form;
     /** Gazetas only: the published dynamic coefficients (default) or the simplified k = 1, c = 1. */
     gazetasDynamic: "published" | "simplified";
@@ -269,6 +278,12 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
       stiffness: imp.method === "user" ? { ...imp.stiffness } : emptyDof(),
       dampingRatio: imp.method === "user" ? { ...imp.dampingRatio } : emptyDof(),
       gazetasDynamic: imp.method === "gazetas" ? (imp.gazetasDynamic ?? "published") : "published",
+      ...(imp.method === "springs"
+        ? {
+            springs: imp.springs.map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, cz: s.cz ?? null, ch: s.ch ?? null })),
+            springsDampingRatio: imp.dampingRatio ?? null,
+          }
+        : {}),
     },
     machines: input.machines.map((m) => ({
       name: m.name,
@@ -384,7 +399,13 @@ export function toInputDocument(f: DraftForm): unknown {
     impedance:
       f.impedance.method === "user"
         ? { method: "user", stiffness: f.impedance.stiffness, dampingRatio: f.impedance.dampingRatio }
-        : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
+        : f.impedance.method === "springs"
+          ? {
+              method: "springs",
+              springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
+              ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
+            }
+          : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
           ? { method: "gazetas", gazetasDynamic: "simplified" }
           : { method: f.impedance.method },
     machines: f.machines.map((m) => ({

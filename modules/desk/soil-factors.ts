@@ -17,6 +17,7 @@ const EMBEDMENT_SOURCE: Record<ImpedanceResult["method"], string> = {
   gazetas: "Gazetas (1991) Table 2, J. Geotech. Eng. ASCE 117(9) (K_t,emb recalled); forms checked against a second statement, see CONVENTIONS.md",
   "equivalent-radius": "Arya, O'Neill & Pincus (1979) (recalled); torsion unfactored",
   user: "",
+  springs: "",
 };
 
 const STRATUM_SOURCE =

@@ -407,6 +407,9 @@ function* search(input: AnalysisInput, mat: BaseMat, options: SizingOptions): Ge
 
 function notesFor(input: AnalysisInput, options: SizingOptions): string[] {
   const notes: string[] = [];
+  if (input.impedance.method === "springs") {
+    notes.push("The block is on steel springs: the springs' positions and stiffness were kept as entered for every size; the number and layout of springs are the designer's.");
+  }
   if (input.impedance.method === "user") {
     notes.push(
       "The impedance is user-entered: its springs and damping ratios were kept as entered for every size, although they depend on the base; have them recomputed for the proposed base.",

@@ -1,5 +1,7 @@
 // POST /api/v1/calculate: the contract's analysis for any signed-in user, 400 with JSON
 // paths for bad input (never a 500), 413 above 1 MB.
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { ENGINE_VERSION } from "@/modules/calc";
 import { callRoute, getFixture, type Fixture } from "./support/fixture";
@@ -39,6 +41,21 @@ describe("POST /api/v1/calculate", () => {
     const rotor = result.rotors[0]!;
     rotor.frequencyRatios.forEach((r, i) => expect(r).toBeCloseTo(rotor.speedRpm / 60 / hz[i]!, 9));
     expect(result.checks.length).toBeGreaterThan(0);
+  });
+
+  it("accepts a block on steel springs (method \"springs\", issue 16) and answers its springs results; an asymmetric layout is a 400 naming impedance.springs", async () => {
+    const doc = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "fan-on-springs.json"), "utf8")) as { impedance: { springs: { x: number }[] } };
+    const res = await calculate(doc);
+    expect(res.status).toBe(200);
+    const result = (await res.json()) as { impedance: { method: string; stiffness: { z: number } }; springs?: { staticDeflection: number; sumKz: number } };
+    expect(result.impedance.method).toBe("springs");
+    expect(result.impedance.stiffness.z).toBe(1.6e6);
+    expect(result.springs?.sumKz).toBe(1.6e6);
+    doc.impedance.springs[0]!.x = -1.0;
+    const bad = await calculate(doc);
+    expect(bad.status).toBe(400);
+    const body = (await bad.json()) as ErrorBody;
+    expect(body.error.issues?.some((i) => i.path === "impedance.springs")).toBe(true);
   });
 
   it("serves any signed-in account, project member or not", async () => {

@@ -1,8 +1,8 @@
 "use client";
 
-import { useFormikContext } from "formik";
+import { FieldArray, useFormikContext } from "formik";
 import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS } from "@/modules/calc";
-import type { DraftForm } from "@/modules/desk/draft-form";
+import { newSpring, type DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
 import { formatDefault } from "@/modules/units";
 import { useUnits, type QuantityKey } from "./units-context";
@@ -11,6 +11,7 @@ const methods = [
   { value: "equivalent-radius", label: "Equivalent-radius half-space (Richart, Hall & Woods 1970; Lysmer's analog damping)" },
   { value: "gazetas", label: "Rectangular base, Gazetas (1991): static and dynamic stiffness, radiation dashpots, embedment" },
   { value: "user", label: "Springs and damping ratios from the geotechnical report or a pile-group analysis" },
+  { value: "springs", label: "Inertia block on steel springs: catalogue kz and kh per spring, dampers or one damping ratio; isolation by transmissibility (Chopra §3.6)" },
 ] as const;
 
 const dofs = [
@@ -40,7 +41,17 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
         <legend className="field-label">Soil impedance</legend>
         {methods.map((m) => (
           <label key={m.value} className="flex items-start gap-2 text-sm">
-            <input type="radio" name="impedance.method" value={m.value} checked={values.impedance.method === m.value} onChange={handleChange} className="mt-1" />
+            <input
+              type="radio"
+              name="impedance.method"
+              value={m.value}
+              checked={values.impedance.method === m.value}
+              onChange={(e) => {
+                handleChange(e);
+                if (m.value === "springs" && (values.impedance.springs ?? []).length === 0) void setFieldValue("impedance.springs", [newSpring(), newSpring(), newSpring(), newSpring()]);
+              }}
+              className="mt-1"
+            />
             <span>{m.label}</span>
           </label>
         ))}
@@ -67,6 +78,42 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
             </div>
           ))}
         </div>
+      ) : null}
+      {values.impedance.method === "springs" ? (
+        <FieldArray name="impedance.springs">
+          {(arr) => (
+            <div className="space-y-2">
+              <p className="text-2xs text-basalt-400">
+                Spring positions in plan (the spring tops bear on the underside of the block), catalogue stiffness as typed. The layout must be symmetric about the centroid of the base:
+                a stiffness centre off it couples the modes, which this method does not model, and the input is refused. Soil material damping is not applied. Blank dampers and
+                ratio: 0.5 % of critical (common practice for steel springs).
+              </p>
+              {(values.impedance.springs ?? []).map((_, i) => (
+                <div key={i} className="grid grid-cols-2 items-end gap-2 md:grid-cols-7">
+                  <NumberField name={`impedance.springs.${i}.x`} label={`Spring ${i + 1} x`} kind="length" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.y`} label="y" kind="length" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.kz`} label="kz" kind="stiffness" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.kh`} label="kh" kind="stiffness" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.cz`} label="damper cz" kind="dashpot" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.ch`} label="damper ch" kind="dashpot" readOnly={readOnly} compact />
+                  {readOnly ? null : (
+                    <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" disabled={(values.impedance.springs ?? []).length <= 3} onClick={() => arr.remove(i)} aria-label={`Remove spring ${i + 1}`}>
+                      Remove
+                    </button>
+                  )}
+                </div>
+              ))}
+              {readOnly ? null : (
+                <button type="button" className="btn-quiet text-xs" onClick={() => arr.push(newSpring())}>
+                  Add a spring
+                </button>
+              )}
+              <div className="max-w-xs">
+                <NumberField name="impedance.springsDampingRatio" label="Damping ratio (without dampers)" kind="ratio" readOnly={readOnly} />
+              </div>
+            </div>
+          )}
+        </FieldArray>
       ) : null}
       <div>
         <p className="field-label">Acceptance criteria (blank: the default shown)</p>

@@ -185,7 +185,9 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
       ? "Equivalent-radius circular footing on an elastic half-space with Lysmer's analog damping"
       : imp.method === "gazetas"
         ? "Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots"
-        : "Springs and damping ratios given by the user";
+        : imp.method === "springs"
+          ? "Steel springs at their positions, assembled at O (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²)"
+          : "Springs and damping ratios given by the user";
   return (
     <div>
       <table>
@@ -213,6 +215,7 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
         </tbody>
       </table>
       <SoilFactorsTable imp={imp} />
+      {result.springs ? <SpringsTable springs={result.springs} /> : null}
       <Explain
         method={methodText}
         formula={
@@ -222,14 +225,18 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
               ? imp.details?.publishedDynamicCoefficients === 0
                 ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; simplified k_z = k_y = 1, C = ρ V A with c = 1; material damping K(1 + 2iβ)"
                 : "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; k_z = 1 − (0.4 + 0.2/(L/B)) a0²/(10/(1 + 3(L/B − 1)) + a0²); C_rx = ρ V_La I_bx a0²/(2.2 − 0.4/(L/B)³ + a0²) …; material damping K(1 + 2iβ)"
-              : "c = 2 D √(k M_ii)"
+              : imp.method === "springs"
+                ? "dashpots: the dampers' Σcz, Σch assembled like the springs, or c = 2 D √(k M_ii); TR = √(1 + (2ζr)²) / √((1 − r²)² + (2ζr)²)"
+                : "c = 2 D √(k M_ii)"
         }
         source={
           imp.method === "equivalent-radius"
             ? "Richart, Hall & Woods (1970), Vibrations of Soils and Foundations, ch. 7 and 10; Lysmer (1965); Hall (1967)"
             : imp.method === "gazetas"
               ? "Gazetas (1991), J. Geotech. Eng. ASCE 117(9), Tables 1 and 2; chart-only coefficients from the closed forms of Pais & Kausel (1988) as reprinted in NIST GCR 12-917-21 (2012) Table 2-3a"
-              : "User-entered values"
+              : imp.method === "springs"
+                ? "Catalogue spring stiffness typed by the designer; rigid-body kinematics; Chopra, Dynamics of Structures, §3.6 (transmissibility)"
+                : "User-entered values"
         }
         inputs={[
           ...(imp.shearModulus !== undefined ? ([["G", `${u.toResultText("modulus", imp.shearModulus)} ${u.unitLabel("modulus")}`]] as [string, string][]) : []),
@@ -238,6 +245,78 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
           ...Object.entries(imp.details ?? {}).map(([k, v]) => [k, sig(v, { digits: 4 })] as [string, string]),
         ]}
       />
+    </div>
+  );
+}
+
+/** Block on steel springs: static deflection, isolation per operating speed, force per spring. */
+function SpringsTable({ springs }: { springs: NonNullable<AnalysisResult["springs"]> }) {
+  const u = useUnits();
+  return (
+    <div className="mt-3 space-y-2">
+      <p className="text-xs">
+        Static deflection W / Σkz: {u.toResultText("length", springs.staticDeflection)} {u.unitLabel("length")} · vertical isolator frequency {u.toResultText("frequency", springs.verticalFrequencyHz)}{" "}
+        {u.unitLabel("frequency")} (ζ {sig(springs.verticalDampingRatio * 100)} %) · highest natural frequency {u.toResultText("frequency", springs.highestNaturalFrequencyHz)} {u.unitLabel("frequency")}
+      </p>
+      <table>
+        <thead>
+          <tr>
+            <th>Rotor</th>
+            <th className="text-right">Speed</th>
+            <th className="text-right">r = f / f_z</th>
+            <th className="text-right">TR</th>
+            <th className="text-right">Isolation 1 − TR</th>
+          </tr>
+        </thead>
+        <tbody>
+          {springs.rotors.flatMap((r) =>
+            r.isolation.map((row) => (
+              <tr key={`${r.machine}/${r.rotor}/${row.speedRpm}`}>
+                <td className="text-xs">
+                  {r.machine} {r.rotor}
+                </td>
+                <td className="text-right font-mono text-xs">
+                  {u.toResultText("speed", row.speedRpm)} {u.unitLabel("speed")}
+                </td>
+                <td className="text-right font-mono text-xs">{sig(row.frequencyRatio)}</td>
+                <td className="text-right font-mono text-xs">{sig(row.transmissibility)}</td>
+                <td className="text-right font-mono text-xs">{sig(row.isolationEfficiency * 100)} %</td>
+              </tr>
+            )),
+          )}
+        </tbody>
+      </table>
+      <table>
+        <thead>
+          <tr>
+            <th>Rotor, case (rated speed)</th>
+            <th>Spring</th>
+            <th className="text-right">Force x</th>
+            <th className="text-right">Force y</th>
+            <th className="text-right">Force z</th>
+          </tr>
+        </thead>
+        <tbody>
+          {springs.rotors.flatMap((r) =>
+            r.springForces.flatMap((c) =>
+              c.forces.map((f, i) => (
+                <tr key={`${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}/${i}`}>
+                  <td className="text-xs">
+                    {r.machine} {r.rotor}, {c.case} ({c.unbalanceMode})
+                  </td>
+                  <td className="text-xs">{i + 1}</td>
+                  {f.map((v, axis) => (
+                    <td key={axis} className="text-right font-mono text-xs">
+                      {u.toResultText("force", v)} {u.unitLabel("force")}
+                    </td>
+                  ))}
+                </tr>
+              )),
+            ),
+          )}
+        </tbody>
+      </table>
+      <p className="text-2xs text-basalt-400">{springs.transmissibilitySource}</p>
     </div>
   );
 }

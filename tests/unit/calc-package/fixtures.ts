@@ -8,7 +8,7 @@ import { analyse, parseAnalysisInput, type AnalysisInput } from "@/modules/calc"
 import type { RevisionPackageData } from "@/modules/calc-package";
 import type { UnitSystemKey } from "@/modules/units";
 
-export function exampleInput(name: "raw-water-pump-train" | "aeration-blower"): AnalysisInput {
+export function exampleInput(name: "raw-water-pump-train" | "aeration-blower" | "fan-on-springs"): AnalysisInput {
   const parsed = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", `${name}.json`), "utf8")));
   if (!parsed.ok) throw new Error(`example ${name} is not valid`);
   return parsed.input;

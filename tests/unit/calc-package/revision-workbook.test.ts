@@ -23,6 +23,22 @@ describe("revision workbook", () => {
     }
   }
 
+  it("a block on steel springs: the inputs list the springs and the springs sheet reads back the static deflection, isolation and spring forces (issue 16)", async () => {
+    const d = packageData(exampleInput("fan-on-springs"));
+    const wb = await roundTrip(await revisionWorkbookBytes(d));
+    expectRevisionNumbers(wb, d.input, d.result);
+    const sr = d.result.springs!;
+    const inputs = readTables(wb.getWorksheet(PACKAGE_SHEETS.inputs) as ExcelJS.Worksheet);
+    const springsTable = inputs.find((t) => t.title.startsWith("Steel springs"));
+    expect(springsTable?.rows).toHaveLength(4);
+    const sheet = readTables(wb.getWorksheet(PACKAGE_SHEETS.springs) as ExcelJS.Worksheet);
+    const iso = tableByTitle(sheet, "Isolation per operating speed (vertical mode as SDOF)");
+    const col = iso.headers.findIndex((h) => h.startsWith("Isolation efficiency"));
+    expect(iso.rows.map((r) => Number(r[col]))).toEqual(sr.rotors[0]!.isolation.map((row) => expect.closeTo(row.isolationEfficiency, 3)));
+    const forces = tableByTitle(sheet, "Force amplitude in each spring at the rated speed");
+    expect(forces.rows).toHaveLength(sr.rotors[0]!.springForces.length * 4);
+  });
+
   it("the checks sheet lists the band checks and shows an accepted band failure as a failure with its justification", async () => {
     const input = exampleInput("raw-water-pump-train");
     const key = "frequency-separation@soil-upper/Motor RWM-101/rotor/mode-6";
