@@ -177,8 +177,14 @@ export function gazetasSidewallDashpots(rho: number, Vs: number, nu: number, b: 
   const vla = lysmerAnalogVelocity(Vs, nu);
   // I_wce c1 in log form: (d/D)^(-a0/2) alone overflows for a thin wall at high a0, while the
   // product with I_wce ~ d^3 stays small.
-  const wallTerm = (I: number, span: number) =>
-    I === 0 ? 0 : 0.25 * I + 0.65 * Math.sqrt(a0) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a0 / 2) * Math.log(d / D));
+  // For a wall far thinner than the embedment the factor (d/D)^(-a0/2) grows without bound at
+  // high a0 (outside the charts' range) and can overflow; an overflowing frequency term is
+  // dropped, leaving 0.25 I (less damping: the safe side), so the solver never sees Infinity.
+  const wallTerm = (I: number, span: number) => {
+    if (I === 0) return 0;
+    const dynamic = 0.65 * Math.sqrt(a0) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a0 / 2) * Math.log(d / D));
+    return 0.25 * I + (Number.isFinite(dynamic) ? dynamic : 0);
+  };
   return {
     x: rho * Vs * 4 * L * d + rho * vla * 4 * B * d,
     y: rho * Vs * 4 * B * d + rho * vla * 4 * L * d,

@@ -139,6 +139,24 @@ describe("published coefficients in the analysis", () => {
     expect(w.t).toBe(0);
     expect(gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 1, 0, a0).z).toBe(0);
   });
+
+  it("sidewall rocking dashpot of a wall far thinner than the embedment stays finite at high a0 (the overflowing frequency term is dropped, 0.25 I_wce kept)", () => {
+    // found by the property test: d = 1.35e-108 m under D = 5.3e-12 m, where (d/D)^(-a0/2) overflows
+    const b = { L: 5, B: 3.48, area: 69.6, Ibx: (10 * 6.96 ** 3) / 12, Iby: (6.96 * 1000) / 12, Jt: 0 };
+    const d = 1.35e-108;
+    const D = 5.28e-12;
+    const w = gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, D, d, 40);
+    for (const v of Object.values(w)) expect(Number.isFinite(v)).toBe(true);
+    const vla = lysmerAnalogVelocity(VS, NU);
+    // and a whole analysis of that input runs through the sweep (it threw "singular" before)
+    const doc: AnalysisInputDocument = {"schemaVersion": 1, "block": {"concreteDensity": 2400, "solids": [{"name": "mat", "x": [-4.999999999999999, 4.999999999999999], "y": [-3.480779133027754, 3.480779133027754], "z": [0, 0.4518324224125717]}, {"name": "pedestal", "x": [-2.4999999999999996, 2.4999999999999996], "y": [-1.740389566513877, 1.724163616286562e-44], "z": [0.4518324224125717, 0.9518324224125717]}, {"name": "pit", "x": [1.2499999999999998, 3.3333333333333326], "y": [-2.320519422018503, -0.8701947832569386], "z": [0.22591621120628586, 0.4518324224125717], "void": true}]}, "soil": {"shearModulus": 10000000, "poissonRatio": 0.05, "density": 1500, "materialDamping": 0, "allowableBearingPressure": 200000, "embedmentDepth": 5.2801154851440686e-12, "sidewallContactHeight": 1.3518179858534572e-108}, "impedance": {"method": "gazetas"}, "machines": [{"name": "machine 1", "mass": 300, "cg": [-2.8766536962105207e-165, 1.724163616286562e-44, 0.6518324224125718], "rotors": []}], "checkPoints": [{"name": "corner", "position": [4.999999999999999, 3.480779133027754, 0.4518324224125717]}], "sweep": {"fromHz": 0.5, "toHz": 80, "points": 40}};
+    const parsed = parseAnalysisInput(doc);
+    expect(parsed.ok).toBe(true);
+    if (parsed.ok) expect(analyse(parsed.input).modes.length).toBe(6);
+    // a moderate case keeps the published frequency term
+    const moderate = gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 1, 0.5, 3);
+    expect(moderate.rx).toBeGreaterThan(RHO_SOIL * vla * 0.25 * ((4 * 5 * 0.5 ** 3) / 3) * 1.5);
+  });
 });
 
 describe("embedment factors against a second statement (Gazetas 1991 Table 2; geofound restatement; Mylonakis et al. 2006)", () => {
