@@ -104,8 +104,8 @@ export interface DraftForm {
     /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
     springsDampingRatio?: Num;
     dampingRatio: Dof6Form;
-    /** Gazetas only: the published dynamic coefficients (default) or the simplified k = 1, c = 1. */
-    gazetasDynamic: "published" | "simplified";
+    /** Gazetas only: the paper's charts (default), Pais & Kausel's closed forms, or the simplified k = 1, c = 1. */
+    gazetasDynamic: "published" | "pais-kausel" | "simplified";
   };
   machines: MachineForm[];
   checkPoints: { name: string; position: Vec3Form }[];
@@ -405,8 +405,8 @@ export function toInputDocument(f: DraftForm): unknown {
               springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
               ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
             }
-          : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
-          ? { method: "gazetas", gazetasDynamic: "simplified" }
+          : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic !== "published"
+          ? { method: "gazetas", gazetasDynamic: f.impedance.gazetasDynamic }
           : { method: f.impedance.method },
     machines: f.machines.map((m) => ({
       name: m.name,

@@ -191,6 +191,16 @@ describe("the options in the analysis", () => {
     expect(r.warnings.some((w) => w.includes("Lysmer-analog limit 1"))).toBe(false);
   });
 
+  it("keeps the a0 > 1.5 warnings and adds, for the charts only, that their coefficients are held beyond a0 = 2", () => {
+    // sweep to 50 Hz on B = 1.5 m: a0 = 1.5 at 1.5 Vs / (2 pi 1.5) = 28.3 Hz
+    const def = run(doc).warnings.find((w) => w.startsWith("Sweep: above"));
+    expect(def).toContain("exceeds 1.5");
+    expect(def).toContain("held at that value beyond");
+    const pk = run({ ...doc, impedance: { method: "gazetas", gazetasDynamic: PK } }).warnings.find((w) => w.startsWith("Sweep: above"));
+    expect(pk).toContain("exceeds 1.5");
+    expect(pk).not.toContain("held at that value");
+  });
+
   it("warns when L/B lies beyond the charts' curves (c_t ends at L/B = 6, the others at 10), not inside them", () => {
     const inside = run(doc);
     expect(inside.warnings.some((w) => w.startsWith("Gazetas (1991) charts: L/B"))).toBe(false);

@@ -27,6 +27,17 @@ describe("the design form keeps the ground below the base", () => {
     expect(parsed(toInputDocument(form))).toEqual(input);
   });
 
+  it("the pais-kausel option survives form -> document, and the default charts stay implicit (no key written)", () => {
+    const base = read("gazetas-embedded");
+    const pk = parsed({ ...base, impedance: { method: "gazetas" as const, gazetasDynamic: "pais-kausel" as const } });
+    const form = formFromInput(pk);
+    expect(form.impedance.gazetasDynamic).toBe("pais-kausel");
+    expect(parsed(toInputDocument(form))).toEqual(pk);
+    const def = formFromInput(parsed({ ...base, impedance: { method: "gazetas" as const } }));
+    expect(def.impedance.gazetasDynamic).toBe("published");
+    expect((toInputDocument(def) as AnalysisInputDocument).impedance).toEqual({ method: "gazetas" });
+  });
+
   it("borehole layers (one given by G) survive form -> document; the top-level Vs is left out", () => {
     const base = read("gazetas-layer-over-rock");
     const layers = [...base.soil.layers!, { thickness: 1, shearModulus: 1.2e8, density: 2000 }];
