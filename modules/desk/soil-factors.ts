@@ -88,12 +88,14 @@ const DYNAMIC_LABELS: Record<GazetasDynamic, string> = {
 
 /**
  * Which dynamic coefficients a Gazetas result used, read from its details (so a stored revision
- * names what its engine did: before engine 1.5.0 there is no chart flag and the default was the
- * Pais & Kausel closed forms). Null for the other methods.
+ * names what its engine did: engines 1.1.0-1.4.0 have no chart flag and their default was the
+ * Pais & Kausel closed forms; engine 1.0.0 has neither flag and used k = 1, c = 1). Null for the
+ * other methods.
  */
 export function dynamicCoefficientSource(imp: ImpedanceResult): DynamicCoefficientSource | null {
   if (imp.method !== "gazetas") return null;
   const d = imp.details ?? {};
-  const option: GazetasDynamic = d.publishedDynamicCoefficients === 0 ? "simplified" : d.chartDynamicCoefficients === 1 ? "published" : "pais-kausel";
+  // no flag at all: an engine before issue 13, which took k = 1, c = 1
+  const option: GazetasDynamic = d.publishedDynamicCoefficients !== 1 ? "simplified" : d.chartDynamicCoefficients === 1 ? "published" : "pais-kausel";
   return { option, label: DYNAMIC_LABELS[option], source: GAZETAS_DYNAMIC_SOURCES[option] };
 }

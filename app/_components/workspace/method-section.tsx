@@ -65,7 +65,7 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
           </label>
           <label className="flex items-start gap-2 text-sm">
             <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "pais-kausel"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "pais-kausel")} className="mt-1" />
-            <span>Pais &amp; Kausel closed forms (1988, as reprinted in NIST GCR 12-917-21), with sidewall dashpots when embedded (more rocking damping than the charts on a squarish base at a0 = 1-2)</span>
+            <span>Pais &amp; Kausel closed forms (1988, as reprinted in NIST GCR 12-917-21), with sidewall dashpots when embedded (more rocking damping than the charts on a squarish base at a0 = 1-2: the unsafe side there)</span>
           </label>
           <label className="flex items-start gap-2 text-sm">
             <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "simplified"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "simplified")} className="mt-1" />
