@@ -4,6 +4,7 @@
 // contract's zod schema then has the last word on the server.
 import * as yup from "yup";
 import { ACCEPTANCE_JUSTIFICATION_MAX, ACCEPTANCE_JUSTIFICATION_MIN, TRANSIENT_LIMITS, type AnalysisInputDocument } from "@/modules/calc";
+import { RAMP_TIME_DEFAULTS, ROTOR_DEFAULTS } from "./rotor-defaults";
 
 export type Num = number | null;
 export type Vec3Form = [Num, Num, Num];
@@ -142,12 +143,12 @@ export function newRotor(): RotorForm {
     speedRpm: null,
     speedRangeRpm: [null, null],
     unbalanceSource: "grade",
-    balanceGrade: 6.3,
-    // ACI 351.3R recommends a service factor of 2 for unbalance growth (recalled from memory).
-    serviceFactor: 2,
+    // The desk's defaults, with their sources (rotor-defaults.ts; the vendor template prints the same).
+    balanceGrade: ROTOR_DEFAULTS.balanceGrade.value,
+    serviceFactor: ROTOR_DEFAULTS.serviceFactor.value,
     unbalanceForce: null,
     axis: "x",
-    unbalanceMode: "static",
+    unbalanceMode: ROTOR_DEFAULTS.unbalanceMode.value,
     bearings: [
       [null, 0, null],
       [null, 0, null],
@@ -189,15 +190,18 @@ export function emptyDraftForm(): DraftForm {
 }
 
 /**
- * Placeholder run durations for a new run (s): a direct-on-line start takes seconds, a free
- * coast-down of a pump or fan a minute or more (orders of magnitude recalled from memory, not
- * from a source); the designer replaces them with the drive vendor's figures.
+ * Placeholder run durations for a new run (s) when the vendor gave none (RAMP_TIME_DEFAULTS:
+ * common practice, orders of magnitude recalled from memory); the vendor's start-up and
+ * coast-down times replace them (machine-placements.ts, rampDurationFor).
  */
-export const NEW_RUN_DURATION_S = { "run-up": 10, "coast-down": 60 } as const;
+export const NEW_RUN_DURATION_S = { "run-up": RAMP_TIME_DEFAULTS.startUpS.value, "coast-down": RAMP_TIME_DEFAULTS.coastDownS.value } as const;
 
-/** A new run of a rotor with the core's default speeds (standstill and the rated speed). */
-export function newTransientRun(machine: string, rotor: string, kind: TransientRunForm["kind"]): TransientRunForm {
-  return { machine, rotor, kind, fromRpm: null, toRpm: null, durationS: NEW_RUN_DURATION_S[kind], case: "rotating", unbalanceMode: null, outputPoints: null };
+/**
+ * A new run of a rotor with the core's default speeds (standstill and the rated speed); its
+ * duration is the vendor's time when one is on record (`durationS`), the desk's default otherwise.
+ */
+export function newTransientRun(machine: string, rotor: string, kind: TransientRunForm["kind"], durationS?: number | null): TransientRunForm {
+  return { machine, rotor, kind, fromRpm: null, toRpm: null, durationS: durationS ?? NEW_RUN_DURATION_S[kind], case: "rotating", unbalanceMode: null, outputPoints: null };
 }
 
 /** A rotor a run can name: the form's machines and rotors as they stand. */
