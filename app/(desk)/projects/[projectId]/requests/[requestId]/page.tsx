@@ -83,7 +83,7 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
         <details className="slab p-5">
           <summary className="cursor-pointer font-semibold">Or type the figures into the web form</summary>
           <div className="mt-4">
-            <MachineForm projectId={projectId} requestId={requestId} machines={prefillMachines(request.machines, newest?.machines)} action={submitMachineFormAction} />
+            <MachineForm projectId={projectId} requestId={requestId} machines={prefillMachines(request)} action={submitMachineFormAction} />
           </div>
         </details>
       ) : null}
