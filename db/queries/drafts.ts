@@ -2,7 +2,7 @@ import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
 import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
 import { parseDraftInput, type AnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
-import { readPlacements, type MachinePlacement } from "@/modules/desk/machine-placements";
+import { readPlacements, withStoredTrails, type MachinePlacement } from "@/modules/desk/machine-placements";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor } from "./projects";
@@ -106,7 +106,12 @@ export async function saveDraft(
   if (!foundation) return undefined;
   assertFoundationActive(foundation);
   const db = getDb();
-  const placementsChange = change.placements ? { machinePlacements: change.placements } : {};
+  // Datums come from the caller; vendor figures only as stored (the server writes them on take-in).
+  let placementsChange = {};
+  if (change.placements) {
+    const stored = await db.select({ placements: foundationDrafts.machinePlacements }).from(foundationDrafts).where(eq(foundationDrafts.foundationId, foundation.id)).limit(1);
+    placementsChange = { machinePlacements: withStoredTrails(change.placements, readPlacements(stored[0]?.placements)) };
+  }
   const rows =
     change.expectedVersion === 0
       ? await db

@@ -179,3 +179,16 @@ export function prefillInVendorTerms(
     return datum ? { name: entry.name, values: machineToDatum(datum, entry.values) } : { name: entry.name, values: entry.values, omitPositions: true };
   });
 }
+
+/**
+ * The placements of a save from the workspace: the datums as the designer sent them, the vendor
+ * figures only as the server stored them (a trail that is not on record, or was changed, is
+ * dropped), so the trail always shows what the vendor submitted.
+ */
+export function withStoredTrails(sent: readonly MachinePlacement[], stored: readonly MachinePlacement[]): MachinePlacement[] {
+  return sent.flatMap((p) => {
+    const trail = p.vendor ? stored.find((q) => q.vendor && q.vendor.submissionId === p.vendor?.submissionId && q.vendor.machine.name === p.vendor.machine.name)?.vendor ?? null : null;
+    if (!p.datum && !trail) return [];
+    return [{ machine: p.machine, datum: p.datum, vendor: trail }];
+  });
+}

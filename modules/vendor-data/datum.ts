@@ -9,6 +9,7 @@
 // Placing it: the origin's position in block coordinates and a rotation about the vertical
 // (0, 90, 180 or 270 degrees, counter-clockwise seen from above, from block x towards block y).
 import type { MachineInput } from "@/modules/calc/schema";
+import { formatSignificant } from "@/modules/units/format-number";
 
 export const DATUM_ROTATIONS = [0, 90, 180, 270] as const;
 export type DatumRotation = (typeof DATUM_ROTATIONS)[number];
@@ -95,5 +96,5 @@ export function machineToDatum(datum: MachineDatum, m: MachineInput): MachineInp
 }
 
 export function describeDatum(d: MachineDatum): string {
-  return `origin at (${d.origin.join(", ")}) m in block coordinates, machine x turned ${d.rotationDeg}° from block x about z`;
+  return `origin at (${d.origin.map((v) => formatSignificant(v)).join(", ")}) m in block coordinates, machine x turned ${d.rotationDeg}° from block x about z`;
 }
