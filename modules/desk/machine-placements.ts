@@ -107,7 +107,7 @@ export function takeVendorMachines(args: {
         version: submission.version,
         frame: submission.frame,
         machine: vendorMachine,
-        rampTimes: submission.rampTimes.filter((t) => t.machine === vendorMachine.name).map(({ machine: _machine, ...t }) => t),
+        rampTimes: submission.rampTimes.filter((t) => t.machine === vendorMachine.name).map((t) => ({ rotor: t.rotor, ...(t.startUpS !== undefined ? { startUpS: t.startUpS } : {}), ...(t.coastDownS !== undefined ? { coastDownS: t.coastDownS } : {}) })),
       },
     });
   });

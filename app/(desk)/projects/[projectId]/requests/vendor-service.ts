@@ -3,7 +3,6 @@ import "server-only";
 // the scoped queries, then e-mails the people concerned. Mail goes out after the data
 // committed, so a message never announces something that was rolled back.
 import { AppError } from "@/modules/platform/errors";
-import type { MachineInput } from "@/modules/calc/schema";
 import { getPublicUser, getUserByEmail } from "@/db/queries/accounts";
 import { getDraft } from "@/db/queries/drafts";
 import { getMembership, getProjectForMember, type Actor } from "@/db/queries/projects";
