@@ -98,7 +98,7 @@ beforeAll(async () => {
   // The machine's datum placed at the block's origin, unturned (template version 2 gives
   // positions from the machine datum): the figures read the same in both frames here, the
   // conversion itself is tested in vendor-datum.test.ts.
-  const sample = sampleAnalysisInput() as { machines: { name: string }[] };
+  const sample = sampleAnalysisInput() as unknown as { machines: { name: string }[] };
   const placements = sample.machines.map((m) => ({ machine: m.name, datum: { origin: [0, 0, 0] as [number, number, number], rotationDeg: 0 as const }, vendor: null }));
   const saved = await saveDraft(manager, fx.projectId, foundationId, { input: sampleAnalysisInput() as never, expectedVersion: 0, placements });
   expect(saved?.ok).toBe(true);

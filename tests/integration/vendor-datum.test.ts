@@ -32,10 +32,10 @@ let requestId: string;
 
 const actor = (role: "designer" | "manager") => ({ userId: fx.userIds[role], isAdmin: false });
 
-async function upload(cookie: string, file: Buffer, name: string): Promise<Response> {
+async function upload(cookie: string | null, file: Buffer, name: string): Promise<Response> {
   const form = new FormData();
   form.append("file", new Blob([new Uint8Array(file)]), name);
-  const headers = { host: "127.0.0.1:3100", origin: "http://127.0.0.1:3100", cookie };
+  const headers = { host: "127.0.0.1:3100", origin: "http://127.0.0.1:3100", cookie: cookie ?? "" };
   return postSubmission(new Request("http://127.0.0.1:3100/api/upload", { method: "POST", headers, body: form }), { params: Promise.resolve({ projectId: fx.projectId, requestId }) });
 }
 
