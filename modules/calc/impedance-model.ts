@@ -17,7 +17,7 @@ export interface ImpedanceContext {
 }
 
 export interface ImpedanceModel {
-  method: "equivalent-radius" | "gazetas" | "user" | "springs";
+  method: "equivalent-radius" | "gazetas" | "user" | "springs" | "piles";
   /** Static stiffness per DOF (embedment included), order x, y, z, rx, ry, rz. */
   staticStiffness: number[];
   frequencyDependent: boolean;

@@ -41,7 +41,7 @@ export interface ImpedanceCouplingTerm {
 }
 
 export interface ImpedanceResult {
-  method: "equivalent-radius" | "gazetas" | "user" | "springs";
+  method: "equivalent-radius" | "gazetas" | "user" | "springs" | "piles";
   staticStiffness: Dof6;
   stiffness: Dof6;
   dampingRatio: Dof6;

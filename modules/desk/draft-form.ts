@@ -74,6 +74,16 @@ export function newSpring(): NonNullable<DraftForm["impedance"]["springs"]>[numb
   return { x: null, y: null, kz: null, kh: null, cz: null, ch: null };
 }
 
+/** A blank pile head row of the "piles" method (issue 16). */
+export function newPileHead(): { x: Num; y: Num } {
+  return { x: null, y: null };
+}
+
+/** The pile group's fields of the "piles" method, blank. */
+export function newPilesForm(): NonNullable<DraftForm["impedance"]["piles"]> {
+  return { heads: [], diameter: null, length: null, youngsModulus: null, tip: "floating", soilProfile: "uniform", interaction: "dynamic-factors" };
+}
+
 export function newSoilLayer(): SoilLayerForm {
   return { thickness: null, shearWaveVelocity: null, shearModulus: null, density: null, poissonRatio: null };
 }
@@ -97,8 +107,18 @@ export interface DraftForm {
     layers: SoilLayerForm[];
   };
   impedance: {
-    method: "equivalent-radius" | "gazetas" | "user" | "springs";
+    method: "equivalent-radius" | "gazetas" | "user" | "springs" | "piles";
     stiffness: Dof6Form;
+    /** Piles only (issue 16): pile heads in plan, pile section and length, tip, soil profile along the shaft. */
+    piles?: {
+      heads: { x: Num; y: Num }[];
+      diameter: Num;
+      length: Num;
+      youngsModulus: Num;
+      tip: "floating" | "end-bearing";
+      soilProfile: "uniform" | "linear";
+      interaction: "dynamic-factors" | "none";
+    };
     /** Steel springs only (issue 16): plan position, catalogue kz and kh, optional dampers. */
     springs?: { x: Num; y: Num; kz: Num; kh: Num; cz: Num; ch: Num }[];
     /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
@@ -284,6 +304,19 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
             springsDampingRatio: imp.dampingRatio ?? null,
           }
         : {}),
+      ...(imp.method === "piles"
+        ? {
+            piles: {
+              heads: imp.piles.map((p) => ({ x: p.x, y: p.y })),
+              diameter: imp.diameter,
+              length: imp.length,
+              youngsModulus: imp.youngsModulus,
+              tip: imp.tip,
+              soilProfile: imp.soilProfile ?? "uniform",
+              interaction: imp.interaction ?? "dynamic-factors",
+            },
+          }
+        : {}),
     },
     machines: input.machines.map((m) => ({
       name: m.name,
@@ -405,6 +438,8 @@ export function toInputDocument(f: DraftForm): unknown {
               springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
               ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
             }
+          : f.impedance.method === "piles"
+            ? pilesInput(f.impedance.piles ?? newPilesForm())
           : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
           ? { method: "gazetas", gazetasDynamic: "simplified" }
           : { method: f.impedance.method },
@@ -613,4 +648,18 @@ export function formCompleteness(errors: unknown): "complete" | "incomplete" | "
   const messages = errorMessages(errors);
   if (!messages.length) return "complete";
   return messages.every(isMissingMessage) ? "incomplete" : "invalid";
+}
+
+/** The contract's "piles" impedance from the form (defaults left out, so a stored input reads back as typed). */
+function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
+  return {
+    method: "piles" as const,
+    piles: p.heads.map((h) => ({ x: h.x, y: h.y })),
+    diameter: p.diameter,
+    length: p.length,
+    youngsModulus: p.youngsModulus,
+    tip: p.tip,
+    ...(p.soilProfile !== "uniform" ? { soilProfile: p.soilProfile } : {}),
+    ...(p.interaction !== "dynamic-factors" ? { interaction: p.interaction } : {}),
+  };
 }
