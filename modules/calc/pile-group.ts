@@ -21,6 +21,7 @@
 // Pile heads lie at the base plane of O (z = 0): the cap's underside. The kinematics of each
 // head, u_i = U + Theta x p_i with p_i = (x_i, y_i, z_h), keep the lever arm z_h for generality;
 // with z_h = 0 it adds nothing, and the sway-rocking coupling at O is the piles' own -K_HM.
+import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import {
   pileHeadDynamic,
   pileHeadStatic,
@@ -231,6 +232,66 @@ export interface PileGroupModel {
   interactionVelocity: number;
   /** K(w), C(w) at O, row-major 6 x 6 (before the engine's (1 + 2 i beta) on K). */
   evaluate(omega: number, K: Float64Array, C: Float64Array): void;
+  /** Of the last evaluate: the most negative eigenvalue of the radiation dashpot matrix that was set to 0 (0: none). */
+  lastRadiationClamp(): number;
+}
+
+/** Exact symmetry (round-off in the sums). */
+function symmetrise(K: Float64Array, C: Float64Array): void {
+  for (let i = 0; i < 6; i++) {
+    for (let j = i + 1; j < 6; j++) {
+      const k = ((K[i * 6 + j] as number) + (K[j * 6 + i] as number)) / 2;
+      const c = ((C[i * 6 + j] as number) + (C[j * 6 + i] as number)) / 2;
+      K[i * 6 + j] = k;
+      K[j * 6 + i] = k;
+      C[i * 6 + j] = c;
+      C[j * 6 + i] = c;
+    }
+  }
+}
+
+/** C += (-2 beta lambda / w) v v^T for each eigenpair of K with lambda < 0: 2 beta K + w C has no negative material part. */
+function cancelNegativeMaterial(K: Float64Array, C: Float64Array, beta: number, omega: number): boolean {
+  const m = new Matrix(6, 6);
+  for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) m.set(i, j, K[i * 6 + j] as number);
+  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: true });
+  const values = evd.realEigenvalues;
+  if (!values.some((v) => v < 0)) return false;
+  const V = evd.eigenvectorMatrix;
+  values.forEach((lambda, e) => {
+    if (!(lambda < 0)) return;
+    const f = (-2 * beta * lambda) / omega;
+    for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) C[i * 6 + j] = (C[i * 6 + j] as number) + f * V.get(i, e) * V.get(j, e);
+  });
+  return true;
+}
+
+/**
+ * The nearest positive semidefinite matrix (Frobenius norm) of a symmetric 6 x 6 in place: its
+ * negative eigenvalues set to 0 (Higham 1988, "Computing a nearest symmetric positive
+ * semidefinite matrix", Linear Algebra Appl. 103). Eigenvalues above -1e-12 of the largest are
+ * round-off and left. Returns the most negative eigenvalue removed (0: C unchanged).
+ */
+export function clampPositiveSemidefinite(C: Float64Array): number {
+  const m = new Matrix(6, 6);
+  for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) m.set(i, j, C[i * 6 + j] as number);
+  const evd = new EigenvalueDecomposition(m, { assumeSymmetric: true });
+  const values = evd.realEigenvalues;
+  const top = Math.max(...values.map(Math.abs));
+  const least = Math.min(...values);
+  if (!(least < -1e-12 * top)) return 0;
+  const V = evd.eigenvectorMatrix;
+  for (let i = 0; i < 6; i++) {
+    for (let j = 0; j < 6; j++) {
+      let sum = 0;
+      for (let e = 0; e < 6; e++) {
+        const lambda = values[e] as number;
+        if (lambda > 0) sum += V.get(i, e) * lambda * V.get(j, e);
+      }
+      C[i * 6 + j] = sum;
+    }
+  }
+  return least;
 }
 
 /** Adds Z Q (Z = k + i w c; Q = qRe + i qIm) into K + i w C: K += k qRe - w c qIm, C += k qIm / w + c qRe. */
@@ -284,9 +345,11 @@ export function pileGroupModel({ spec, soil, geo, beta, interaction }: PileGroup
     cacheOmega = omega;
     return cache;
   };
+  let lastClamp = 0;
   return {
     single,
     interactionVelocity: vsInteraction,
+    lastRadiationClamp: () => lastClamp,
     evaluate(omega, K, C) {
       K.fill(0);
       C.fill(0);
@@ -298,21 +361,29 @@ export function pileGroupModel({ spec, soil, geo, beta, interaction }: PileGroup
       // at w = 0 the imaginary parts themselves vanish: use Q's real part and the Im/w limit only
       const vIm = omega > 0 ? q.vIm : zero36;
       const hIm = omega > 0 ? q.hIm : zero36;
-      addTerm(K, C, z.v, 1, q.vRe, vIm, vOver, omega);
-      addTerm(K, C, z.hh, 1, q.hRe, hIm, hOver, omega);
-      addTerm(K, C, z.mm, 1, rot, zero36, zero36, omega);
-      addTerm(K, C, z.hm, 1, cross, zero36, zero36, omega);
-      // exact symmetry (round-off in the sums)
-      for (let i = 0; i < 6; i++) {
-        for (let j = i + 1; j < 6; j++) {
-          const k = ((K[i * 6 + j] as number) + (K[j * 6 + i] as number)) / 2;
-          const c = ((C[i * 6 + j] as number) + (C[j * 6 + i] as number)) / 2;
-          K[i * 6 + j] = k;
-          K[j * 6 + i] = k;
-          C[i * 6 + j] = c;
-          C[j * 6 + i] = c;
-        }
-      }
+      // radiation first (the single piles' radiation dashpots and the interaction's wave terms)
+      const rad = (t: ImpedanceTerm): ImpedanceTerm => ({ k: t.k, c: t.c - t.cMaterial, cMaterial: 0 });
+      addTerm(K, C, rad(z.v), 1, q.vRe, vIm, vOver, omega);
+      addTerm(K, C, rad(z.hh), 1, q.hRe, hIm, hOver, omega);
+      addTerm(K, C, rad(z.mm), 1, rot, zero36, zero36, omega);
+      addTerm(K, C, rad(z.hm), 1, cross, zero36, zero36, omega);
+      symmetrise(K, C);
+      // passivity: the superposition can give a radiation dashpot matrix with negative directions
+      // (rocking and torsion of a close group at low frequency, where the piles' waves cancel);
+      // a support cannot radiate negative energy, so those directions get none (the safe side:
+      // less damping, never a negative dashpot)
+      lastClamp = clampPositiveSemidefinite(C);
+      if (lastClamp !== 0) symmetrise(K, C);
+      // then the lateral terms' material-damping correction (Gazetas' m beta instead of the engine's beta)
+      const mat = (t: ImpedanceTerm): ImpedanceTerm => ({ k: 0, c: t.cMaterial, cMaterial: t.cMaterial });
+      addTerm(K, C, mat(z.hh), 1, q.hRe, hIm, zero36, omega);
+      addTerm(K, C, mat(z.mm), 1, rot, zero36, zero36, omega);
+      addTerm(K, C, mat(z.hm), 1, cross, zero36, zero36, omega);
+      symmetrise(K, C);
+      // the engine's material damping K (1 + 2 i beta): where the group's dynamic stiffness has a
+      // negative direction (near a group resonance of the interaction waves) it would be a negative
+      // dashpot; that direction gets no material damping (the safe side, passive)
+      if (beta > 0 && omega > 0 && cancelNegativeMaterial(K, C, beta, omega)) symmetrise(K, C);
     },
   };
 }

@@ -191,6 +191,8 @@ export function verticalRodImpedance(spec: PileSpec, soil: PileSoil, omega: numb
 export interface ImpedanceTerm {
   k: number;
   c: number;
+  /** The part of c that corrects the engine's material damping (lateral terms; 0 otherwise), included in c. */
+  cMaterial: number;
 }
 
 export interface PileHeadDynamic {
@@ -216,7 +218,7 @@ export function pileHeadDynamic(spec: PileSpec, soil: PileSoil, stat: PileHeadSt
     // 2 K xi / w with xi = cf (f d / Vs) Lambda^e, f = w / 2 pi
     const radiation = (k * cf * d * stat.stiffnessRatio ** e) / (Math.PI * vs);
     const material = omega > 0 ? (-2 * (1 - m) * beta * k) / omega : 0;
-    return { k, c: radiation + material };
+    return { k, c: radiation + material, cMaterial: material };
   };
   // vertical rod: c = Im Z / w, at w = 0 its limit (Im Z is proportional to w there)
   const zv = verticalRodImpedance(spec, soil, omega);
@@ -224,7 +226,7 @@ export function pileHeadDynamic(spec: PileSpec, soil: PileSoil, stat: PileHeadSt
   const kv = zv[0];
   const cv = (omega > 0 ? zv[1] : (verticalRodImpedance(spec, soil, wc)[1] as number)) / wc;
   return {
-    v: { k: kv, c: cv },
+    v: { k: kv, c: cv, cMaterial: 0 },
     hh: lateral(stat.khh, dmp.hh),
     mm: lateral(stat.kmm, dmp.mm),
     hm: lateral(stat.khm, dmp.hm),
