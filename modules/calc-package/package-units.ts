@@ -5,7 +5,7 @@
 // carries decimals here.
 import { convertValue, quantityKinds, type QuantityKindKey, type UnitInfo, type UnitSystemKey } from "@/modules/units";
 
-type ExtraKind = "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "count" | "couplingStiffness" | "couplingDashpot";
+type ExtraKind = "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "count" | "couplingDashpot";
 export type PackageKind = QuantityKindKey | ExtraKind;
 
 // Sizes taken from the quantity table, so that one foot or one pound-force is the same here.
@@ -21,8 +21,7 @@ const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo }> =
   // Speed ramps (start-up and coast-down): the rate of change of the shaft speed.
   angularAcceleration: { base: { symbol: "rad/s²", siValue: 1 }, si: { symbol: "rad/s²", siValue: 1 }, us: { symbol: "rad/s²", siValue: 1 } },
   count: { base: { symbol: "", siValue: 1 }, si: { symbol: "", siValue: 1 }, us: { symbol: "", siValue: 1 } },
-  // Sway-rocking coupling terms of a pile group (force per rotation, moment per displacement).
-  couplingStiffness: { base: { symbol: "N/rad", siValue: 1 }, si: { symbol: "MN/rad", siValue: 1e6 }, us: { symbol: "kip/rad", siValue: 1000 * poundForce } },
+  // Sway-rocking coupling dashpot of a pile group (the stiffness is in the desk's table, couplingStiffness).
   couplingDashpot: { base: { symbol: "N·s/rad", siValue: 1 }, si: { symbol: "kN·s/rad", siValue: 1e3 }, us: { symbol: "kip·s/rad", siValue: 1000 * poundForce } },
 };
 

@@ -644,6 +644,23 @@ export const draftFormSchema = yup.object({
     embedmentDepth: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
     sidewallContactHeight: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
   }),
+  impedance: yup.object({
+    method: yup.string(),
+    // method "piles": blanks make the draft incomplete (it saves, the analysis waits)
+    piles: yup
+      .object()
+      .default(undefined)
+      .when("method", {
+        is: "piles",
+        then: () =>
+          yup.object({
+            diameter: positive("pile diameter"),
+            length: positive("pile length"),
+            youngsModulus: positive("Young's modulus of the pile"),
+            heads: yup.array().of(yup.object({ x: coordinate, y: coordinate })).min(2, required("at least two piles")),
+          }),
+      }),
+  }),
   machines: yup
     .array()
     .of(
@@ -720,4 +737,17 @@ function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
     ...(p.soilProfile !== "uniform" ? { soilProfile: p.soilProfile } : {}),
     ...(p.interaction !== "dynamic-factors" ? { interaction: p.interaction } : {}),
   };
+}
+
+/**
+ * The form field of an engine issue path where the two differ (method "piles": the engine's
+ * impedance.diameter is the form's impedance.piles.diameter, impedance.piles[1] the second
+ * pile's row); other paths are returned unchanged.
+ */
+export function formFieldOfIssue(path: string, method: DraftForm["impedance"]["method"]): string {
+  if (method !== "piles") return path;
+  const head = /^impedance\.piles\[(\d+)\](?:\.(x|y))?$/.exec(path);
+  if (head) return `impedance.piles.heads.${head[1]}.${head[2] ?? "x"}`;
+  const field = /^impedance\.(diameter|length|youngsModulus|tip|soilProfile|interaction)$/.exec(path);
+  return field ? `impedance.piles.${field[1]}` : path;
 }
