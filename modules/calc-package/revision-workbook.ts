@@ -392,7 +392,7 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
     w.pairs("Single pile and group (sources: Gazetas 1991; Randolph & Wroth 1978; Dobry & Gazetas 1988)", [
       { label: "Ep / Es", value: pd.stiffnessRatio ?? null, kind: "ratio" },
       { label: "Active length La (Gazetas 1991, recalled)", value: pd.activeLength ?? null, kind: "length" },
-      { label: "Pile vertical stiffness (Randolph & Wroth 1978)", value: pd.pileVerticalStiffness ?? null, kind: "stiffness" },
+      { label: "Pile vertical stiffness, static (Randolph & Wroth 1978 load transfer)", value: pd.pileVerticalStiffness ?? null, kind: "stiffness" },
       { label: "Pile lateral stiffness K_HH (Gazetas 1991)", value: pd.pileLateralStiffness ?? null, kind: "stiffness" },
       { label: "Pile rocking stiffness K_MM (Gazetas 1991)", value: pd.pileRockingStiffness ?? null, kind: "rotationalStiffness" },
       { label: "Pile cross stiffness K_x,ry (Gazetas 1991)", value: pd.pileCrossStiffness ?? null, kind: "couplingStiffness" },

@@ -281,7 +281,7 @@ function PilesTable({ imp }: { imp: AnalysisResult["impedance"] }) {
           {row("Number of piles", d.pileCount, null)}
           {row("Stiffness ratio Ep/Es", d.stiffnessRatio, null)}
           {row("Active length La (Gazetas 1991)", d.activeLength, "length")}
-          {row("Pile vertical stiffness (Randolph & Wroth 1978)", d.pileVerticalStiffness, "stiffness")}
+          {row("Pile vertical stiffness, static (Randolph & Wroth 1978 load transfer)", d.pileVerticalStiffness, "stiffness")}
           {row("Pile lateral stiffness K_HH", d.pileLateralStiffness, "stiffness")}
           {row("Pile rocking stiffness K_MM", d.pileRockingStiffness, "rotationalStiffness")}
           {row("Pile cross stiffness K_x,ry", d.pileCrossStiffness, "couplingStiffness")}
