@@ -80,3 +80,22 @@ describe("a comparison names the pile inputs", () => {
     expect(kindOfPath("sizing.length")).toBeUndefined();
   });
 });
+
+describe("comparing two revisions of a pile cap", () => {
+  it("lists the changed pile length and Ep as inputs, in their units, with the change", async () => {
+    const { analyse } = await import("@/modules/calc");
+    const { readableDiff } = await import("@/modules/revisions/readable-diff");
+    const a = example();
+    const b = { ...a, impedance: { ...(a.impedance as object), length: 16, youngsModulus: 3.4e10 } };
+    const side = (doc: AnalysisInputDocument) => ({ input: doc, result: analyse(parsed(doc)) });
+    const d = readableDiff(side(a), side(b as AnalysisInputDocument), "si");
+    const length = d.inputs.find((r) => r.path === "impedance.length");
+    expect(length?.label).toContain("pile length");
+    expect(length?.unit).toBe("m");
+    expect(length?.oldText).toBe("14.00");
+    expect(length?.newText).toBe("16.00");
+    const ep = d.inputs.find((r) => r.path === "impedance.youngsModulus");
+    expect(ep?.unit).toBe("MPa");
+    expect(ep?.deltaText).toBe("+4,000");
+  });
+});
