@@ -13,6 +13,8 @@ export const PILE_DENSITY_DEFAULT = 2500;
 export const PILE_STIFFNESS_RATIO_RANGE = [100, 10000] as const;
 /** Smallest centre-to-centre spacing accepted, in diameters (the interaction factors are for separated shafts; common practice). */
 export const PILE_MIN_SPACING_DIAMETERS = 2;
+/** Frequencies probed for the passivity warning: from, to (Hz) and the ratio between steps (engine choice, 25 points). */
+export const CLAMP_PROBE_HZ = [0.5, 100, 1.247] as const;
 
 export function pileSoilOf(ctx: ImpedanceContext): { shearModulus: number; density: number; poissonRatio: number } {
   return { shearModulus: ctx.soil.shearModulus, density: ctx.soil.density, poissonRatio: ctx.soil.poissonRatio };
@@ -46,6 +48,23 @@ export function pilesImpedance(ctx: ImpedanceContext, input: PilesImpedanceInput
   }
   const K = new Float64Array(36);
   const C = new Float64Array(36);
+  // where superposition gives negative radiation directions (set to none, pile-group.ts), say so
+  const ranges: [number, number][] = [];
+  let previous = false;
+  for (let f = CLAMP_PROBE_HZ[0]; f <= CLAMP_PROBE_HZ[1] * 1.0001; f *= CLAMP_PROBE_HZ[2]) {
+    group.evaluate(2 * Math.PI * f, K, C);
+    const now = group.lastRadiationClamp() < 0;
+    if (now && previous) (ranges[ranges.length - 1] as [number, number])[1] = f;
+    else if (now) ranges.push([f, f]);
+    previous = now;
+  }
+  if (ranges.length) {
+    const hz = (f: number) => f.toPrecision(3);
+    const where = ranges.map(([a, b]) => (a === b ? `${hz(a)} Hz` : `${hz(a)} to ${hz(b)} Hz`)).join(", ");
+    warnings.push(
+      `Piles: at ${where} (probed from ${CLAMP_PROBE_HZ[0]} to ${CLAMP_PROBE_HZ[1]} Hz) the group's radiation dashpots from superposition had negative directions (piles moving out of phase cancel each other's waves); those directions are given no radiation damping, never a negative one (the safe side).`,
+    );
+  }
   const k0 = new Float64Array(36);
   const c0 = new Float64Array(36);
   group.evaluate(0, k0, c0);

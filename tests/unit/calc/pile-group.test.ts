@@ -173,6 +173,11 @@ describe("the pile-cap example through the engine", () => {
     const xry = coupling.find((c) => c.dofs[0] === "x" && c.dofs[1] === "ry");
     expect(xry?.stiffness).toBeLessThan(0);
     expect(r.impedance.details?.groupEfficiencyVertical).toBeLessThan(1);
+    // the passivity clamp is named where it acts (rocking and torsion of this close group below about 11 Hz)
+    expect(r.warnings.some((w) => w.startsWith("Piles: at 0.500 to 11.0 Hz") && w.includes("no radiation damping"))).toBe(true);
+    const alone = parseAnalysisInput(withPiles({ interaction: "none" }));
+    if (!alone.ok) throw new Error(JSON.stringify(alone.issues));
+    expect(analyse(alone.input).warnings.some((w) => w.includes("no radiation damping"))).toBe(false);
   });
 });
 
