@@ -4,7 +4,9 @@
 // (pile-group.ts). The impedance is a full 6 x 6 K(w), C(w): a pile group couples sway and
 // rocking (K_x,ry, K_y,rx) and, for an unsymmetric layout, any pair of DOFs.
 import type { ImpedanceContext, ImpedanceModel } from "./impedance-model";
+import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { pileGroupModel } from "./pile-group";
+import type { SoilProperties } from "./soil";
 import type { PilesImpedanceInput } from "./schema";
 
 /** Density of a reinforced-concrete pile when the input gives none (kg/m^3; recalled, common practice). */
@@ -20,7 +22,8 @@ export function pileSoilOf(ctx: ImpedanceContext): { shearModulus: number; densi
   return { shearModulus: ctx.soil.shearModulus, density: ctx.soil.density, poissonRatio: ctx.soil.poissonRatio };
 }
 
-export function pilesImpedance(ctx: ImpedanceContext, input: PilesImpedanceInput, origin: [number, number]): ImpedanceModel {
+/** The pile group of an input at soil properties `soil`, heads relative to O. */
+function groupOf(input: PilesImpedanceInput, soil: Pick<SoilProperties, "shearModulus" | "density" | "poissonRatio" | "materialDamping">, origin: [number, number]) {
   const spec = {
     diameter: input.diameter,
     length: input.length,
@@ -29,11 +32,31 @@ export function pilesImpedance(ctx: ImpedanceContext, input: PilesImpedanceInput
     tip: input.tip,
     profile: input.soilProfile ?? "uniform",
   } as const;
-  const soil = pileSoilOf(ctx);
   const x = Float64Array.from(input.piles, (p) => p.x - origin[0]);
   const y = Float64Array.from(input.piles, (p) => p.y - origin[1]);
   const interaction = (input.interaction ?? "dynamic-factors") === "dynamic-factors";
-  const group = pileGroupModel({ spec, soil, geo: { x, y, zh: 0 }, beta: ctx.soil.materialDamping, interaction });
+  return pileGroupModel({ spec, soil: { shearModulus: soil.shearModulus, density: soil.density, poissonRatio: soil.poissonRatio }, geo: { x, y, zh: 0 }, beta: soil.materialDamping, interaction });
+}
+
+/**
+ * The least eigenvalue of the group's real dynamic stiffness K(w) at O over its largest (a
+ * negative value: K has a negative direction at w). The modes are taken with K at the first
+ * rotor's rated speed; a negative direction there has no natural frequency, so the input is
+ * refused (input-consistency.ts) rather than given a mode at 0 Hz that would pass the
+ * separation check.
+ */
+export function pilesStiffnessSign(input: PilesImpedanceInput, soil: Pick<SoilProperties, "shearModulus" | "density" | "poissonRatio" | "materialDamping">, origin: [number, number], omega: number): number {
+  const K = new Float64Array(36);
+  const C = new Float64Array(36);
+  groupOf(input, soil, origin).evaluate(omega, K, C);
+  const m = new Matrix(6, 6);
+  for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) m.set(i, j, K[i * 6 + j] as number);
+  const values = new EigenvalueDecomposition(m, { assumeSymmetric: true }).realEigenvalues;
+  return Math.min(...values) / Math.max(...values.map(Math.abs));
+}
+
+export function pilesImpedance(ctx: ImpedanceContext, input: PilesImpedanceInput, origin: [number, number]): ImpedanceModel {
+  const group = groupOf(input, ctx.soil, origin);
   const s = group.single;
   const warnings: string[] = [
     "Piles: the cap-soil contact is ignored (common practice): the cap's base and sidewalls add no stiffness or damping.",

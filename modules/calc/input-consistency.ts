@@ -6,7 +6,9 @@ import { loadCasesFor } from "./unbalance";
 import { resolveSweep } from "./sweep-grid";
 import { springCouplingIssues } from "./impedance-springs";
 import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
-import { PILE_MIN_SPACING_DIAMETERS } from "./impedance-piles";
+import { PILE_MIN_SPACING_DIAMETERS, pilesStiffnessSign } from "./impedance-piles";
+import { SOIL_BAND_DEFAULTS } from "./criteria-defaults";
+import { soilProperties } from "./soil";
 import { activeLength } from "./pile-single";
 
 export type PathPart = string | number;
@@ -102,6 +104,26 @@ function checkPiles(input: AnalysisInput, add: AddIssue): void {
         ["impedance", "length"],
         `the pile (${imp.length} m) is shorter than its active length La = ${la.toFixed(2)} m (Gazetas 1991): a short rigid pile is outside the flexible-pile closed forms this method uses`,
       );
+      return;
+    }
+  }
+  // The modes use K at the first rotor's rated speed, at nominal G and at the soil band's
+  // factors: a negative direction of the group's dynamic stiffness there (superposition near a
+  // group resonance of the interaction waves) has no natural frequency, and a mode at 0 Hz would
+  // pass the separation check; refused.
+  const rotor = input.machines.flatMap((m) => m.rotors)[0];
+  if (!base || !rotor || !(G > 0) || soil.stratum !== undefined || soil.layers !== undefined) return;
+  const omega = (rotor.speedRpm * 2 * Math.PI) / 60;
+  const factors = [1, input.soilBand?.lowerFactor ?? SOIL_BAND_DEFAULTS.lowerFactor, input.soilBand?.upperFactor ?? SOIL_BAND_DEFAULTS.upperFactor];
+  for (const factor of factors) {
+    if (!(factor > 0)) continue;
+    const props = soilProperties(soil, factor);
+    if (pilesStiffnessSign(imp, props, base.centroid, omega) < -1e-9) {
+      add(
+        ["impedance", "piles"],
+        `at the rated speed of rotor "${rotor.name}" (${rotor.speedRpm} rpm)${factor === 1 ? "" : ` and ${factor.toPrecision(3)} G (soil band)`} the group's dynamic stiffness from the interaction factors has a negative direction (the piles' waves arrive out of phase): its modes there are not natural frequencies and this method does not analyse it; change the spacing or the number of piles`,
+      );
+      return;
     }
   }
 }

@@ -194,6 +194,22 @@ describe("limits of the piles method are refused by field", () => {
   it("raked piles are not offered: a rake field is unknown", () => {
     expect(issuePaths(withPiles({ piles: [{ x: -1.4, y: 0, rake: 0.2 }, { x: 1.4, y: 0 }] }))).toContain("impedance.piles[0].rake");
   });
+  it("a rated speed where the group's dynamic stiffness has a negative direction (no natural frequency there; 2400 rpm for the example)", () => {
+    const fast = structuredClone(EXAMPLE);
+    const rotor = fast.machines[0]?.rotors?.[0];
+    if (!rotor) throw new Error("example has no rotor");
+    rotor.speedRpm = 2400;
+    rotor.speedRangeRpm = [1700, 2400];
+    const p = parseAnalysisInput(fast);
+    expect(p.ok).toBe(false);
+    const issue = p.ok ? undefined : p.issues.find((i) => i.path === "impedance.piles");
+    expect(issue?.message).toContain("negative direction");
+    // the group at that speed: the least eigenvalue of K is indeed negative (not a rounding artefact)
+    const K = new Float64Array(36);
+    const C = new Float64Array(36);
+    group(XS, YS, true, 0.02).evaluate((2400 * 2 * Math.PI) / 60, K, C);
+    expect(Math.min(...eigenvalues(K))).toBeLessThan(-0.05 * Math.max(...eigenvalues(K)));
+  });
   it("one pile (no torsional stiffness without pile torsion), a bad tip, a stratum under the piles", () => {
     expect(issuePaths(withPiles({ piles: [{ x: 0, y: 0 }] }))).toContain("impedance.piles");
     expect(issuePaths(withPiles({ tip: "socketed" }))).toContain("impedance.tip");
