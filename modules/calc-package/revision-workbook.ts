@@ -4,6 +4,7 @@
 // single-degree-of-freedom values are live formulas.
 import ExcelJS from "exceljs";
 import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, soilCaseText, type CheckResult, type DofKey } from "@/modules/calc";
+import { PILE_DENSITY_DEFAULT } from "@/modules/calc/impedance-piles";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
@@ -201,6 +202,7 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
       { label: "Diameter d", value: imp.diameter, kind: L },
       { label: "Length L", value: imp.length, kind: L },
       { label: "Young's modulus of the pile Ep", value: imp.youngsModulus, kind: "modulus" },
+      { label: "Pile density", value: imp.pileDensity ?? PILE_DENSITY_DEFAULT, kind: "density", note: imp.pileDensity === undefined ? "default (reinforced concrete, common practice)" : "as given" },
       { label: "Tip", value: imp.tip, note: imp.tip === "end-bearing" ? "tip on a rigid stratum" : "tip in the same soil" },
       { label: "Soil along the shaft", value: imp.soilProfile ?? "uniform", note: (imp.soilProfile ?? "uniform") === "linear" ? "G(z) = G z / d, G as given at depth d" : "G as given" },
       { label: "Pile-to-pile interaction", value: imp.interaction ?? "dynamic-factors", note: (imp.interaction ?? "dynamic-factors") === "none" ? "each pile alone" : "Dobry & Gazetas (1988)" },

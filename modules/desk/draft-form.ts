@@ -101,7 +101,7 @@ export function newPileHead(): { x: Num; y: Num } {
 
 /** The pile group's fields of the "piles" method, blank. */
 export function newPilesForm(): NonNullable<DraftForm["impedance"]["piles"]> {
-  return { heads: [], diameter: null, length: null, youngsModulus: null, tip: "floating", soilProfile: "uniform", interaction: "dynamic-factors" };
+  return { heads: [], diameter: null, length: null, youngsModulus: null, pileDensity: null, tip: "floating", soilProfile: "uniform", interaction: "dynamic-factors" };
 }
 
 export function newSoilLayer(): SoilLayerForm {
@@ -135,6 +135,8 @@ export interface DraftForm {
       diameter: Num;
       length: Num;
       youngsModulus: Num;
+      /** Blank: the engine's 2500 kg/m^3. */
+      pileDensity?: Num;
       tip: "floating" | "end-bearing";
       soilProfile: "uniform" | "linear";
       interaction: "dynamic-factors" | "none";
@@ -334,6 +336,7 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
               diameter: imp.diameter,
               length: imp.length,
               youngsModulus: imp.youngsModulus,
+              pileDensity: imp.pileDensity ?? null,
               tip: imp.tip,
               soilProfile: imp.soilProfile ?? "uniform",
               interaction: imp.interaction ?? "dynamic-factors",
@@ -657,6 +660,7 @@ export const draftFormSchema = yup.object({
             diameter: positive("pile diameter"),
             length: positive("pile length"),
             youngsModulus: positive("Young's modulus of the pile"),
+            pileDensity: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
             heads: yup.array().of(yup.object({ x: coordinate, y: coordinate })).min(2, required("at least two piles")),
           }),
       }),
@@ -733,6 +737,7 @@ function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
     diameter: p.diameter,
     length: p.length,
     youngsModulus: p.youngsModulus,
+    ...(p.pileDensity !== undefined && p.pileDensity !== null ? { pileDensity: p.pileDensity } : {}),
     tip: p.tip,
     ...(p.soilProfile !== "uniform" ? { soilProfile: p.soilProfile } : {}),
     ...(p.interaction !== "dynamic-factors" ? { interaction: p.interaction } : {}),

@@ -180,10 +180,11 @@ function PilesFields({ piles, readOnly, setFieldValue }: { piles: PilesForm; rea
         2 d (Ep/Es)^¼), at least 2 diameters apart and under the cap; raked piles, a soil layer over rock and borehole layers are not offered with this method. The cap&apos;s own
         contact with the soil is ignored (common practice). The soil&apos;s G, ν, ρ and β above are those along the shaft.
       </p>
-      <div className="grid max-w-3xl grid-cols-1 gap-3 md:grid-cols-3">
+      <div className="grid max-w-4xl grid-cols-1 gap-3 md:grid-cols-4">
         <NumberField name="impedance.piles.diameter" label="Pile diameter d" kind="length" readOnly={readOnly} />
         <NumberField name="impedance.piles.length" label="Pile length L" kind="length" readOnly={readOnly} />
         <NumberField name="impedance.piles.youngsModulus" label="Young's modulus of the pile Ep" kind="modulus" readOnly={readOnly} />
+        <NumberField name="impedance.piles.pileDensity" label="Pile density" kind="density" hint="Blank: 2500 kg/m³ (reinforced concrete, common practice)" readOnly={readOnly} />
       </div>
       <div className="grid max-w-3xl grid-cols-1 gap-3 md:grid-cols-3">
         {choice(

@@ -40,9 +40,9 @@ describe("the design form keeps the piles", () => {
     expect(parsed(toInputDocument(formFromDraftDocument(JSON.parse(JSON.stringify(example())))))).toEqual(input);
   });
 
-  it("end-bearing, linear profile and no interaction survive too", () => {
+  it("end-bearing, linear profile, no interaction and a pile density given through the API survive too", () => {
     const base = example();
-    const doc = { ...base, impedance: { ...(base.impedance as object), tip: "end-bearing", soilProfile: "linear", interaction: "none" } };
+    const doc = { ...base, impedance: { ...(base.impedance as object), tip: "end-bearing", soilProfile: "linear", interaction: "none", pileDensity: 7850 } };
     const input = parsed(doc);
     expect(parsed(toInputDocument(formFromInput(input)))).toEqual(input);
   });
