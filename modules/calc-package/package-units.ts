@@ -5,13 +5,14 @@
 // carries decimals here.
 import { convertValue, quantityKinds, type QuantityKindKey, type UnitInfo, type UnitSystemKey } from "@/modules/units";
 
-type ExtraKind = "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "count";
+type ExtraKind = "momentOfArea" | "unbalance" | "angularFrequency" | "angularAcceleration" | "count" | "couplingDashpot";
 export type PackageKind = QuantityKindKey | ExtraKind;
 
 // Sizes taken from the quantity table, so that one foot or one pound-force is the same here.
 const foot = quantityKinds.length.us.siValue;
 const inch = foot / 12;
 const pound = quantityKinds.mass.us.siValue;
+const poundForce = quantityKinds.force.us.siValue;
 
 const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo }> = {
   momentOfArea: { base: { symbol: "m⁴", siValue: 1 }, si: { symbol: "m⁴", siValue: 1 }, us: { symbol: "ft⁴", siValue: foot ** 4 } },
@@ -20,6 +21,8 @@ const extra: Record<ExtraKind, { base: UnitInfo; si: UnitInfo; us: UnitInfo }> =
   // Speed ramps (start-up and coast-down): the rate of change of the shaft speed.
   angularAcceleration: { base: { symbol: "rad/s²", siValue: 1 }, si: { symbol: "rad/s²", siValue: 1 }, us: { symbol: "rad/s²", siValue: 1 } },
   count: { base: { symbol: "", siValue: 1 }, si: { symbol: "", siValue: 1 }, us: { symbol: "", siValue: 1 } },
+  // Sway-rocking coupling dashpot of a pile group (the stiffness is in the desk's table, couplingStiffness).
+  couplingDashpot: { base: { symbol: "N·s/rad", siValue: 1 }, si: { symbol: "kN·s/rad", siValue: 1e3 }, us: { symbol: "kip·s/rad", siValue: 1000 * poundForce } },
 };
 
 function kindOf(kind: PackageKind) {

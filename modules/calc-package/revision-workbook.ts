@@ -4,6 +4,7 @@
 // single-degree-of-freedom values are live formulas.
 import ExcelJS from "exceljs";
 import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, soilCaseText, type CheckResult, type DofKey } from "@/modules/calc";
+import { PILE_DENSITY_DEFAULT } from "@/modules/calc/impedance-piles";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
 import { FACTOR_DOF_LABELS, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
@@ -44,6 +45,8 @@ export const METHOD_NAMES = {
   gazetas: "static and dynamic stiffness and radiation dashpots of a rectangular base (Gazetas 1991)",
   user: "springs and damping ratios entered by the user (geotechnical report or pile-group analysis)",
   springs: "steel springs at given positions (catalogue kz, kh typed by the designer) with dampers or a damping ratio, assembled at O; isolation by the SDOF transmissibility (Chopra, Dynamics of Structures, §3.6)",
+  piles:
+    "pile cap on vertical piles: single-pile head stiffness and damping of flexible piles (Gazetas 1991; vertical static stiffness Randolph & Wroth 1978), group at O with the dynamic interaction factors of Dobry & Gazetas (1988); full 6 x 6 impedance with the sway-rocking coupling; cap-soil contact ignored",
 } as const;
 
 const translational = (k: DofKey) => k === "x" || k === "y" || k === "z";
@@ -190,6 +193,24 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
       "Steel springs (catalogue values typed by the designer; tops on the underside of the block)",
       [{ header: "Spring", kind: "count" }, { header: "x", kind: L }, { header: "y", kind: L }, { header: "kz", kind: "stiffness" }, { header: "kh", kind: "stiffness" }, { header: "Damper cz", kind: "dashpot" }, { header: "Damper ch", kind: "dashpot" }],
       imp.springs.map((s, i) => [i + 1, s.x, s.y, s.kz, s.kh, s.cz ?? null, s.ch ?? null]),
+    );
+  }
+  if (input.impedance.method === "piles") {
+    const imp = input.impedance;
+    w.pairs("Piles (vertical, circular, solid; heads at the underside of the cap)", [
+      { label: "Number of piles", value: imp.piles.length, kind: "count" },
+      { label: "Diameter d", value: imp.diameter, kind: L },
+      { label: "Length L", value: imp.length, kind: L },
+      { label: "Young's modulus of the pile Ep", value: imp.youngsModulus, kind: "modulus" },
+      { label: "Pile density", value: imp.pileDensity ?? PILE_DENSITY_DEFAULT, kind: "density", note: imp.pileDensity === undefined ? "default (reinforced concrete, common practice)" : "as given" },
+      { label: "Tip", value: imp.tip, note: imp.tip === "end-bearing" ? "tip on a rigid stratum" : "tip in the same soil" },
+      { label: "Soil along the shaft", value: imp.soilProfile ?? "uniform", note: (imp.soilProfile ?? "uniform") === "linear" ? "G(z) = G z / d, G as given at depth d" : "G as given" },
+      { label: "Pile-to-pile interaction", value: imp.interaction ?? "dynamic-factors", note: (imp.interaction ?? "dynamic-factors") === "none" ? "each pile alone" : "Dobry & Gazetas (1988)" },
+    ]);
+    w.table(
+      "Pile heads (input coordinates)",
+      [{ header: "Pile", kind: "count" }, { header: "x", kind: L }, { header: "y", kind: L }],
+      imp.piles.map((p, i) => [i + 1, p.x, p.y]),
     );
   }
   if (input.impedance.method === "user") {
@@ -348,6 +369,39 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
     );
   table("Translations", ["x", "y", "z"], "stiffness", "dashpot");
   table("Rotations", ["rx", "ry", "rz"], "rotationalStiffness", "rotationalDashpot");
+  if (imp.coupling?.length) {
+    const kindOf = (a: DofKey, b: DofKey): [PackageKind, PackageKind] => {
+      const ta = translational(a);
+      const tb = translational(b);
+      if (ta && tb) return ["stiffness", "dashpot"];
+      if (!ta && !tb) return ["rotationalStiffness", "rotationalDashpot"];
+      return ["couplingStiffness", "couplingDashpot"];
+    };
+    w.pairs(
+      "Coupling terms of the 6 x 6 impedance at O (symmetric; each pair once)",
+      imp.coupling.flatMap((t) => {
+        const [k, c] = kindOf(t.dofs[0], t.dofs[1]);
+        const name = `${DOF_NAMES[t.dofs[0]]} / ${DOF_NAMES[t.dofs[1]]}`;
+        return [
+          { label: `${name}: stiffness`, value: t.stiffness, kind: k },
+          { label: `${name}: dashpot`, value: t.dashpot, kind: c },
+        ];
+      }),
+    );
+  }
+  const pd = imp.method === "piles" ? imp.details : undefined;
+  if (pd) {
+    w.pairs("Single pile and group (sources: Gazetas 1991; Randolph & Wroth 1978; Dobry & Gazetas 1988)", [
+      { label: "Ep / Es", value: pd.stiffnessRatio ?? null, kind: "ratio" },
+      { label: "Active length La (Gazetas 1991, recalled)", value: pd.activeLength ?? null, kind: "length" },
+      { label: "Pile vertical stiffness, static (Randolph & Wroth 1978 load transfer)", value: pd.pileVerticalStiffness ?? null, kind: "stiffness" },
+      { label: "Pile lateral stiffness K_HH (Gazetas 1991)", value: pd.pileLateralStiffness ?? null, kind: "stiffness" },
+      { label: "Pile rocking stiffness K_MM (Gazetas 1991)", value: pd.pileRockingStiffness ?? null, kind: "rotationalStiffness" },
+      { label: "Pile cross stiffness K_x,ry (Gazetas 1991)", value: pd.pileCrossStiffness ?? null, kind: "couplingStiffness" },
+      { label: "Static group efficiency, vertical", value: pd.groupEfficiencyVertical ?? null, kind: "ratio" },
+      { label: "Static group efficiency, lateral", value: pd.groupEfficiencyLateral ?? null, kind: "ratio" },
+    ]);
+  }
   const factorRows = soilFactorRows(imp);
   if (factorRows.length) {
     w.table(

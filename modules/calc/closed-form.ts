@@ -79,7 +79,8 @@ export function buildCrossCheck(model: Model, nominal: SoilCase): CrossCheckResu
   }
   return {
     source:
-      "vertical and torsion: single-DOF oscillator (Chopra, Dynamics of Structures); rocking-sliding: frequency equation of Richart, Hall & Woods (1970); springs and dashpots as used by the six-DOF model at the first rotor's rated speed",
+      "vertical and torsion: single-DOF oscillator (Chopra, Dynamics of Structures); rocking-sliding: frequency equation of Richart, Hall & Woods (1970); springs and dashpots as used by the six-DOF model at the first rotor's rated speed" +
+      (nominal.impedance.evaluateMatrix ? " (their diagonal only: the coupling terms of the pile group are not in these closed forms, so they differ from the six-DOF modes)" : ""),
     vertical,
     torsion: nearest(sdofFrequencyHz(k[5] as number, M[5 * 7] as number), modesHz),
     rockingSlidingXZ: { low: nearest(xz[0], modesHz), high: nearest(xz[1], modesHz) },

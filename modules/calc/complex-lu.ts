@@ -13,19 +13,19 @@ export class ComplexSystem6 {
   private readonly invRe = new Float64Array(6);
   private readonly invIm = new Float64Array(6);
 
-  /** S(w) from the row-major mass matrix M and the diagonal K(w), C(w); beta = material damping. */
-  assemble(omega: number, M: Float64Array, k: Float64Array, c: Float64Array, beta: number): void {
+  /**
+   * S(w) from the row-major mass matrix M and the row-major 6 x 6 K(w), C(w) (symmetric; the
+   * diagonal methods have zeros off the diagonal); beta = material damping on every entry of K.
+   */
+  assemble(omega: number, M: Float64Array, K: Float64Array, C: Float64Array, beta: number): void {
     const w2 = omega * omega;
     const re = this.re;
     const im = this.im;
+    const b2 = 2 * beta;
     for (let i = 0; i < 36; i++) {
-      re[i] = -w2 * (M[i] as number);
-      im[i] = 0;
-    }
-    for (let i = 0; i < 6; i++) {
-      const ki = k[i] as number;
-      re[i * 7] = (re[i * 7] as number) + ki;
-      im[i * 7] = 2 * beta * ki + omega * (c[i] as number);
+      const ki = K[i] as number;
+      re[i] = -w2 * (M[i] as number) + ki;
+      im[i] = b2 * ki + omega * (C[i] as number);
     }
   }
 

@@ -25,10 +25,16 @@ function toMatrix(rowMajor: ArrayLike<number>): Matrix {
  * largest-magnitude component positive; participation_i = M_ii phi_i^2 / sum_j M_jj phi_j^2
  * (share of each DOF in the diagonal kinetic energy); dominant = the largest share.
  */
-export function naturalModes(massRowMajor: ArrayLike<number>, stiffnessDiagonal: ArrayLike<number>): Mode[] {
+export function naturalModes(massRowMajor: ArrayLike<number>, stiffness: ArrayLike<number>): Mode[] {
   const M = toMatrix(massRowMajor);
-  const K = Matrix.zeros(6, 6);
-  for (let i = 0; i < 6; i++) K.set(i, i, stiffnessDiagonal[i] as number);
+  // `stiffness`: the six diagonal values, or the full row-major 6 x 6 (a coupled support)
+  let K: Matrix;
+  if (stiffness.length === 36) {
+    K = toMatrix(stiffness);
+  } else {
+    K = Matrix.zeros(6, 6);
+    for (let i = 0; i < 6; i++) K.set(i, i, stiffness[i] as number);
+  }
   const chol = new CholeskyDecomposition(M);
   if (!chol.isPositiveDefinite()) throw new Error("mass matrix is not positive definite");
   const Linv = inverse(chol.lowerTriangularMatrix);

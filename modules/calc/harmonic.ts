@@ -1,9 +1,10 @@
 // Damped harmonic steady state of the six-DOF block:
 //   S(w) U = F,  S(w) = K(w) (1 + 2 i beta) + i w C(w) - w^2 M,  u(t) = Re(U e^{i w t}),
 // displacement of a point p relative to O: u_p = U_t + Theta x p; soil reaction at O:
-// (K (1 + 2 i beta) + i w C) U (translational part).
+// (K (1 + 2 i beta) + i w C) U (translational part). K and C are full 6 x 6 at O (a pile group
+// couples sway and rocking); the diagonal methods have zeros off the diagonal.
 import { ComplexSystem6 } from "./complex-lu";
-import type { ImpedanceModel } from "./impedance-model";
+import { evaluateImpedanceMatrix, type ImpedanceModel } from "./impedance-model";
 import type { UnitLoad } from "./unbalance";
 
 /** Responses U of a list of loads: load l occupies [6 l, 6 l + 6) of re and im. */
@@ -42,21 +43,30 @@ function solvePlan(loads: UnitLoad[]): SolvePlan {
 
 export class HarmonicSolver {
   readonly system = new ComplexSystem6();
+  /** Diagonal of K(w), C(w) at the current frequency. */
   readonly k = new Float64Array(6);
   readonly c = new Float64Array(6);
+  /** Full K(w), C(w), row-major 6 x 6 (off-diagonal zeros for a diagonal method). */
+  readonly K = new Float64Array(36);
+  readonly C = new Float64Array(36);
   omega = 0;
+  /** The impedance has off-diagonal terms (pile group); otherwise the diagonal fast path. */
+  readonly coupled: boolean;
 
   constructor(
     private readonly massMatrix: Float64Array,
     private readonly impedance: ImpedanceModel,
     private readonly beta: number,
-  ) {}
+  ) {
+    this.coupled = impedance.evaluateMatrix !== undefined;
+  }
 
   /** Evaluates K(w), C(w), assembles S(w) and factorises it (once per frequency). */
   setFrequency(omega: number): void {
     this.omega = omega;
-    this.impedance.evaluate(omega, this.k, this.c);
-    this.system.assemble(omega, this.massMatrix, this.k, this.c, this.beta);
+    // K, C start at zero and a diagonal method only writes the diagonal: nothing to clear
+    evaluateImpedanceMatrix(this.impedance, omega, this.K, this.C, this.k, this.c, false);
+    this.system.assemble(omega, this.massMatrix, this.K, this.C, this.beta);
     this.system.factorise();
   }
 
@@ -133,13 +143,37 @@ export class HarmonicSolver {
    */
   transmittedForce(u: ResponseSet, l: number, scale: number, out: Float64Array | null): number {
     let sum = 0;
+    const K = this.K;
+    const C = this.C;
+    const b2 = 2 * this.beta;
+    const w = this.omega;
+    const o = 6 * l;
+    if (!this.coupled) {
+      for (let j = 0; j < 3; j++) {
+        const kj = this.k[j] as number;
+        const damp = b2 * kj + w * (this.c[j] as number);
+        const ur = u.re[o + j] as number;
+        const ui = u.im[o + j] as number;
+        const fr = kj * ur - damp * ui;
+        const fi = kj * ui + damp * ur;
+        const a2 = fr * fr + fi * fi;
+        if (out) out[j] = Math.sqrt(a2) * scale;
+        sum += a2;
+      }
+      return Math.sqrt(sum) * scale;
+    }
     for (let j = 0; j < 3; j++) {
-      const kj = this.k[j] as number;
-      const damp = 2 * this.beta * kj + this.omega * (this.c[j] as number);
-      const ur = u.re[6 * l + j] as number;
-      const ui = u.im[6 * l + j] as number;
-      const fr = kj * ur - damp * ui;
-      const fi = kj * ui + damp * ur;
+      // row j of (K (1 + 2 i beta) + i w C) U; the zero terms of a diagonal method add exactly 0
+      let fr = 0;
+      let fi = 0;
+      for (let m = 0; m < 6; m++) {
+        const km = K[j * 6 + m] as number;
+        const damp = b2 * km + w * (C[j * 6 + m] as number);
+        const ur = u.re[o + m] as number;
+        const ui = u.im[o + m] as number;
+        fr += km * ur - damp * ui;
+        fi += km * ui + damp * ur;
+      }
       const a2 = fr * fr + fi * fi;
       if (out) out[j] = Math.sqrt(a2) * scale;
       sum += a2;

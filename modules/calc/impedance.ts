@@ -5,6 +5,7 @@ import { equivalentRadiusImpedance } from "./impedance-equivalent-radius";
 import { gazetasImpedance } from "./impedance-gazetas";
 import { userImpedance } from "./impedance-user";
 import { springsImpedance } from "./impedance-springs";
+import { pilesImpedance } from "./impedance-piles";
 
 /**
  * The impedance model. `factor` is the soil-band factor: the soil methods receive it through
@@ -20,5 +21,7 @@ export function buildImpedance(input: ImpedanceInput, ctx: ImpedanceContext, fac
       return userImpedance(ctx, input.stiffness, input.dampingRatio, factor);
     case "springs":
       return springsImpedance(ctx, input.springs, input.dampingRatio, factor, ctx.origin ?? [0, 0]);
+    case "piles":
+      return pilesImpedance(ctx, input, ctx.origin ?? [0, 0]);
   }
 }

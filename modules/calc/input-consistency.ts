@@ -6,6 +6,10 @@ import { loadCasesFor } from "./unbalance";
 import { resolveSweep } from "./sweep-grid";
 import { springCouplingIssues } from "./impedance-springs";
 import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
+import { PILE_MIN_SPACING_DIAMETERS, pilesStiffnessSign } from "./impedance-piles";
+import { SOIL_BAND_DEFAULTS } from "./criteria-defaults";
+import { soilProperties } from "./soil";
+import { activeLength } from "./pile-single";
 
 export type PathPart = string | number;
 export type AddIssue = (path: PathPart[], message: string) => void;
@@ -58,6 +62,72 @@ function checkBlock(input: AnalysisInput, add: AddIssue): void {
   if (base === null) add(["block", "solids"], "the base has no contact area with the soil");
 }
 
+/**
+ * Limits of the piles method (issue 16): vertical piles only (no rake in the input); the heads
+ * under the cap; centre-to-centre spacing at least 2 d; a flexible pile (L at least the active
+ * length of Gazetas 1991), else the closed forms do not apply (a short rigid pile is refused);
+ * the soil along the shaft is uniform or linear, so a stratum or borehole layers are refused.
+ */
+function checkPiles(input: AnalysisInput, add: AddIssue): void {
+  const imp = input.impedance;
+  if (imp.method !== "piles") return;
+  const soil = input.soil;
+  if (soil.stratum !== undefined) add(["soil", "stratum"], 'the "piles" method takes the soil along the shaft as uniform or linearly increasing: leave soil.stratum out');
+  if (soil.layers !== undefined) add(["soil", "layers"], 'the "piles" method takes the soil along the shaft as uniform or linearly increasing: leave soil.layers out');
+  const base = contactArea(
+    input.block.solids.filter((s) => !s.void),
+    input.block.solids.filter((s) => s.void),
+  );
+  const d = imp.diameter;
+  imp.piles.forEach((p, i) => {
+    if (base) {
+      const { x, y } = base.bounds;
+      if (p.x < x[0] - 1e-9 || p.x > x[1] + 1e-9 || p.y < y[0] - 1e-9 || p.y > y[1] + 1e-9) {
+        add(["impedance", "piles", i], `the pile head (${p.x}, ${p.y}) lies outside the underside of the cap (x ${x[0]} to ${x[1]} m, y ${y[0]} to ${y[1]} m)`);
+      }
+    }
+    for (let j = 0; j < i; j++) {
+      const q = imp.piles[j];
+      if (!q) continue;
+      const s = Math.hypot(p.x - q.x, p.y - q.y);
+      if (s < PILE_MIN_SPACING_DIAMETERS * d) {
+        add(["impedance", "piles", i], `pile ${i + 1} is ${s.toFixed(3)} m from pile ${j + 1}, closer than ${PILE_MIN_SPACING_DIAMETERS} diameters (${(PILE_MIN_SPACING_DIAMETERS * d).toFixed(3)} m): the interaction factors do not apply`);
+      }
+    }
+  });
+  const G = soil.shearModulus ?? soil.density * (soil.shearWaveVelocity ?? 0) ** 2;
+  if (G > 0) {
+    const es = 2 * G * (1 + soil.poissonRatio);
+    const la = activeLength(d, imp.youngsModulus / es, imp.soilProfile ?? "uniform");
+    if (imp.length < la) {
+      add(
+        ["impedance", "length"],
+        `the pile (${imp.length} m) is shorter than its active length La = ${la.toFixed(2)} m (Gazetas 1991): a short rigid pile is outside the flexible-pile closed forms this method uses`,
+      );
+      return;
+    }
+  }
+  // The modes use K at the first rotor's rated speed, at nominal G and at the soil band's
+  // factors: a negative direction of the group's dynamic stiffness there (superposition near a
+  // group resonance of the interaction waves) has no natural frequency, and a mode at 0 Hz would
+  // pass the separation check; refused.
+  const rotor = input.machines.flatMap((m) => m.rotors)[0];
+  if (!base || !rotor || !(G > 0) || soil.stratum !== undefined || soil.layers !== undefined) return;
+  const omega = (rotor.speedRpm * 2 * Math.PI) / 60;
+  const factors = [1, input.soilBand?.lowerFactor ?? SOIL_BAND_DEFAULTS.lowerFactor, input.soilBand?.upperFactor ?? SOIL_BAND_DEFAULTS.upperFactor];
+  for (const factor of factors) {
+    if (!(factor > 0)) continue;
+    const props = soilProperties(soil, factor);
+    if (pilesStiffnessSign(imp, props, base.centroid, omega) < -1e-9) {
+      add(
+        ["impedance", "piles"],
+        `at the rated speed of rotor "${rotor.name}" (${rotor.speedRpm} rpm)${factor === 1 ? "" : ` and ${factor.toPrecision(3)} G (soil band)`} the group's dynamic stiffness from the interaction factors has a negative direction (the piles' waves arrive out of phase): its modes there are not natural frequencies and this method does not analyse it; change the spacing or the number of piles`,
+      );
+      return;
+    }
+  }
+}
+
 function checkSoil(input: AnalysisInput, add: AddIssue): void {
   const soil = input.soil;
   const hasG = soil.shearModulus !== undefined;
@@ -97,6 +167,7 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
       }
     }
   }
+  if (input.impedance.method === "piles") checkPiles(input, add);
   if (input.impedance.method === "user" && soil.materialDamping === 0) {
     for (const [key, ratio] of Object.entries(input.impedance.dampingRatio)) {
       if (ratio === 0) {

@@ -22,6 +22,8 @@ export const INPUT_LIMITS = {
   maxBearingsPerRotor: 6,
   /** impedance.springs (method "springs"): an inertia block rarely sits on more than a few dozen isolators. */
   maxSprings: 64,
+  /** impedance.piles (method "piles"): the interaction matrix is dense (2 n x 2 n complex, solved per frequency). */
+  maxPiles: 40,
   /** checkPoints */
   maxCheckPoints: 24,
   /** sweep.points: a plotting grid of 600 to 2000 points is usual. */
@@ -115,6 +117,7 @@ export function checkInputBounds(raw: unknown): BoundIssue[] {
   if (isObject(block)) maxLength(block.solids, ["block", "solids"], L.maxSolids, "solids");
   maxLength(raw.checkPoints, ["checkPoints"], L.maxCheckPoints, "check points");
   if (isObject(raw.impedance)) maxLength(raw.impedance.springs, ["impedance", "springs"], L.maxSprings, "springs");
+  if (isObject(raw.impedance)) maxLength(raw.impedance.piles, ["impedance", "piles"], L.maxPiles, "piles");
   maxLength(raw.transient, ["transient"], L.maxTransientRuns, "runs");
   maxLength(raw.machines, ["machines"], L.maxMachines, "machines");
 

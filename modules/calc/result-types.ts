@@ -32,8 +32,16 @@ export interface MassPropertiesResult {
   baseThickness?: number;
 }
 
+/** One off-diagonal term K_ij, C_ij (i before j in x, y, z, rx, ry, rz) of a coupled support. */
+export interface ImpedanceCouplingTerm {
+  dofs: [DofKey, DofKey];
+  /** N/rad (translation-rotation) or N m/rad (rotation-rotation) or N/m. */
+  stiffness: number;
+  dashpot: number;
+}
+
 export interface ImpedanceResult {
-  method: "equivalent-radius" | "gazetas" | "user" | "springs";
+  method: "equivalent-radius" | "gazetas" | "user" | "springs" | "piles";
   staticStiffness: Dof6;
   stiffness: Dof6;
   dampingRatio: Dof6;
@@ -46,6 +54,11 @@ export interface ImpedanceResult {
   shearWaveVelocity?: number;
   /** Method-specific intermediate values (equivalent radii, mass ratios, Gazetas L, B, chi ...). */
   details?: Record<string, number>;
+  /**
+   * Coupled supports only (method "piles"): the non-zero off-diagonal terms of K and C at the
+   * evaluation frequency (the matrix is symmetric, each pair once). Absent for the diagonal methods.
+   */
+  coupling?: ImpedanceCouplingTerm[];
 }
 
 export interface ModeResult {

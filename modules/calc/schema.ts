@@ -96,6 +96,35 @@ const springSchema = z.strictObject({
   ch: nonNegative().optional(),
 });
 
+const pileSchema = z.strictObject({
+  /** Position of the pile head's axis in plan (input coordinates, m); the head is at the cap's underside. */
+  x: finite(),
+  y: finite(),
+});
+
+// Optional (issue 16): a pile cap (the block) on a group of vertical piles (impedance-piles.ts).
+const pilesImpedanceSchema = z.strictObject({
+  method: z.literal("piles"),
+  piles: z
+    .array(pileSchema, { error: "must be a list of pile heads" })
+    .min(2, { error: "give at least 2 piles (pile torsion is neglected, so one pile has no torsional stiffness)" })
+    .max(L.maxPiles, atMost(L.maxPiles, "piles")),
+  /** Circular pile, solid section (m). */
+  diameter: positive(),
+  /** Embedded length below the head (m). */
+  length: positive(),
+  /** Young's modulus of the pile (Pa). */
+  youngsModulus: positive(),
+  /** Density of the pile material (kg/m^3, default 2500): the pile's mass in the vertical rod. */
+  pileDensity: positive().optional(),
+  /** "floating": the tip in the same soil; "end-bearing": the tip on a rigid stratum. */
+  tip: z.enum(["floating", "end-bearing"], { error: 'must be "floating" or "end-bearing"' }),
+  /** Soil along the shaft: "uniform" (default) G as given; "linear": G(z) = G z / d, G given at depth z = d below the head. */
+  soilProfile: z.enum(["uniform", "linear"], { error: 'must be "uniform" or "linear"' }).optional(),
+  /** Pile-to-pile interaction: "dynamic-factors" (default, Dobry & Gazetas 1988) or "none" (each pile alone). */
+  interaction: z.enum(["dynamic-factors", "none"], { error: 'must be "dynamic-factors" or "none"' }).optional(),
+});
+
 const impedanceSchema = z.discriminatedUnion(
   "method",
   [
@@ -122,8 +151,9 @@ const impedanceSchema = z.discriminatedUnion(
         const dampers = imp.springs.some((s) => s.cz !== undefined || s.ch !== undefined);
         if (dampers && imp.dampingRatio !== undefined) ctx.addIssue({ code: "custom", path: ["dampingRatio"], message: "give either dampers (cz, ch) on the springs or one damping ratio, not both" });
       }),
+    pilesImpedanceSchema,
   ],
-  { error: 'method must be "equivalent-radius", "gazetas", "user" or "springs"' },
+  { error: 'method must be "equivalent-radius", "gazetas", "user", "springs" or "piles"' },
 );
 
 const rotorSchema = z.strictObject({
@@ -286,6 +316,7 @@ export type MachineInput = AnalysisInput["machines"][number];
 export type RotorInput = MachineInput["rotors"][number];
 export type SoilInput = AnalysisInput["soil"];
 export type ImpedanceInput = AnalysisInput["impedance"];
+export type PilesImpedanceInput = z.infer<typeof pilesImpedanceSchema>;
 /** A parsed start-up or coast-down request (defaults applied). */
 export type TransientRequest = z.output<typeof transientRequestSchema>;
 export type AcceptanceInput = z.output<typeof acceptanceSchema>;

@@ -4,7 +4,8 @@ import { dofFromArray } from "./dof";
 import { naturalModes, type Mode } from "./eigen";
 import { HarmonicSolver } from "./harmonic";
 import { buildImpedance } from "./impedance";
-import { ratioFromDashpot, type ImpedanceModel } from "./impedance-model";
+import { evaluateImpedanceMatrix, offDiagonalTerms, ratioFromDashpot, type ImpedanceModel } from "./impedance-model";
+import { DOF_KEYS } from "./dof";
 import type { Model } from "./model";
 import { combinedResults } from "./combination";
 import type { CombinedResult, ImpedanceResult, RotorResult } from "./result-types";
@@ -16,9 +17,12 @@ export interface SoilCase {
   soil: SoilProperties;
   impedance: ImpedanceModel;
   impedanceResult: ImpedanceResult;
-  /** K and C at the evaluation frequency (first rotor's rated speed, 0 without rotors). */
+  /** Diagonal of K and C at the evaluation frequency (first rotor's rated speed, 0 without rotors). */
   stiffnessUsed: Float64Array;
   dashpotUsed: Float64Array;
+  /** Full K and C there, row-major 6 x 6 (off-diagonal zeros for a diagonal method). */
+  stiffnessMatrix: Float64Array;
+  dashpotMatrix: Float64Array;
   modes: Mode[];
   rotors: RotorResult[];
   /** Rotors responding together (combination.ts); empty with fewer than two rotors. */
@@ -37,9 +41,11 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
   const omega1 = model.rotors[0]?.omegaRated ?? 0;
   const k = new Float64Array(6);
   const c = new Float64Array(6);
-  impedance.evaluate(omega1, k, c);
+  const K = new Float64Array(36);
+  const C = new Float64Array(36);
+  evaluateImpedanceMatrix(impedance, omega1, K, C, k, c, false);
   // Undamped modes with the real stiffness at the first rotor's rated speed.
-  const modes = naturalModes(model.massMatrix, k);
+  const modes = naturalModes(model.massMatrix, impedance.evaluateMatrix ? K : k);
   const solver = new HarmonicSolver(model.massMatrix, impedance, soil.materialDamping);
   const modesHz = modes.map((m) => m.frequencyHz);
   const rotors = rotorResults(model, solver, modesHz);
@@ -56,5 +62,12 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
     ...(springMethod ? {} : { shearModulus: soil.shearModulus, shearWaveVelocity: soil.shearWaveVelocity }),
     details: impedance.details,
   };
-  return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, modes, rotors, combined, solver };
+  if (impedance.evaluateMatrix) {
+    impedanceResult.coupling = offDiagonalTerms(K, C).map((t) => ({
+      dofs: [DOF_KEYS[t.i] as (typeof DOF_KEYS)[number], DOF_KEYS[t.j] as (typeof DOF_KEYS)[number]],
+      stiffness: t.stiffness,
+      dashpot: t.dashpot,
+    }));
+  }
+  return { factor, soil, impedance, impedanceResult, stiffnessUsed: k, dashpotUsed: c, stiffnessMatrix: K, dashpotMatrix: C, modes, rotors, combined, solver };
 }

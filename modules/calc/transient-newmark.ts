@@ -2,8 +2,9 @@
 // structural dynamics", J. Eng. Mech. Div. ASCE 85(EM3), gamma = 1/2, beta = 1/4; also Chopra,
 // Dynamics of Structures, sec. 5.4) for
 //   M u'' + C u' + K u = f(t),
-// M symmetric positive definite (the full mass matrix about O), K and C diagonal (the engine's
-// springs and dashpots at O). The scheme is unconditionally stable and, for an undamped system,
+// M symmetric positive definite (the full mass matrix about O), K and C symmetric, given as
+// their n diagonal values (the diagonal supports) or as full n x n row-major matrices (a pile
+// group couples sway and rocking at O). The scheme is unconditionally stable and, for an undamped system,
 // conserves the energy 1/2 v^T M v + 1/2 u^T K u exactly; its only error on a free vibration is
 // a period elongation: the amplification matrix of a mode of frequency w has the eigenvalues
 // (1 - W^2/4 +- i W) / (1 + W^2/4), W = w dt, of modulus 1 and argument 2 atan(W / 2), so the
@@ -56,34 +57,54 @@ export class NewmarkAverageAcceleration {
   readonly v: Float64Array;
   readonly a: Float64Array;
   private readonly M: Float64Array;
-  private readonly k: Float64Array;
+  /** Full K and C, n x n row-major. */
+  private readonly K: Float64Array;
+  private readonly C: Float64Array;
+  /** Diagonal of C, and whether C has off-diagonal terms (the step's fast path skips them). */
   private readonly c: Float64Array;
+  private readonly cFull: boolean;
   private readonly L: Float64Array;
   private readonly w: Float64Array;
   private readonly rhs: Float64Array;
+  private readonly tmp: Float64Array;
 
   /**
    * @param mass n x n row-major, symmetric positive definite
-   * @param stiffness diagonal of K (n values)
-   * @param damping diagonal of C (n values)
+   * @param stiffness K: its n diagonal values, or n x n row-major (symmetric)
+   * @param damping C: its n diagonal values, or n x n row-major (symmetric)
    */
   constructor(mass: ArrayLike<number>, stiffness: ArrayLike<number>, damping: ArrayLike<number>, dt: number) {
-    const n = stiffness.length;
-    if (mass.length !== n * n || damping.length !== n) throw new Error("internal error: matrix sizes differ");
+    const n = Math.round(Math.sqrt(mass.length));
+    const full = (a: ArrayLike<number>): Float64Array => {
+      if (a.length === n * n) return Float64Array.from(a);
+      if (a.length !== n) throw new Error("internal error: matrix sizes differ");
+      const out = new Float64Array(n * n);
+      for (let i = 0; i < n; i++) out[i * n + i] = a[i] as number;
+      return out;
+    };
+    if (n * n !== mass.length) throw new Error("internal error: matrix sizes differ");
     if (!(dt > 0)) throw new Error("internal error: the time step must be positive");
     this.n = n;
     this.dt = dt;
     this.M = Float64Array.from(mass);
-    this.k = Float64Array.from(stiffness);
-    this.c = Float64Array.from(damping);
+    this.K = full(stiffness);
+    this.C = full(damping);
+    this.c = new Float64Array(n);
+    let off = false;
+    for (let i = 0; i < n; i++) {
+      this.c[i] = this.C[i * n + i] as number;
+      for (let j = 0; j < n; j++) if (i !== j && this.C[i * n + j] !== 0) off = true;
+    }
+    this.cFull = off;
     this.u = new Float64Array(n);
     this.v = new Float64Array(n);
     this.a = new Float64Array(n);
     this.w = new Float64Array(n);
     this.rhs = new Float64Array(n);
+    this.tmp = new Float64Array(n);
+    // K^ = 4/dt^2 M + K + 2/dt C, entry by entry (the diagonal supports add zeros off the diagonal)
     const Khat = new Float64Array(n * n);
-    for (let i = 0; i < n * n; i++) Khat[i] = (4 / (dt * dt)) * (this.M[i] as number);
-    for (let i = 0; i < n; i++) Khat[i * n + i] = (Khat[i * n + i] as number) + (this.k[i] as number) + (2 / dt) * (this.c[i] as number);
+    for (let i = 0; i < n * n; i++) Khat[i] = (4 / (dt * dt)) * (this.M[i] as number) + (this.K[i] as number) + (2 / dt) * (this.C[i] as number);
     this.L = new Float64Array(n * n);
     choleskyFactor(Khat, n, this.L);
   }
@@ -96,7 +117,14 @@ export class NewmarkAverageAcceleration {
     for (let i = 0; i < n; i++) {
       this.u[i] = u0[i] as number;
       this.v[i] = v0[i] as number;
-      this.rhs[i] = (f0[i] as number) - (this.c[i] as number) * (this.v[i] as number) - (this.k[i] as number) * (this.u[i] as number);
+    }
+    for (let i = 0; i < n; i++) {
+      // diagonal terms first (as for a diagonal support), then the coupling terms
+      let s = (f0[i] as number) - (this.C[i * n + i] as number) * (this.v[i] as number) - (this.K[i * n + i] as number) * (this.u[i] as number);
+      for (let j = 0; j < n; j++) {
+        if (j !== i) s -= (this.C[i * n + j] as number) * (this.v[j] as number) + (this.K[i * n + j] as number) * (this.u[j] as number);
+      }
+      this.rhs[i] = s;
     }
     choleskySolve(Lm, n, this.rhs, this.a);
   }
@@ -109,12 +137,23 @@ export class NewmarkAverageAcceleration {
     const c3 = 4 / dt;
     const c2 = 2 / dt;
     // K enters through the factor of K^ only
-    const { u, v, a, M, c, w, rhs } = this;
+    const { u, v, a, M, c, w, rhs, tmp } = this;
     for (let i = 0; i < n; i++) w[i] = c4 * (u[i] as number) + c3 * (v[i] as number) + (a[i] as number);
-    for (let i = 0; i < n; i++) {
-      let s = (f[i] as number) + (c[i] as number) * (c2 * (u[i] as number) + (v[i] as number));
-      for (let j = 0; j < n; j++) s += (M[i * n + j] as number) * (w[j] as number);
-      rhs[i] = s;
+    if (!this.cFull) {
+      for (let i = 0; i < n; i++) {
+        let s = (f[i] as number) + (c[i] as number) * (c2 * (u[i] as number) + (v[i] as number));
+        for (let j = 0; j < n; j++) s += (M[i * n + j] as number) * (w[j] as number);
+        rhs[i] = s;
+      }
+    } else {
+      const C = this.C;
+      for (let i = 0; i < n; i++) tmp[i] = c2 * (u[i] as number) + (v[i] as number);
+      for (let i = 0; i < n; i++) {
+        let s = f[i] as number;
+        for (let j = 0; j < n; j++) s += (C[i * n + j] as number) * (tmp[j] as number);
+        for (let j = 0; j < n; j++) s += (M[i * n + j] as number) * (w[j] as number);
+        rhs[i] = s;
+      }
     }
     choleskySolve(this.L, n, rhs, rhs);
     for (let i = 0; i < n; i++) {

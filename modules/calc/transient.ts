@@ -25,6 +25,7 @@ import { assertFinite } from "./finite";
 import { forceAt, responseSet, type HarmonicSolver, type ResponseSet } from "./harmonic";
 import { checkTransientRequest } from "./input-consistency";
 import { buildModel, type Model, type RotorModel } from "./model";
+import { evaluateImpedanceMatrix } from "./impedance-model";
 import { formatPath, type InputIssue } from "./parse";
 import type { TransientPeak, TransientResult, UnbalanceModeName } from "./result-types";
 import { transientRequestSchema, type AnalysisInput, type TransientRequest, type TransientRequestDocument } from "./schema";
@@ -81,14 +82,20 @@ export interface TransientIntegration {
   coarsened: boolean;
 }
 
-/** Frozen springs and dashpots of the time-domain model (see the header). */
-export function timeDomainSprings(soilCase: SoilCase, omegaRef: number): { k: Float64Array; c: Float64Array } {
+/**
+ * Frozen springs and dashpots of the time-domain model (see the header): the diagonal k, c and
+ * the full row-major 6 x 6 K, C (off-diagonal zeros for a diagonal support).
+ */
+export function timeDomainSprings(soilCase: SoilCase, omegaRef: number): { k: Float64Array; c: Float64Array; K: Float64Array; C: Float64Array } {
   const k = new Float64Array(6);
   const c = new Float64Array(6);
-  soilCase.impedance.evaluate(omegaRef, k, c);
+  const K = new Float64Array(36);
+  const C = new Float64Array(36);
+  evaluateImpedanceMatrix(soilCase.impedance, omegaRef, K, C, k, c, false);
   const beta = soilCase.soil.materialDamping;
-  for (let i = 0; i < 6; i++) c[i] = (c[i] as number) + (2 * beta * (k[i] as number)) / omegaRef;
-  return { k, c };
+  for (let i = 0; i < 36; i++) C[i] = (C[i] as number) + (2 * beta * (K[i] as number)) / omegaRef;
+  for (let i = 0; i < 6; i++) c[i] = C[i * 7] as number;
+  return { k, c, K, C };
 }
 
 /**
@@ -123,8 +130,9 @@ export function integrateRun(model: Model, soilCase: SoilCase, spec: TransientRu
   const load = rotor.loads[spec.loadIndex];
   if (!load) throw new Error("internal error: no such load");
   const omegaRef = rotor.omegaRated;
-  const { k, c } = timeDomainSprings(soilCase, omegaRef);
-  const naturalFrequenciesHz = naturalModes(model.massMatrix, k).map((m) => m.frequencyHz);
+  const { k, c, K, C } = timeDomainSprings(soilCase, omegaRef);
+  const coupled = soilCase.impedance.evaluateMatrix !== undefined;
+  const naturalFrequenciesHz = naturalModes(model.massMatrix, coupled ? K : k).map((m) => m.frequencyHz);
 
   // Time step from the highest frequency of the run, natural or excitation.
   const fHigh = Math.max(Math.max(...naturalFrequenciesHz), Math.max(spec.fromRpm, spec.toRpm) / 60);
@@ -142,13 +150,13 @@ export function integrateRun(model: Model, soilCase: SoilCase, spec: TransientRu
   const re = load.re;
   const im = load.im;
 
-  const integrator = new NewmarkAverageAcceleration(model.massMatrix, k, c, dt);
+  const integrator = coupled ? new NewmarkAverageAcceleration(model.massMatrix, K, C, dt) : new NewmarkAverageAcceleration(model.massMatrix, k, c, dt);
   const u0 = new Float64Array(6);
   const v0 = new Float64Array(6);
   if (spec.start !== "rest" && w0 > 0) {
     // steady state at constant w0 of (K - w0^2 M + i w0 C) U = m e w0^2 P; u = Re U, v = Re(i w0 U)
     const system = new ComplexSystem6();
-    system.assemble(w0, model.massMatrix, k, c, 0);
+    system.assemble(w0, model.massMatrix, K, C, 0);
     system.factorise();
     const xr = new Float64Array(6);
     const xi = new Float64Array(6);

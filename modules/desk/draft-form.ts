@@ -94,6 +94,16 @@ export function newSpring(): NonNullable<DraftForm["impedance"]["springs"]>[numb
   return { x: null, y: null, kz: null, kh: null, cz: null, ch: null };
 }
 
+/** A blank pile head row of the "piles" method (issue 16). */
+export function newPileHead(): { x: Num; y: Num } {
+  return { x: null, y: null };
+}
+
+/** The pile group's fields of the "piles" method, blank. */
+export function newPilesForm(): NonNullable<DraftForm["impedance"]["piles"]> {
+  return { heads: [], diameter: null, length: null, youngsModulus: null, pileDensity: null, tip: "floating", soilProfile: "uniform", interaction: "dynamic-factors" };
+}
+
 export function newSoilLayer(): SoilLayerForm {
   return { thickness: null, shearWaveVelocity: null, shearModulus: null, density: null, poissonRatio: null };
 }
@@ -117,8 +127,20 @@ export interface DraftForm {
     layers: SoilLayerForm[];
   };
   impedance: {
-    method: "equivalent-radius" | "gazetas" | "user" | "springs";
+    method: "equivalent-radius" | "gazetas" | "user" | "springs" | "piles";
     stiffness: Dof6Form;
+    /** Piles only (issue 16): pile heads in plan, pile section and length, tip, soil profile along the shaft. */
+    piles?: {
+      heads: { x: Num; y: Num }[];
+      diameter: Num;
+      length: Num;
+      youngsModulus: Num;
+      /** Blank: the engine's 2500 kg/m^3. */
+      pileDensity?: Num;
+      tip: "floating" | "end-bearing";
+      soilProfile: "uniform" | "linear";
+      interaction: "dynamic-factors" | "none";
+    };
     /** Steel springs only (issue 16): plan position, catalogue kz and kh, optional dampers. */
     springs?: { x: Num; y: Num; kz: Num; kh: Num; cz: Num; ch: Num }[];
     /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
@@ -307,6 +329,20 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
             springsDampingRatio: imp.dampingRatio ?? null,
           }
         : {}),
+      ...(imp.method === "piles"
+        ? {
+            piles: {
+              heads: imp.piles.map((p) => ({ x: p.x, y: p.y })),
+              diameter: imp.diameter,
+              length: imp.length,
+              youngsModulus: imp.youngsModulus,
+              pileDensity: imp.pileDensity ?? null,
+              tip: imp.tip,
+              soilProfile: imp.soilProfile ?? "uniform",
+              interaction: imp.interaction ?? "dynamic-factors",
+            },
+          }
+        : {}),
     },
     machines: input.machines.map((m) => ({
       name: m.name,
@@ -460,6 +496,8 @@ export function toInputDocument(f: DraftForm): unknown {
               springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
               ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
             }
+          : f.impedance.method === "piles"
+            ? pilesInput(f.impedance.piles ?? newPilesForm())
           : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic !== "published"
           ? { method: "gazetas", gazetasDynamic: f.impedance.gazetasDynamic }
           : { method: f.impedance.method },
@@ -609,6 +647,24 @@ export const draftFormSchema = yup.object({
     embedmentDepth: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
     sidewallContactHeight: yup.number().typeError("Must be a number").nullable().min(0, "Must be 0 or more"),
   }),
+  impedance: yup.object({
+    method: yup.string(),
+    // method "piles": blanks make the draft incomplete (it saves, the analysis waits)
+    piles: yup
+      .object()
+      .default(undefined)
+      .when("method", {
+        is: "piles",
+        then: () =>
+          yup.object({
+            diameter: positive("pile diameter"),
+            length: positive("pile length"),
+            youngsModulus: positive("Young's modulus of the pile"),
+            pileDensity: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
+            heads: yup.array().of(yup.object({ x: coordinate, y: coordinate })).min(2, required("at least two piles")),
+          }),
+      }),
+  }),
   machines: yup
     .array()
     .of(
@@ -671,4 +727,32 @@ export function formCompleteness(errors: unknown): "complete" | "incomplete" | "
   const messages = errorMessages(errors);
   if (!messages.length) return "complete";
   return messages.every(isMissingMessage) ? "incomplete" : "invalid";
+}
+
+/** The contract's "piles" impedance from the form (defaults left out, so a stored input reads back as typed). */
+function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
+  return {
+    method: "piles" as const,
+    piles: p.heads.map((h) => ({ x: h.x, y: h.y })),
+    diameter: p.diameter,
+    length: p.length,
+    youngsModulus: p.youngsModulus,
+    ...(p.pileDensity !== undefined && p.pileDensity !== null ? { pileDensity: p.pileDensity } : {}),
+    tip: p.tip,
+    ...(p.soilProfile !== "uniform" ? { soilProfile: p.soilProfile } : {}),
+    ...(p.interaction !== "dynamic-factors" ? { interaction: p.interaction } : {}),
+  };
+}
+
+/**
+ * The form field of an engine issue path where the two differ (method "piles": the engine's
+ * impedance.diameter is the form's impedance.piles.diameter, impedance.piles[1] the second
+ * pile's row); other paths are returned unchanged.
+ */
+export function formFieldOfIssue(path: string, method: DraftForm["impedance"]["method"]): string {
+  if (method !== "piles") return path;
+  const head = /^impedance\.piles\[(\d+)\](?:\.(x|y))?$/.exec(path);
+  if (head) return `impedance.piles.heads.${head[1]}.${head[2] ?? "x"}`;
+  const field = /^impedance\.(diameter|length|youngsModulus|tip|soilProfile|interaction)$/.exec(path);
+  return field ? `impedance.piles.${field[1]}` : path;
 }

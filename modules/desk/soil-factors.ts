@@ -19,6 +19,7 @@ const EMBEDMENT_SOURCE: Record<ImpedanceResult["method"], string> = {
   "equivalent-radius": "Arya, O'Neill & Pincus (1979) (recalled); torsion unfactored",
   user: "",
   springs: "",
+  piles: "",
 };
 
 const STRATUM_SOURCE =

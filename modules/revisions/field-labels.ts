@@ -47,6 +47,18 @@ const sections: Record<string, string> = {
   engineVersion: "Engine version",
 };
 
+// method "piles" (issue 16): the pile group's inputs under `impedance` read in the trade's words
+const pileWords: Record<string, string> = {
+  youngsModulus: "Young's modulus of the pile",
+  pileDensity: "pile density",
+  diameter: "pile diameter",
+  length: "pile length",
+  tip: "pile tip",
+  soilProfile: "soil along the shaft",
+  interaction: "pile-to-pile interaction",
+  piles: "pile",
+};
+
 const words: Record<string, string> = {
   poissonRatio: "Poisson's ratio",
   shearWaveVelocity: "shear-wave velocity",
@@ -161,7 +173,8 @@ export function fieldLabel(path: string): string {
       const isCheckValue = before.kind === "key" && segs[i - 2]?.kind === "name" && (segs[i - 2] as { name: string }).name === "checks" && s.name === "value";
       // A list keyed by name reads in the singular ("point coupling"); `sweep.points` is a count.
       const keyed = segs[i + 1]?.kind === "key";
-      if (!isCheckValue) parts.push(keyed ? (singular[s.name] ?? nameWords(s.name)) : nameWords(s.name));
+      const pileWord = first.name === "impedance" ? pileWords[s.name] : undefined;
+      if (!isCheckValue) parts.push(pileWord ?? (keyed ? (singular[s.name] ?? nameWords(s.name)) : nameWords(s.name)));
     }
   }
   return parts.join(" · ");

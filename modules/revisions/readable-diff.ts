@@ -146,6 +146,18 @@ export function parsePath(path: string): Segment[] {
   return out;
 }
 
+// method "piles" (issue 16): the pile group's inputs under `impedance` read in the trade's words
+const pileWords: Record<string, string> = {
+  youngsModulus: "Young's modulus of the pile Ep",
+  pileDensity: "pile density",
+  diameter: "pile diameter",
+  length: "pile length",
+  tip: "pile tip",
+  soilProfile: "soil along the shaft",
+  interaction: "pile-to-pile interaction",
+  piles: "pile",
+};
+
 const words: Record<string, string> = {
   poissonRatio: "Poisson's ratio",
   shearModulus: "shear modulus G",
@@ -207,7 +219,9 @@ export function labelOfPath(path: string): string {
         i += 1;
         continue;
       }
-      parts.push(words[s.prop] ?? camelWords(s.prop));
+      const first = segs[0];
+      const underImpedance = first !== undefined && "prop" in first && first.prop === "impedance" && i > 0;
+      parts.push((underImpedance ? pileWords[s.prop] : undefined) ?? words[s.prop] ?? camelWords(s.prop));
     } else if ("id" in s) parts.push(s.id);
     else {
       const prev = segs[i - 1];
@@ -310,6 +324,13 @@ const kindByKey: Record<string, PackageKind> = {
   serviceFactor: "ratio",
   baseThickness: "length",
   baseDimensions: "length",
+  youngsModulus: "modulus",
+  pileDensity: "density",
+  activeLength: "length",
+  pileVerticalStiffness: "stiffness",
+  pileLateralStiffness: "stiffness",
+  pileRockingStiffness: "rotationalStiffness",
+  pileCrossStiffness: "couplingStiffness",
 };
 
 const rotational = new Set(["rx", "ry", "rz"]);
@@ -321,6 +342,8 @@ export function kindOfPath(path: string): PackageKind | undefined {
   const last = props.at(-1);
   const parent = props.at(-2);
   if (!last) return undefined;
+  // method "piles": the pile's diameter and length (the words are common, so only under impedance)
+  if (props[0] === "impedance" && (last === "diameter" || last === "length")) return "length";
   if (parent === "stiffness" || parent === "staticStiffness") return rotational.has(last) ? "rotationalStiffness" : "stiffness";
   if (parent === "dashpot") return rotational.has(last) ? "rotationalDashpot" : "dashpot";
   if (parent === "dampingRatio" || parent === "participation") return "ratio";

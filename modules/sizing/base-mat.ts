@@ -116,6 +116,15 @@ export function readBaseMat(input: AnalysisInput): ReadBaseMatResult {
       }
     }
   }
+  // method "piles": the cap must cover every pile head wholly (the core refuses a head centre
+  // outside the cap; the assistant keeps the whole circle of the diameter under it)
+  if (input.impedance.method === "piles") {
+    const r = input.impedance.diameter / 2;
+    for (const p of input.impedance.piles) {
+      xs.push(p.x - r, p.x + r);
+      ys.push(p.y - r, p.y + r);
+    }
+  }
   return {
     ok: true,
     mat: {
@@ -159,10 +168,10 @@ export function fitProblems(mat: BaseMat, centre: readonly [number, number], d: 
   const need = minimumFit(mat, centre);
   const out: { dimension: keyof MatDimensions; message: string }[] = [];
   if (d.length < need.length - LENGTH_TOLERANCE_M) {
-    out.push({ dimension: "length", message: `${d.length} m is too short for the plinths, voids and machines on the mat (at least ${need.length.toFixed(3)} m)` });
+    out.push({ dimension: "length", message: `${d.length} m is too short for the plinths, voids, machines and pile heads on the mat (at least ${need.length.toFixed(3)} m)` });
   }
   if (d.width < need.width - LENGTH_TOLERANCE_M) {
-    out.push({ dimension: "width", message: `${d.width} m is too narrow for the plinths, voids and machines on the mat (at least ${need.width.toFixed(3)} m)` });
+    out.push({ dimension: "width", message: `${d.width} m is too narrow for the plinths, voids, machines and pile heads on the mat (at least ${need.width.toFixed(3)} m)` });
   }
   if (!(d.thickness > need.thickness + LENGTH_TOLERANCE_M)) {
     out.push({ dimension: "thickness", message: `${d.thickness} m leaves no concrete under the deepest void (it reaches ${need.thickness.toFixed(3)} m below the top)` });

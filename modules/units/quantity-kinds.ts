@@ -68,6 +68,7 @@ export const quantityKinds = {
   modulus: defineQuantityKind({ label: "Modulus", base: u.pascal, si: u.megapascal, us: u.kipPerSquareFoot, accepts: [u.kilopascal, u.poundPerSquareFoot, u.poundPerSquareInch], decimals: { si: 1, us: 0 } }),
   stiffness: defineQuantityKind({ label: "Stiffness", base: u.newtonPerMetre, si: u.meganewtonPerMetre, us: u.kipPerInch, accepts: [u.kilonewtonPerMillimetre, u.poundForcePerInch], decimals: { si: 1, us: 1 } }),
   rotationalStiffness: defineQuantityKind({ label: "Rotational stiffness", base: u.newtonMetrePerRadian, si: u.meganewtonMetrePerRadian, us: u.kipFootPerRadian, decimals: { si: 1, us: 0 } }),
+  couplingStiffness: defineQuantityKind({ label: "Coupling stiffness", base: u.newtonPerRadian, si: u.meganewtonPerRadian, us: u.kipPerRadian, decimals: { si: 1, us: 1 } }),
   // viscous dashpots (radiation and material damping as coefficients): the package's units too
   dashpot: defineQuantityKind({ label: "Dashpot", base: u.newtonSecondPerMetre, si: u.kilonewtonSecondPerMetre, us: u.poundForceSecondPerInch, accepts: [u.meganewtonSecondPerMetre, u.kipSecondPerInch], decimals: { si: 1, us: 1 } }),
   rotationalDashpot: defineQuantityKind({ label: "Rotational dashpot", base: u.newtonMetreSecondPerRadian, si: u.kilonewtonMetreSecondPerRadian, us: u.kipFootSecondPerRadian, accepts: [u.meganewtonMetreSecondPerRadian], decimals: { si: 1, us: 2 } }),

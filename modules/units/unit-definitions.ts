@@ -88,6 +88,10 @@ export const kipPerInch = named(kip.per(inch), "kip/in");
 export const newtonMetrePerRadian = named(newtons.times(meters).per(radians), "N·m/rad");
 export const meganewtonMetrePerRadian = named(mega(newtons).times(meters).per(radians), "MN·m/rad");
 export const kipFootPerRadian = named(kip.times(foot).per(radians), "kip·ft/rad");
+// sway-rocking coupling of a pile group (force per rotation, equal to moment per displacement)
+export const newtonPerRadian = named(newtons.per(radians), "N/rad");
+export const meganewtonPerRadian = named(mega(newtons).per(radians), "MN/rad");
+export const kipPerRadian = named(kip.per(radians), "kip/rad");
 
 // ---- time: the second in both systems; milliseconds accepted for short time steps ----
 export const second = named(seconds, "s");

@@ -75,6 +75,34 @@ describe("POST /api/v1/calculate", () => {
     expect(issue?.message).toContain('"pais-kausel"');
   });
 
+  it("accepts a pile cap on a 2 x 2 group (method \"piles\", engine 1.6.0) with the sway-rocking coupling in the result; piles closer than 2 d and a short rigid pile are 400s naming the field", async () => {
+    const doc = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "pile-cap.json"), "utf8")) as { impedance: { piles: { x: number; y: number }[]; length: number } };
+    const res = await calculate(doc);
+    expect(res.status).toBe(200);
+    const result = (await res.json()) as {
+      engineVersion: string;
+      modes: { frequencyHz: number }[];
+      impedance: { method: string; details: Record<string, number>; coupling?: { dofs: string[]; stiffness: number }[] };
+    };
+    expect(result.engineVersion).toBe("1.6.0");
+    expect(result.impedance.method).toBe("piles");
+    expect(result.modes).toHaveLength(6);
+    expect(result.impedance.details.pileCount).toBe(4);
+    expect(result.impedance.coupling?.some((c) => c.dofs.join() === "x,ry" && c.stiffness < 0)).toBe(true);
+    const close = structuredClone(doc);
+    close.impedance.piles[1] = { x: -1.0, y: -0.8 };
+    const bad = await calculate(close);
+    expect(bad.status).toBe(400);
+    const body = (await bad.json()) as ErrorBody;
+    const issue = body.error.issues?.find((i) => i.path === "impedance.piles[1]");
+    expect(issue?.message).toContain("2 diameters");
+    const short = structuredClone(doc);
+    short.impedance.length = 2;
+    const shortRes = await calculate(short);
+    expect(shortRes.status).toBe(400);
+    expect(((await shortRes.json()) as ErrorBody).error.issues?.some((i) => i.path === "impedance.length")).toBe(true);
+  });
+
   it("serves any signed-in account, project member or not", async () => {
     for (const role of ["outsider", "vendor", "viewer", "admin"] as const) {
       expect((await calculate(sampleAnalysisInput(), fx.cookies[role])).status).toBe(200);

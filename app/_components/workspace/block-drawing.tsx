@@ -5,7 +5,9 @@ import type { MassPropertiesResult } from "@/modules/calc";
 
 // Plan (x-y) and elevation (x-z) of the block to scale: boxes, voids, machines,
 // bearings, check points and the combined centre of gravity, with overall
-// dimensions, so that a wrong coordinate is seen at once.
+// dimensions, so that a wrong coordinate is seen at once. Method "piles": the piles
+// under the cap to the same scale (plan: dashed circles of the diameter, hidden under
+// the cap; elevation: the shafts down to their length), with a text list beside.
 
 type View = "plan" | "elevation";
 
@@ -42,10 +44,22 @@ function extents(form: DraftForm, view: View) {
     const bb = view === "plan" ? c.position[1] : c.position[2];
     if (ok(c.position[0]) && ok(bb)) points.push({ a: c.position[0], b: bb, kind: "check", label: c.name });
   }
+  const piles = pilesOf(form);
   const solids = rects.filter((r) => !r.isVoid);
-  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a)];
-  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b)];
-  return { rects, points, solids, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
+  // plan: circles about (x, y); elevation: shafts from z = 0 down to -L
+  const pileA = piles ? piles.heads.flatMap((h) => [h.x - piles.d / 2, h.x + piles.d / 2]) : [];
+  const pileB = piles ? (view === "plan" ? piles.heads.flatMap((h) => [h.y - piles.d / 2, h.y + piles.d / 2]) : [-piles.length]) : [];
+  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a), ...pileA];
+  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b), ...pileB];
+  return { rects, points, solids, piles, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
+}
+
+/** The piles of method "piles" with every number present (heads with a blank coordinate are left out). */
+export function pilesOf(form: DraftForm): { heads: { x: number; y: number }[]; d: number; length: number } | null {
+  const p = form.impedance.method === "piles" ? form.impedance.piles : undefined;
+  if (!p || !ok(p.diameter) || !ok(p.length) || p.diameter <= 0 || p.length <= 0) return null;
+  const heads = p.heads.flatMap((h) => (ok(h.x) && ok(h.y) ? [{ x: h.x, y: h.y }] : []));
+  return heads.length ? { heads, d: p.diameter, length: p.length } : null;
 }
 
 function fmtLen(m: number, toDisplay: (m: number) => string): string {
@@ -82,6 +96,21 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
         </pattern>
       </defs>
       {view === "elevation" ? <line x1={8} x2={W - 8} y1={Y(0)} y2={Y(0)} stroke="#8ea2ab" strokeDasharray="4 3" /> : null}
+      {e.piles ? (
+        <g data-testid={`piles-${view}`} stroke="#3a4d57" strokeWidth={1} fill="none">
+          {view === "plan"
+            ? e.piles.heads.map((h, i) => (
+                <circle key={i} cx={X(h.x)} cy={Y(h.y)} r={(e.piles!.d / 2) * s} strokeDasharray="3 2">
+                  <title>{`pile ${i + 1}`}</title>
+                </circle>
+              ))
+            : [...new Set(e.piles.heads.map((h) => h.x))].map((x) => (
+                <rect key={x} x={X(x - e.piles!.d / 2)} y={Y(0)} width={e.piles!.d * s} height={e.piles!.length * s} fill="#e7e2d8">
+                  <title>{`pile shaft at x = ${formatLength(x)}`}</title>
+                </rect>
+              ))}
+        </g>
+      ) : null}
       {e.rects.map((r, i) => (
         <rect
           key={`${r.name}-${i}`}
@@ -145,6 +174,7 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
 }
 
 export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; mass?: MassPropertiesResult; formatLength: (m: number) => string }) {
+  const piles = pilesOf(form);
   return (
     <div className="grid grid-cols-1 gap-3 xl:grid-cols-2">
       <figure>
@@ -153,8 +183,22 @@ export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; ma
       </figure>
       <figure>
         <OneView form={form} view="elevation" cg={mass?.cg as [number, number, number] | undefined} formatLength={formatLength} />
-        <figcaption className="mt-1 text-2xs text-basalt-400">Elevation, looking along +y. Dashed line: underside of the base (z = 0).</figcaption>
+        <figcaption className="mt-1 text-2xs text-basalt-400">
+          Elevation, looking along +y. Dashed line: underside of the base (z = 0).{piles ? " Shaded below it: the pile shafts to their length (piles behind one another drawn once)." : ""}
+        </figcaption>
       </figure>
+      {piles ? (
+        <div className="text-2xs text-basalt-400 xl:col-span-2" data-testid="piles-text">
+          <p>
+            Piles (dashed circles in plan, under the cap): {piles.heads.length} of diameter {formatLength(piles.d)} and length {formatLength(piles.length)}, heads at the underside of the cap.
+          </p>
+          <ul className="sr-only">
+            {piles.heads.map((h, i) => (
+              <li key={i}>{`Pile ${i + 1} at x ${formatLength(h.x)}, y ${formatLength(h.y)}`}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
     </div>
   );
 }

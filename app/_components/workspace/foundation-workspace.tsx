@@ -3,7 +3,7 @@
 import { Formik, useFormikContext } from "formik";
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { AnalysisResult } from "@/modules/calc";
-import { draftFormSchema, formCompleteness, formFromDraftDocument, placementsFromForm, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import { draftFormSchema, formCompleteness, formFieldOfIssue, formFromDraftDocument, placementsFromForm, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
@@ -53,9 +53,9 @@ function Panel({ title, id, children, aside }: { title: string; id: string; chil
   );
 }
 
-function issuesByField(issues: CalcIssue[]): Record<string, string> {
+function issuesByField(issues: CalcIssue[], method: DraftForm["impedance"]["method"]): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const i of issues) out[i.path] ??= i.message;
+  for (const i of issues) out[formFieldOfIssue(i.path, method)] ??= i.message;
   return out;
 }
 
@@ -81,7 +81,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   // Datums on the block and the vendor's figures: saved beside the input, never in it.
   const placements = useMemo(() => placementsFromForm(values), [values]);
   const { result, error, stale, pending } = useCalculation(document, true);
-  const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues) }), [setStatus]);
+  const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues, values.impedance.method) }), [setStatus, values.impedance.method]);
   const saver = useDraftSave({
     url: `/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`,
     document,
@@ -105,8 +105,8 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   );
 
   useEffect(() => {
-    setStatus({ serverIssues: error ? issuesByField(error.issues) : {} });
-  }, [error, setStatus]);
+    setStatus({ serverIssues: error ? issuesByField(error.issues, values.impedance.method) : {} });
+  }, [error, setStatus, values.impedance.method]);
 
   const conflict = saver.conflict;
   const reloadStored = () => {

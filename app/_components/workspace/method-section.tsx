@@ -2,7 +2,7 @@
 
 import { FieldArray, useFormikContext } from "formik";
 import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS } from "@/modules/calc";
-import { newSpring, type DraftForm } from "@/modules/desk/draft-form";
+import { newPileHead, newPilesForm, newSpring, type DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
 import { formatDefault } from "@/modules/units";
 import { useUnits, type QuantityKey } from "./units-context";
@@ -12,6 +12,10 @@ const methods = [
   { value: "gazetas", label: "Rectangular base, Gazetas (1991): static and dynamic stiffness, radiation dashpots, embedment" },
   { value: "user", label: "Springs and damping ratios from the geotechnical report or a pile-group analysis" },
   { value: "springs", label: "Inertia block on steel springs: catalogue kz and kh per spring, dampers or one damping ratio; isolation by transmissibility (Chopra §3.6)" },
+  {
+    value: "piles",
+    label: "Pile cap on vertical piles: flexible-pile head stiffness and damping (Gazetas 1991; vertical Randolph & Wroth 1978), group interaction factors (Dobry & Gazetas 1988), sway-rocking coupling",
+  },
 ] as const;
 
 const dofs = [
@@ -49,6 +53,7 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
               onChange={(e) => {
                 handleChange(e);
                 if (m.value === "springs" && (values.impedance.springs ?? []).length === 0) void setFieldValue("impedance.springs", [newSpring(), newSpring(), newSpring(), newSpring()]);
+                if (m.value === "piles" && !values.impedance.piles) void setFieldValue("impedance.piles", { ...newPilesForm(), heads: [newPileHead(), newPileHead(), newPileHead(), newPileHead()] });
               }}
               className="mt-1"
             />
@@ -119,6 +124,9 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
           )}
         </FieldArray>
       ) : null}
+      {values.impedance.method === "piles" && values.impedance.piles ? (
+        <PilesFields piles={values.impedance.piles} readOnly={readOnly} setFieldValue={setFieldValue} />
+      ) : null}
       <div>
         <p className="field-label">Acceptance criteria (blank: the default shown)</p>
         <div className="grid grid-cols-1 gap-3 md:grid-cols-2 xl:grid-cols-3">
@@ -146,6 +154,105 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
         <NumberField name="sweep.points" label="Points" kind="ratio" readOnly={readOnly} />
         <p className="col-span-3 text-2xs text-basalt-400">Blank: {SWEEP_DEFAULTS.fromHz}–{SWEEP_DEFAULTS.toHz} Hz in {SWEEP_DEFAULTS.points} points (the upper end rises with the fastest operating speed).</p>
       </div>
+    </div>
+  );
+}
+
+type PilesForm = NonNullable<DraftForm["impedance"]["piles"]>;
+
+/** Method "piles": the pile heads in plan (a layout table), the pile, its tip and the soil profile along the shaft. */
+function PilesFields({ piles, readOnly, setFieldValue }: { piles: PilesForm; readOnly: boolean; setFieldValue: (field: string, value: unknown) => unknown }) {
+  const choice = <K extends "tip" | "soilProfile" | "interaction">(key: K, options: { value: PilesForm[K]; label: string }[], legend: string) => (
+    <fieldset className="space-y-1" disabled={readOnly}>
+      <legend className="field-label">{legend}</legend>
+      {options.map((o) => (
+        <label key={String(o.value)} className="flex items-start gap-2 text-sm">
+          <input type="radio" name={`impedance.piles.${key}`} checked={piles[key] === o.value} onChange={() => void setFieldValue(`impedance.piles.${key}`, o.value)} className="mt-1" />
+          <span>{o.label}</span>
+        </label>
+      ))}
+    </fieldset>
+  );
+  return (
+    <div className="space-y-3" data-testid="piles-fields">
+      <p className="text-2xs text-basalt-400">
+        Vertical circular piles, heads at the underside of the cap (z = 0), positions in plan in block coordinates. The piles must be flexible (longer than their active length
+        2 d (Ep/Es)^¼), at least 2 diameters apart and under the cap; raked piles, a soil layer over rock and borehole layers are not offered with this method. The cap&apos;s own
+        contact with the soil is ignored (common practice). The soil&apos;s G, ν, ρ and β above are those along the shaft.
+      </p>
+      <div className="grid max-w-4xl grid-cols-1 gap-3 md:grid-cols-4">
+        <NumberField name="impedance.piles.diameter" label="Pile diameter d" kind="length" readOnly={readOnly} />
+        <NumberField name="impedance.piles.length" label="Pile length L" kind="length" readOnly={readOnly} />
+        <NumberField name="impedance.piles.youngsModulus" label="Young's modulus of the pile Ep" kind="modulus" readOnly={readOnly} />
+        <NumberField name="impedance.piles.pileDensity" label="Pile density" kind="density" hint="Blank: 2500 kg/m³ (reinforced concrete, common practice)" readOnly={readOnly} />
+      </div>
+      <div className="grid max-w-3xl grid-cols-1 gap-3 md:grid-cols-3">
+        {choice(
+          "tip",
+          [
+            { value: "floating", label: "Floating (tip in the same soil)" },
+            { value: "end-bearing", label: "End-bearing on a rigid stratum" },
+          ],
+          "Pile tip",
+        )}
+        {choice(
+          "soilProfile",
+          [
+            { value: "uniform", label: "Uniform G along the shaft" },
+            { value: "linear", label: "G increasing linearly with depth, G as given at depth z = d" },
+          ],
+          "Soil along the shaft",
+        )}
+        {choice(
+          "interaction",
+          [
+            { value: "dynamic-factors", label: "Dobry & Gazetas (1988) dynamic interaction factors" },
+            { value: "none", label: "None (each pile alone: overstates a close group's stiffness)" },
+          ],
+          "Pile-to-pile interaction",
+        )}
+      </div>
+      <FieldArray name="impedance.piles.heads">
+        {(arr) => (
+          <div className="space-y-2">
+            <table className="text-sm" aria-label="Pile layout">
+              <thead>
+                <tr>
+                  <th className="pr-2 text-left">Pile</th>
+                  <th className="pr-2 text-left">x</th>
+                  <th className="pr-2 text-left">y</th>
+                  <th />
+                </tr>
+              </thead>
+              <tbody>
+                {piles.heads.map((_, i) => (
+                  <tr key={i}>
+                    <td className="pr-2 align-bottom text-xs">{i + 1}</td>
+                    <td className="pr-2">
+                      <NumberField name={`impedance.piles.heads.${i}.x`} label={`Pile ${i + 1} x`} kind="length" readOnly={readOnly} compact />
+                    </td>
+                    <td className="pr-2">
+                      <NumberField name={`impedance.piles.heads.${i}.y`} label={`Pile ${i + 1} y`} kind="length" readOnly={readOnly} compact />
+                    </td>
+                    <td className="align-bottom">
+                      {readOnly ? null : (
+                        <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" disabled={piles.heads.length <= 2} onClick={() => arr.remove(i)} aria-label={`Remove pile ${i + 1}`}>
+                          Remove
+                        </button>
+                      )}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            {readOnly ? null : (
+              <button type="button" className="btn-quiet text-xs" onClick={() => arr.push(newPileHead())}>
+                Add a pile
+              </button>
+            )}
+          </div>
+        )}
+      </FieldArray>
     </div>
   );
 }

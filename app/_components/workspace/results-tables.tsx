@@ -188,7 +188,9 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
         ? `Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots; dynamic coefficients: ${dynamic?.label ?? ""}`
         : imp.method === "springs"
           ? "Steel springs at their positions, assembled at O (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²)"
-          : "Springs and damping ratios given by the user";
+          : imp.method === "piles"
+            ? "Rigid cap on vertical flexible piles: single-pile head stiffness and damping (Gazetas 1991; vertical: a compressible rod whose static limit is Randolph & Wroth 1978), group at O by superposition with the dynamic interaction factors of Dobry & Gazetas (1988); a full 6 × 6 with the sway-rocking coupling; the cap's own soil contact ignored"
+            : "Springs and damping ratios given by the user";
   return (
     <div>
       <table>
@@ -217,6 +219,7 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
       </table>
       <SoilFactorsTable imp={imp} />
       {result.springs ? <SpringsTable springs={result.springs} /> : null}
+      {imp.method === "piles" ? <PilesTable imp={imp} /> : null}
       <Explain
         method={methodText}
         formula={
@@ -230,7 +233,9 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
                   : "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; k_z = 1 − (0.4 + 0.2/(L/B)) a0²/(10/(1 + 3(L/B − 1)) + a0²); C_rx = ρ V_La I_bx a0²/(2.2 − 0.4/(L/B)³ + a0²) …; material damping K(1 + 2iβ)"
               : imp.method === "springs"
                 ? "dashpots: the dampers' Σcz, Σch assembled like the springs, or c = 2 D √(k M_ii); TR = √(1 + (2ζr)²) / √((1 − r²)² + (2ζr)²)"
-                : "c = 2 D √(k M_ii)"
+                : imp.method === "piles"
+                  ? "K_HH = d Es (Ep/Es)^0.21, K_MM = 0.15 d³ Es (Ep/Es)^0.75, K_HM = −0.22 d² Es (Ep/Es)^0.50 (uniform; linear: 0.6/0.35, 0.14/0.80, 0.17/0.60); ξ_HH = 0.8β + 1.10 (f d/Vs)(Ep/Es)^0.17 …; α(S) = (S/r0)^−½ e^(−βωS/V) e^(−iωS/V); K_group = Σ Z Tᵀ A⁻¹ T; radiation dashpots kept ≥ 0"
+                  : "c = 2 D √(k M_ii)"
         }
         source={
           imp.method === "equivalent-radius"
@@ -239,7 +244,9 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
               ? `Gazetas (1991), J. Geotech. Eng. ASCE 117(9), Tables 1 and 2; dynamic coefficients: ${dynamic?.source ?? ""}`
               : imp.method === "springs"
                 ? "Catalogue spring stiffness typed by the designer; rigid-body kinematics; Chopra, Dynamics of Structures, §3.6 (transmissibility)"
-                : "User-entered values"
+                : imp.method === "piles"
+                  ? "Gazetas (1991), Foundation Engineering Handbook ch. 15; Randolph & Wroth (1978), J. Geotech. Eng. Div. ASCE 104(GT12); Dobry & Gazetas (1988), Géotechnique 38(4) (forms recalled, see the method notes)"
+                  : "User-entered values"
         }
         inputs={[
           ...(imp.shearModulus !== undefined ? ([["G", `${u.toResultText("modulus", imp.shearModulus)} ${u.unitLabel("modulus")}`]] as [string, string][]) : []),
@@ -248,6 +255,44 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
           ...Object.entries(imp.details ?? {}).map(([k, v]) => [k, sig(v, { digits: 4 })] as [string, string]),
         ]}
       />
+    </div>
+  );
+}
+
+const couplingLabel = (a: string, b: string) => `${dofLabel[a] ?? a} – ${dofLabel[b] ?? b}`;
+
+/** Method "piles": the single pile's head values, the group efficiencies and the coupling terms at O. */
+function PilesTable({ imp }: { imp: AnalysisResult["impedance"] }) {
+  const u = useUnits();
+  const d = imp.details ?? {};
+  const row = (label: string, value: number | undefined, kind: QuantityKey | null) =>
+    value === undefined ? null : (
+      <tr key={label}>
+        <td className="text-xs">{label}</td>
+        <td className="text-right font-mono text-xs">{kind ? `${u.toResultText(kind, value)} ${u.unitLabel(kind)}` : sig(value, { digits: 4 })}</td>
+      </tr>
+    );
+  const coupled = (imp.coupling ?? []).filter((c) => Math.abs(c.stiffness) > 0 && (c.dofs.join() === "x,ry" || c.dofs.join() === "y,rx" || c.dofs.join() === "rx,ry"));
+  return (
+    <div className="mt-3 space-y-2" data-testid="piles-table">
+      <table>
+        <caption className="text-left text-xs font-semibold">Single pile and group</caption>
+        <tbody>
+          {row("Number of piles", d.pileCount, null)}
+          {row("Stiffness ratio Ep/Es", d.stiffnessRatio, null)}
+          {row("Active length La (Gazetas 1991)", d.activeLength, "length")}
+          {row("Pile vertical stiffness, static (Randolph & Wroth 1978 load transfer)", d.pileVerticalStiffness, "stiffness")}
+          {row("Pile lateral stiffness K_HH", d.pileLateralStiffness, "stiffness")}
+          {row("Pile rocking stiffness K_MM", d.pileRockingStiffness, "rotationalStiffness")}
+          {row("Pile cross stiffness K_x,ry", d.pileCrossStiffness, "couplingStiffness")}
+          {row("Static group efficiency, vertical (group / n × single)", d.groupEfficiencyVertical, null)}
+          {row("Static group efficiency, lateral", d.groupEfficiencyLateral, null)}
+          {coupled.map((c) => row(`Coupling ${couplingLabel(c.dofs[0], c.dofs[1])} at rated speed`, c.stiffness, c.dofs[1]?.startsWith("r") && c.dofs[0]?.startsWith("r") ? "rotationalStiffness" : "couplingStiffness"))}
+        </tbody>
+      </table>
+      <p className="text-2xs text-basalt-400">
+        The table above gives the diagonal at O; a pile group also couples sliding and rocking (K_x,ry, K_y,rx), which the modes and responses include.
+      </p>
     </div>
   );
 }

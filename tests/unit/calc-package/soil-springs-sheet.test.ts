@@ -7,6 +7,7 @@ import ExcelJS from "exceljs";
 import { describe, expect, it } from "vitest";
 import { parseAnalysisInput } from "@/modules/calc";
 import { buildRevisionWorkbook, PACKAGE_SHEETS } from "@/modules/calc-package";
+import { DOF_NAMES } from "@/modules/calc-package/revision-workbook";
 import { packageData, roundTrip } from "./fixtures";
 
 function texts(ws: ExcelJS.Worksheet): string[] {
@@ -70,4 +71,37 @@ describe("soil-springs sheet names the source of the Gazetas dynamic coefficient
     const simp = await sheetFor("simplified");
     expect(String(rowWith(simp.springs, "Dynamic coefficients k(a0), c(a0)").getCell(3).value)).toMatch(/Lysmer-analog limit/);
   });
+});
+
+describe("package of a pile cap (method piles, engine 1.6.0)", () => {
+  const lastRowWithText = (ws: ExcelJS.Worksheet) => {
+    let last = 0;
+    ws.eachRow((row, n) => row.eachCell((c) => void (c.value !== null && c.value !== "" ? (last = n) : undefined)));
+    return last;
+  };
+
+  for (const system of ["si", "us"] as const) {
+    it(`${system}: the inputs sheet lists the piles, the soil-springs sheet the single pile, group and coupling terms, and both print their whole content`, async () => {
+      const p = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", "pile-cap.json"), "utf8")));
+      if (!p.ok) throw new Error("example invalid");
+      const d = packageData(p.input, system);
+      const wb = await roundTrip(Buffer.from(await buildRevisionWorkbook(d).xlsx.writeBuffer()));
+      const inputs = wb.getWorksheet(PACKAGE_SHEETS.inputs)!;
+      expect(texts(inputs)).toContain("Pile heads (input coordinates)");
+      const springs = wb.getWorksheet(PACKAGE_SHEETS.springs)!;
+      expect(texts(springs)).toContain("Single pile and group (sources: Gazetas 1991; Randolph & Wroth 1978; Dobry & Gazetas 1988)");
+      const cross = rowWith(springs, "Pile cross stiffness K_x,ry (Gazetas 1991)");
+      expect(String(cross.getCell(1).value)).toContain(system === "si" ? "[MN/rad]" : "[kip/rad]");
+      const xry = d.result.impedance.coupling?.find((t) => t.dofs.join() === "x,ry");
+      expect(Number(rowWith(springs, `${DOF_NAMES.x} / ${DOF_NAMES.ry}: stiffness`).getCell(2).value)).toBeLessThan(0);
+      expect(xry?.stiffness).toBeLessThan(0);
+      // page setup like every other sheet: fit to one page wide, a print area reaching the last written row
+      for (const ws of [inputs, springs]) {
+        expect(ws.pageSetup.fitToWidth).toBe(1);
+        const area = String(ws.pageSetup.printArea);
+        const lastRow = Number(/(\d+)$/.exec(area)?.[1]);
+        expect(lastRow).toBeGreaterThanOrEqual(lastRowWithText(ws));
+      }
+    });
+  }
 });

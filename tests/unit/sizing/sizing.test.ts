@@ -421,3 +421,16 @@ describe("a required margin inside every limit", () => {
     }
   });
 });
+
+describe("a pile cap (method piles, issue 16)", () => {
+  it("never proposes or analyses a cap that leaves a pile head uncovered: the minimum fit holds every pile's circle", () => {
+    const doc = load("pile-cap.json");
+    const out = proposeBlockSizes(doc, { maxAnalyses: 12, dimensions: { length: { min: 2, max: 5 }, thickness: { min: 1.0, max: 1.4 } } });
+    if (!out.ok) throw new Error(JSON.stringify(out.issues));
+    // heads at x = +-1.4, y = +-0.8, d = 0.5: 2 (1.4 + 0.25) by 2 (0.8 + 0.25), and more when the mat must also carry the machine's bearings
+    expect(out.result.minimumFit.length).toBeCloseTo(3.3, 9);
+    expect(out.result.minimumFit.width).toBeGreaterThanOrEqual(2.1 - 1e-9);
+    expect(out.result.candidates.doNotFit).toBeGreaterThan(0);
+    expect(out.result.analysesRun).toBeGreaterThan(0);
+  });
+});
