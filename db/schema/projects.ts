@@ -60,10 +60,25 @@ export const foundations = pgTable(
     withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
     withdrawnById: uuid("withdrawn_by_id").references(() => users.id, { onDelete: "set null" }),
     withdrawalReason: text("withdrawal_reason").notNull().default(""),
+    // Raised by a commissioning record whose fitted soil shear modulus falls outside the
+    // design's soil band (the latest such record; cleared by a later record inside the band).
+    soilFlag: jsonb("soil_flag").$type<FoundationSoilFlag | null>(),
     ...stamps,
   },
   (t) => [unique("foundations_project_tag_uq").on(t.projectId, t.tag)],
 );
+
+/** The soil flag on a foundation: which record fitted which G, against which band (Pa). */
+export interface FoundationSoilFlag {
+  recordId: string;
+  revisionId: string;
+  revisionLabel: string;
+  fittedShearModulus: number;
+  bandLower: number;
+  bandUpper: number;
+  side: "below" | "above";
+  raisedAt: string;
+}
 
 export type ProjectRow = typeof projects.$inferSelect;
 export type ProjectMemberRow = typeof projectMembers.$inferSelect;
