@@ -1,5 +1,8 @@
 import { index, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import type { FoundationSoilFlag } from "@/modules/desk/measurement-flag";
 import { users } from "./accounts";
+
+export type { FoundationSoilFlag };
 
 const stamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -67,18 +70,6 @@ export const foundations = pgTable(
   },
   (t) => [unique("foundations_project_tag_uq").on(t.projectId, t.tag)],
 );
-
-/** The soil flag on a foundation: which record fitted which G, against which band (Pa). */
-export interface FoundationSoilFlag {
-  recordId: string;
-  revisionId: string;
-  revisionLabel: string;
-  fittedShearModulus: number;
-  bandLower: number;
-  bandUpper: number;
-  side: "below" | "above";
-  raisedAt: string;
-}
 
 export type ProjectRow = typeof projects.$inferSelect;
 export type ProjectMemberRow = typeof projectMembers.$inferSelect;
