@@ -380,3 +380,19 @@ export async function listRevisionMeasurementsForPackage(revisionId: string): Pr
     createdByName,
   }));
 }
+
+/**
+ * The foundation's approved revision of record (the latest approved), for a link to its site
+ * measurements. The caller has already checked that the actor may see the foundation
+ * (a vendor: through its company's data request).
+ */
+export async function getRevisionOfRecordRef(projectId: string, foundationId: string): Promise<{ id: string; label: string } | undefined> {
+  const rows = await getDb()
+    .select({ id: revisions.id, label: revisions.label })
+    .from(revisions)
+    .innerJoin(revisionDecisions, eq(revisionDecisions.revisionId, revisions.id))
+    .where(and(eq(revisions.projectId, projectId), eq(revisions.foundationId, foundationId), eq(revisionDecisions.outcome, "approved")))
+    .orderBy(desc(revisions.sequence))
+    .limit(1);
+  return rows[0];
+}

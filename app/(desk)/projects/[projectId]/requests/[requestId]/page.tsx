@@ -5,6 +5,7 @@ import { roleAllows } from "@/modules/platform/permissions";
 import { diffMachines } from "@/modules/vendor-data/diff";
 import { MAX_DATA_BYTES, MAX_DRAWING_BYTES } from "@/modules/vendor-data/layout";
 import { getDraft } from "@/db/queries/drafts";
+import { getRevisionOfRecordRef } from "@/db/queries/commissioning";
 import { getVendorRequest, requestStatusLabels, type FileMeta } from "@/db/queries/vendor-requests";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
 import { DataDiff } from "../../../../../_components/vendor/data-diff";
@@ -38,6 +39,8 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
   const draft = mayReview ? await getDraft(actor, projectId, request.foundationId) : undefined;
   const api = `/api/v1/projects/${projectId}/requests/${requestId}`;
   const newest = request.submissions[0];
+  // The approved revision of record, where the vendor's field staff record site measurements.
+  const ofRecord = await getRevisionOfRecordRef(projectId, request.foundationId);
   return (
     <div className="space-y-6">
       <div>
@@ -62,6 +65,18 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
         </p>
         {request.message ? <p className="mt-2 text-sm">Note: {request.message}</p> : null}
       </div>
+
+      {ofRecord && roleAllows(role, "measurement.read") ? (
+        <section className="slab space-y-2 p-5" data-testid="request-site-measurements">
+          <h2>Site measurements</h2>
+          <p className="text-sm">
+            Revision {ofRecord.label} of {request.foundationTag} is approved: vibration measured on site (acceptance test, later surveys) is recorded against it.{" "}
+            <Link href={`/projects/${projectId}/foundations/${request.foundationId}/revisions/${ofRecord.id}/commissioning`} data-testid="request-site-measurements-link">
+              Open the site measurements of revision {ofRecord.label}
+            </Link>
+          </p>
+        </section>
+      ) : null}
 
       <section className="slab space-y-3 p-5">
         <h2>Data sheet</h2>

@@ -28,6 +28,14 @@ export async function requireCommissioningScope(actor: Actor, projectId: string,
   return scope;
 }
 
+const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** For pages: the read scope, or undefined (the page answers not-found). */
+export async function requireCommissioningScopeForPage(actor: Actor, projectId: string, foundationId: string, revisionId: string): Promise<CommissioningScope | undefined> {
+  if (!uuid.test(foundationId) || !uuid.test(revisionId)) return undefined;
+  return getCommissioningScope(actor, projectId, foundationId, revisionId, "measurement.read");
+}
+
 /** The record's fields from the multipart text fields, or 400 naming each field. */
 export function parseMeasurementFields(fields: Record<string, string>): MeasurementFields {
   const parsed = measurementFieldsSchema.safeParse(fields);
