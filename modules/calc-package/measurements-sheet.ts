@@ -3,7 +3,8 @@
 // the ratio, and the soil calibration. Written only when the revision has records.
 import { CAUTIONS } from "@/modules/platform/cautions";
 import type { Cell, SheetWriter } from "./sheet-writer";
-import type { RevisionPackageData } from "./types";
+import { POSITION_WORDS, recordVerdictText, storedCalibration, storedVerdicts } from "@/modules/desk/measurement-view";
+import type { PackageMeasurement, RevisionPackageData } from "./types";
 
 export const MEASUREMENTS_SHEET = "Site measurements";
 
@@ -68,8 +69,65 @@ export function writeMeasurementsSheet(w: SheetWriter, d: RevisionPackageData): 
         { label: "Design band, lower G", value: r.calibration.bandLower, kind: "modulus" },
         { label: "Design band, upper G", value: r.calibration.bandUpper, kind: "modulus" },
         { label: "Position against the band", value: r.calibration.position },
-        { label: "Fitted model at the operating speed", value: r.calibration.atOperating },
       ]);
+      if (r.calibration.atOperating.length) {
+        for (const kind of ["frequency", "velocity", "displacement", "ratio"] as const) {
+          const rows = r.calibration.atOperating.filter((x) => x.kind === kind);
+          if (!rows.length) continue;
+          w.table(`${title}: the fitted model at the operating speed`, [{ header: "Quantity" }, { header: "Design", kind }, { header: "Fitted soil", kind }], rows.map((x): Cell[] => [x.label, x.designed, x.fitted]));
+        }
+      }
     }
   });
+}
+
+/** A stored record (db row shape) as the sheet lists it. */
+export function packageMeasurementOf(r: {
+  measuredOn: string;
+  measuredBy: string;
+  instrument: string;
+  instrumentCalibratedOn: string;
+  speedRpm: number;
+  load: string;
+  kind: string;
+  fileName: string;
+  sha256: string;
+  createdByName: string;
+  supersededById: string | null;
+  verdicts: unknown;
+  calibration: unknown;
+  engineVersion: string;
+}): PackageMeasurement {
+  const v = storedVerdicts(r.verdicts);
+  const c = storedCalibration(r.calibration);
+  return {
+    measuredOn: r.measuredOn,
+    measuredBy: r.measuredBy,
+    instrument: r.instrument,
+    instrumentCalibratedOn: r.instrumentCalibratedOn,
+    speedRpm: r.speedRpm,
+    load: r.load,
+    kind: r.kind === "run-up" ? "run-up trace" : "readings",
+    fileName: r.fileName,
+    sha256: r.sha256,
+    createdByName: r.createdByName,
+    correctedBy: r.supersededById !== null,
+    verdict: recordVerdictText(r.verdicts),
+    readings: (v?.readings ?? []).map((x) => ({
+      location: x.location,
+      direction: x.direction,
+      kind: x.kind,
+      asMeasured: x.measuredBasis,
+      value: x.value,
+      basis: x.basis,
+      predicted: x.predicted,
+      ratio: x.ratio,
+      limit: x.limit,
+      zone: x.zone,
+      verdict: x.verdictText,
+    })),
+    resonancesRpm: (v?.resonances ?? []).map((x) => x.rpm),
+    calibration: c ? { fittedShearModulus: c.fittedShearModulus, bandLower: c.bandLower, bandUpper: c.bandUpper, position: POSITION_WORDS[c.position], atOperating: c.atOperating } : null,
+    engineVersion: r.engineVersion,
+  };
 }

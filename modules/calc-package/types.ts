@@ -114,7 +114,7 @@ export interface PackageMeasurement {
   readings: PackageMeasurementReading[];
   /** Measured resonance speeds (rpm) of a run-up trace. */
   resonancesRpm: number[];
-  calibration: { fittedShearModulus: number; bandLower: number; bandUpper: number; position: string; atOperating: string } | null;
+  calibration: { fittedShearModulus: number; bandLower: number; bandUpper: number; position: string; atOperating: { label: string; kind: "frequency" | "velocity" | "displacement" | "ratio"; designed: number | null; fitted: number | null }[] } | null;
   engineVersion: string;
 }
 
