@@ -15,6 +15,7 @@ import { listMemberEmailsByRole } from "@/db/queries/revisions";
 import { appUrl, sendEmail } from "@/app/_lib/mailer";
 import { evaluateInPool } from "@/app/_lib/analysis-pool";
 import { MAX_MEASUREMENT_BYTES, readMeasurementUpload } from "@/modules/desk/measurement-intake";
+import { knownPointsOf } from "@/modules/commissioning/response";
 
 export function commissioningPath(projectId: string, foundationId: string, revisionId: string, recordId?: string): string {
   const base = `/projects/${projectId}/foundations/${foundationId}/revisions/${revisionId}/commissioning`;
@@ -62,7 +63,8 @@ export async function addMeasurementRecord(
   file: { fileName: string; bytes: Buffer },
 ): Promise<CreatedMeasurement> {
   const projectId = scope.membership.projectId;
-  const intake = await readMeasurementUpload(file.bytes, fields.kind);
+  // The file may name only the revision's own bearings and check points (a typo is a cell error, not a reading without prediction).
+  const intake = await readMeasurementUpload(file.bytes, fields.kind, knownPointsOf(scope.revision.input));
   if (!intake.ok) {
     await recordAuditEvent({ projectId, actorId: actor.userId, action: "measurement-upload.refused", detail: { foundationId: scope.foundation.id, revisionId: scope.revision.id, reason: intake.reason, problems: intake.problems.length } });
     if (intake.reason === "too_large") throw new AppError("payload_too_large", intake.problems[0]?.message ?? `A measurement file may be at most ${formatBytes(MAX_MEASUREMENT_BYTES)}.`);
