@@ -12,7 +12,7 @@
 // log misfits. Bounds: 0.25 x to 4 x the design G (a product choice, stated with the result).
 import type { AnalysisInput } from "@/modules/calc/schema";
 import { governingAmplitudes } from "@/modules/calc/rotor-response";
-import { buildResponseModel, SoilResponse, type AxisIndex, type ModelPoint } from "./response";
+import { AXIS_SHARE_MIN, axisShare, buildResponseModel, SoilResponse, type AxisIndex, type ModelPoint } from "./response";
 import { toVelocityRms } from "./conversions";
 import type { AmplitudeQuantity } from "./types";
 import { refinePeak } from "./peaks";
@@ -23,7 +23,7 @@ export const CALIBRATION_TOLERANCE = 1e-4;
 export const CALIBRATION_TOLERANCE_TEXT = "search tolerance 0.01 % on G (1e-4 on ln G)";
 
 export type CalibrationTarget =
-  | { kind: "natural"; hz: number }
+  | { kind: "natural"; hz: number; at?: { point: ModelPoint; axis: AxisIndex } }
   | { kind: "peak"; hz: number; point: ModelPoint; axis: AxisIndex; quantity: AmplitudeQuantity; fromRpm: number; toRpm: number };
 
 export interface CalibrationFit {
@@ -78,15 +78,17 @@ export function calibrateShearModulus(input: AnalysisInput, targets: Calibration
   const design = new SoilResponse(model, 1);
   const designG = design.case.soil.shearModulus;
   let evaluations = 1;
-  // Natural targets follow the mode nearest them at the design G (by index, ascending).
-  const designHz = design.naturalHz;
+  // A natural target follows one mode (by index, ascending): of the modes that move its point in
+  // its direction (when the reading says where), the one nearest it at the design G. Which mode a
+  // resonance belongs to is a judgement; it is stated with the result.
   const modeOf = targets.map((t) => {
     if (t.kind !== "natural") return -1;
-    let best = 0;
-    designHz.forEach((hz, i) => {
-      if (Math.abs(Math.log(hz / t.hz)) < Math.abs(Math.log((designHz[best] as number) / t.hz))) best = i;
-    });
-    return best;
+    const candidates = design.case.modes.map((m, i) => ({ i, hz: m.frequencyHz, share: t.at ? axisShare(m.shape, t.at.point.local, t.at.axis) : 1 }));
+    const moving = candidates.filter((c) => c.share >= AXIS_SHARE_MIN);
+    const pool = moving.length ? moving : candidates;
+    let best = pool[0] as { i: number; hz: number };
+    for (const c of pool) if (Math.abs(Math.log(c.hz / t.hz)) < Math.abs(Math.log(best.hz / t.hz))) best = c;
+    return best.i;
   });
   const cache = new Map<number, { response: SoilResponse; hz: (number | null)[] }>();
   const evaluate = (s: number) => {
@@ -156,7 +158,9 @@ export function calibrateShearModulus(input: AnalysisInput, targets: Calibration
     );
   }
   if (targets.some((t) => t.kind === "peak")) notes.push("A run-up resonance is fitted to the model's predicted response peak at the same bearing and direction over the traced speeds, not to an undamped natural frequency.");
-  if (targets.some((t) => t.kind === "natural")) notes.push("A stated resonance is fitted to the model's nearest undamped natural frequency (chosen at the design G).");
+  targets.forEach((t, i) => {
+    if (t.kind === "natural") notes.push(`The resonance at ${t.hz.toPrecision(4)} Hz is fitted to the model's undamped natural frequency of mode ${(modeOf[i] as number) + 1} (${design.case.modes[modeOf[i] as number]?.dominant ?? "?"}), the nearest at the design G${t.at ? " of the modes moving that point in that direction" : ""}.`);
+  });
   return {
     ok: true,
     factor: Math.exp(s),

@@ -75,7 +75,8 @@ export function traceInDesignBasis(trace: RunUpTrace): { hz: number; value: numb
 /**
  * Resonances of a trace: the largest amplitude when it is inside the traced speeds (not at an
  * end), refined by a parabola through its neighbours, and any other local maximum at least half
- * as high that stands above the two samples either side. Speeds (rpm), ascending.
+ * as high that stands above the two samples either side. Speeds (rpm), highest amplitude first
+ * (the first is the trace's peak: the one the calibration fits to the model's predicted peak).
  */
 export function traceResonances(trace: RunUpTrace): number[] {
   const s = trace.samples;
@@ -84,13 +85,13 @@ export function traceResonances(trace: RunUpTrace): number[] {
   const y = s.map((p) => p.value);
   const x = s.map((p) => p.rpm);
   const top = Math.max(...y);
-  const found: number[] = [];
+  const found: { rpm: number; amplitude: number }[] = [];
   for (let k = 1; k < n - 1; k++) {
     const v = y[k] as number;
     if (!(v > 0 && v >= 0.5 * top)) continue;
     let standsOut = true;
     for (let j = Math.max(0, k - 2); j <= Math.min(n - 1, k + 2); j++) if (j !== k && (y[j] as number) >= v) standsOut = false;
-    if (standsOut) found.push(refinePeak(x, y, k));
+    if (standsOut) found.push({ rpm: refinePeak(x, y, k), amplitude: v });
   }
-  return found;
+  return found.sort((a, b) => b.amplitude - a.amplitude).map((f) => f.rpm);
 }

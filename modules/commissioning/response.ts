@@ -129,22 +129,24 @@ export class SoilResponse {
 }
 
 /**
- * The lowest natural frequency whose mode shape moves the point mainly in `axis` (the axis
- * component at least 30 % of the point's motion in that mode: a judgement of this desk, not a
- * standard's figure), for the ISO support class; null when no mode does.
+ * The share of a mode's motion at a point that is along `axis` (0 to 1): |u_axis| / |u| with
+ * u_p = U_t + Theta x p from the mode shape about O.
  */
+export function axisShare(shape: number[], local: Vec3, axis: AxisIndex): number {
+  const [ux, uy, uz, tx, ty, tz] = [0, 1, 2, 3, 4, 5].map((i) => shape[i] ?? 0) as [number, number, number, number, number, number];
+  const [px, py, pz] = local;
+  const u = [ux + ty * pz - tz * py, uy + tz * px - tx * pz, uz + tx * py - ty * px];
+  const total = Math.hypot(u[0] as number, u[1] as number, u[2] as number);
+  return total === 0 ? 0 : Math.abs(u[axis] as number) / total;
+}
+
+/** A mode "moves the point in the direction" when at least 30 % of its motion there is along it: a judgement of this desk, not a standard's figure. */
+export const AXIS_SHARE_MIN = 0.3;
+
+/** The lowest natural frequency whose mode moves the point in `axis`, for the ISO support class; null when none does. */
 export function lowestModeInAxis(modes: { frequencyHz: number; shape: number[] }[], local: Vec3, axis: AxisIndex): number | null {
   let lowest: number | null = null;
-  for (const m of modes) {
-    const s = m.shape;
-    const [ux, uy, uz, tx, ty, tz] = [0, 1, 2, 3, 4, 5].map((i) => s[i] ?? 0) as [number, number, number, number, number, number];
-    const [px, py, pz] = local;
-    // u_p = U_t + Theta x p
-    const u = [ux + ty * pz - tz * py, uy + tz * px - tx * pz, uz + tx * py - ty * px];
-    const total = Math.hypot(u[0] as number, u[1] as number, u[2] as number);
-    if (total === 0) continue;
-    if (Math.abs(u[axis] as number) / total >= 0.3 && (lowest === null || m.frequencyHz < lowest)) lowest = m.frequencyHz;
-  }
+  for (const m of modes) if (axisShare(m.shape, local, axis) >= AXIS_SHARE_MIN && (lowest === null || m.frequencyHz < lowest)) lowest = m.frequencyHz;
   return lowest;
 }
 

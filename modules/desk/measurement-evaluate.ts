@@ -90,9 +90,15 @@ export function evaluateMeasurement(job: MeasurementEvaluationJob): MeasurementE
 
   // Calibration targets: stated resonances (natural frequencies) and the trace's resonance(s).
   const targets: CalibrationTarget[] = [
-    ...readings.filter((r) => r.quantity === "resonance").map((r): CalibrationTarget => ({ kind: "natural", hz: r.value })),
+    ...readings
+      .filter((r) => r.quantity === "resonance")
+      .map((r): CalibrationTarget => {
+        const at = predictor.locate(r.bearing, r.direction);
+        return at ? { kind: "natural", hz: r.value, at } : { kind: "natural", hz: r.value };
+      }),
     ...(trace && locatedTrace
-      ? resonanceRpm.map((rpm): CalibrationTarget => ({ kind: "peak", hz: rpm / 60, point: locatedTrace.point, axis: locatedTrace.axis, quantity: trace.quantity, fromRpm: trace.samples[0]!.rpm, toRpm: trace.samples[trace.samples.length - 1]!.rpm }))
+      ? // the trace's highest peak against the model's predicted peak over the same speeds
+        resonanceRpm.slice(0, 1).map((rpm): CalibrationTarget => ({ kind: "peak", hz: rpm / 60, point: locatedTrace.point, axis: locatedTrace.axis, quantity: trace.quantity, fromRpm: trace.samples[0]!.rpm, toRpm: trace.samples[trace.samples.length - 1]!.rpm }))
       : []),
   ];
   let calibration: StoredCalibration | null = null;
