@@ -1,0 +1,172 @@
+// Site measurements (commissioning) against the real PostgreSQL and the fake SMTP server: a
+// record added through the real route on an approved revision, its verdicts stored, the
+// database refusing to change it, a correction as a new record; the company rule; a bad file
+// refused naming its cell with nothing stored; a calibration outside the soil band flagging the
+// foundation and mailing the designer and the checker; the template downloaded, filled and
+// uploaded by the vendor's field staff.
+import ExcelJS from "exceljs";
+import { count, eq, sql } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { closeDb, getDb } from "@/db/client";
+import { foundations, measurementRecords } from "@/db/schema";
+import { createUser } from "@/db/queries/accounts";
+import { getOrCreateCompany, upsertMember } from "@/db/queries/projects";
+import { Predictor } from "@/modules/commissioning/prediction";
+import { READINGS_SHEET } from "@/modules/commissioning/readings";
+import { callRoute, cookieFor, demoEmail, getFixture, waitForEmail, type Fixture } from "./support/fixture";
+import { commissioningFoundation, postMeasurement, recordFields, type CommissioningFoundation } from "./support/commissioning-fixture";
+
+const BASE = "v1/projects/[projectId]/foundations/[foundationId]/revisions/[revisionId]/measurements";
+const stamp = Date.now().toString(36);
+const B1 = "Motor RWM-101 rotor bearing 1";
+
+let fx: Fixture;
+let cf: CommissioningFoundation;
+let otherVendorCookie: string;
+
+type ErrorBody = { error: { code: string; message: string; issues?: { path: string; message: string }[] } };
+type Created = { record: { id: string; sha256: string; supersedesId: string | null }; soilFlag: unknown };
+
+const csv = (rows: string[]) => Buffer.from(["bearing,direction,quantity,unit,value", ...rows].join("\r\n") + "\r\n", "utf8");
+const params = (c: CommissioningFoundation) => ({ projectId: c.projectId, foundationId: c.foundationId, revisionId: c.revisionId });
+
+async function recordCount(foundationId: string): Promise<number> {
+  const rows = await getDb().select({ n: count() }).from(measurementRecords).where(eq(measurementRecords.foundationId, foundationId));
+  return rows[0]?.n ?? 0;
+}
+
+beforeAll(async () => {
+  fx = await getFixture();
+  cf = await commissioningFoundation(fx);
+  const other = await createUser({ email: `field-${stamp}@other-vendor.test`, name: "Other Field Technician" });
+  await upsertMember({ projectId: fx.projectId, userId: other.id, role: "vendor", companyId: await getOrCreateCompany(`Other Vendor ${stamp}`) });
+  otherVendorCookie = await cookieFor(other.id);
+});
+
+afterAll(async () => {
+  await closeDb();
+});
+
+describe("a site measurement record on an approved revision", () => {
+  let first: Created;
+
+  it("designer uploads a CSV: 201, verdicts with prediction stored, file hash kept", async () => {
+    const file = csv([`${B1},vertical,velocity rms,mm/s,0.9`, `${B1},horizontal,velocity rms,mm/s,3.1`, `${B1},axial,displacement peak-to-peak,µm,8`]);
+    const res = await postMeasurement(fx.cookies.designer, cf, file, "survey.csv", recordFields());
+    expect(res.status).toBe(201);
+    first = (await res.json()) as Created;
+    expect(first.record.sha256).toMatch(/^[0-9a-f]{64}$/);
+    const [row] = await getDb().select().from(measurementRecords).where(eq(measurementRecords.id, first.record.id));
+    const verdicts = row!.verdicts as { record: { verdict: string }; readings: { verdict: string; predicted: number | null; ratio: number | null; zone: string | null; value: number }[] };
+    expect(verdicts.readings).toHaveLength(3);
+    // 3.1 mm/s r.m.s. is above the default 1.4 mm/s criterion: the record fails
+    expect(verdicts.record.verdict).toBe("fail");
+    expect(verdicts.readings[0]!.verdict).toBe("pass");
+    expect(verdicts.readings[0]!.value).toBeCloseTo(0.9e-3 * Math.SQRT2, 12);
+    expect(verdicts.readings.every((r) => r.predicted !== null && r.predicted > 0 && r.ratio !== null)).toBe(true);
+    expect(row!.calibration).toBeNull();
+    expect(row!.companyId).toBeNull();
+  });
+
+  it("is immutable in the database itself: UPDATE and DELETE are refused by the trigger", async () => {
+    // drizzle wraps the driver's error; PostgreSQL's own message is its cause
+    const refusal = async (q: Promise<unknown>) => {
+      try {
+        await q;
+      } catch (e) {
+        return String((e as { cause?: { message?: string } }).cause?.message ?? (e as Error).message);
+      }
+      return "not refused";
+    };
+    expect(await refusal(getDb().execute(sql`UPDATE measurement_records SET measured_by = 'someone else' WHERE id = ${first.record.id}`))).toMatch(/measurement_records rows are immutable: UPDATE refused/);
+    expect(await refusal(getDb().execute(sql`DELETE FROM measurement_records WHERE id = ${first.record.id}`))).toMatch(/immutable: DELETE refused/);
+    const [row] = await getDb().select({ by: measurementRecords.measuredBy }).from(measurementRecords).where(eq(measurementRecords.id, first.record.id));
+    expect(row!.by).toBe("Field technician (test)");
+  });
+
+  it("a correction is a new record pointing at the one it corrects; both stay listed", async () => {
+    const res = await postMeasurement(fx.cookies.designer, cf, csv([`${B1},vertical,velocity rms,mm/s,0.95`]), "survey-corrected.csv", recordFields({ supersedesId: first.record.id, note: "first file had the wrong unit" }));
+    expect(res.status).toBe(201);
+    const corrected = (await res.json()) as Created;
+    expect(corrected.record.id).not.toBe(first.record.id);
+    expect(corrected.record.supersedesId).toBe(first.record.id);
+    const list = await callRoute(BASE, "GET", params(cf), { cookie: fx.cookies.checker });
+    expect(list.status).toBe(200);
+    const { records } = (await list.json()) as { records: { id: string }[] };
+    expect(records.map((r) => r.id)).toEqual(expect.arrayContaining([first.record.id, corrected.record.id]));
+  });
+
+  it("a bad file is refused with 400 naming the cell, and nothing is stored", async () => {
+    const before = await recordCount(cf.foundationId);
+    const res = await postMeasurement(fx.cookies.designer, cf, csv([`${B1},vertical,velocity rms,mm/s,0.9`, `${B1},sideways,velocity rms,mm/s,1.2`, `bearing 7,vertical,velocity rms,mm/s,abc`]), "bad.csv", recordFields());
+    expect(res.status).toBe(400);
+    const body = (await res.json()) as ErrorBody;
+    const paths = body.error.issues?.map((i) => i.path) ?? [];
+    expect(paths).toEqual(expect.arrayContaining(["CSV!B3", "CSV!A4", "CSV!E4"]));
+    expect(body.error.issues?.find((i) => i.path === "CSV!B3")?.message).toMatch(/sideways/);
+    expect(await recordCount(cf.foundationId)).toBe(before);
+  });
+
+  it("a vendor of another company gets 404 and stores nothing; a record on an unapproved revision is refused", async () => {
+    const before = await recordCount(cf.foundationId);
+    const res = await postMeasurement(otherVendorCookie, cf, csv([`${B1},vertical,velocity rms,mm/s,0.9`]), "survey.csv", recordFields());
+    expect(res.status).toBe(404);
+    const list = await callRoute(BASE, "GET", params(cf), { cookie: otherVendorCookie });
+    expect(list.status).toBe(404);
+    expect(await recordCount(cf.foundationId)).toBe(before);
+    const inCheck = await commissioningFoundation(fx, { approved: false });
+    const refused = await postMeasurement(fx.cookies.designer, inCheck, csv([`${B1},vertical,velocity rms,mm/s,0.9`]), "survey.csv", recordFields());
+    expect(refused.status).toBe(409);
+    expect(await recordCount(inCheck.foundationId)).toBe(0);
+  });
+});
+
+describe("calibration from a measured resonance", () => {
+  it("a fitted G outside the band flags the foundation and mails the designer and the checker; a later fit inside clears it", async () => {
+    const c = await commissioningFoundation(fx);
+    // the vertical mode as the engine gives it at 0.4 x the design G (the band's lower end is 1 / 1.5)
+    const hz = new Predictor(c.input).design.naturalHz[2]! * Math.sqrt(0.4);
+    const res = await postMeasurement(fx.cookies.designer, c, csv([`${B1},vertical,velocity rms,mm/s,0.9`, `${B1},vertical,resonance,Hz,${hz.toFixed(4)}`]), "bump-test.csv", recordFields());
+    expect(res.status).toBe(201);
+    const created = (await res.json()) as Created;
+    expect(created.soilFlag).toMatchObject({ side: "below" });
+    const [f] = await getDb().select({ flag: foundations.soilFlag }).from(foundations).where(eq(foundations.id, c.foundationId));
+    expect(f!.flag).toMatchObject({ recordId: created.record.id, side: "below" });
+    const [row] = await getDb().select({ calibration: measurementRecords.calibration }).from(measurementRecords).where(eq(measurementRecords.id, created.record.id));
+    const cal = row!.calibration as { fittedShearModulus: number; designShearModulus: number; position: string };
+    expect(cal.position).toBe("below");
+    expect(cal.fittedShearModulus / cal.designShearModulus).toBeCloseTo(0.4, 2);
+    for (const role of ["designer", "checker"]) {
+      const mail = await waitForEmail(demoEmail(role), `${c.tag}: site-measured soil outside the design band`);
+      expect(mail.text).toMatch(/below the design band/);
+      expect(mail.text).toContain(created.record.id);
+    }
+    const inside = await postMeasurement(fx.cookies.manager, c, csv([`${B1},vertical,resonance,Hz,${(new Predictor(c.input).design.naturalHz[2]! * Math.sqrt(1.1)).toFixed(4)}`]), "resurvey.csv", recordFields());
+    expect(inside.status).toBe(201);
+    const [g] = await getDb().select({ flag: foundations.soilFlag }).from(foundations).where(eq(foundations.id, c.foundationId));
+    expect(g!.flag).toBeNull();
+  });
+});
+
+describe("the vendor's field staff", () => {
+  it("download the template, fill it and upload it: the record carries their company and they see it without the design side", async () => {
+    const tpl = await callRoute(`${BASE}/template`, "GET", params(cf), { cookie: fx.cookies.vendor });
+    expect(tpl.status).toBe(200);
+    expect(tpl.headers.get("content-type")).toMatch(/spreadsheetml/);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(Buffer.from(await tpl.arrayBuffer()) as unknown as ExcelJS.Buffer);
+    const ws = wb.getWorksheet(READINGS_SHEET)!;
+    expect(ws.getCell("A2").value).toBe(B1);
+    ws.getCell("E2").value = 1.1;
+    ws.getCell("E3").value = 1.6;
+    const res = await postMeasurement(fx.cookies.vendor, cf, Buffer.from(await wb.xlsx.writeBuffer()), "acceptance-test.xlsx", recordFields({ measuredBy: "Vendor field engineer" }));
+    expect(res.status).toBe(201);
+    const created = (await res.json()) as Created;
+    const [row] = await getDb().select({ companyId: measurementRecords.companyId }).from(measurementRecords).where(eq(measurementRecords.id, created.record.id));
+    expect(row!.companyId).not.toBeNull();
+    const list = await callRoute(BASE, "GET", params(cf), { cookie: fx.cookies.vendor });
+    const { records } = (await list.json()) as { records: { id: string }[] };
+    // the vendor sees its own company's record only, not the design team's
+    expect(records.map((r) => r.id)).toEqual([created.record.id]);
+  });
+});
