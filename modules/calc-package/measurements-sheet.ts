@@ -11,7 +11,7 @@ export const MEASUREMENTS_SHEET = "Site measurements";
 export function writeMeasurementsSheet(w: SheetWriter, d: RevisionPackageData): void {
   const records = d.measurements ?? [];
   w.title(`Site measurements against revision ${d.revision.label}`);
-  w.note("Each reading is converted to the basis of the design check it is compared with (rms or peak velocity, peak-to-peak or peak displacement, as stated), judged against the revision's criteria and the ISO 20816-3 zones, and set beside the prediction of this revision at the same bearing, direction and speed. Records are never changed: a correction is a later record.");
+  w.note("Each reading is converted to the basis of the design check it is compared with (rms or peak velocity, peak-to-peak or peak displacement, as stated), judged against the revision's criteria and the ISO 10816-3 / 20816-3 severity zones (boundaries recalled from memory), and set beside the prediction of this revision at the same bearing, direction and speed. Records are never changed: a correction is a later record.");
   w.note(CAUTIONS[0] ?? "");
   w.endTitleBlock();
   w.blank();

@@ -25,6 +25,12 @@ export const measurementFieldsSchema = z
     load: z.string().trim().max(200, "At most 200 characters").default(""),
     kind: z.enum(["readings", "run-up"], { message: 'Choose "readings" or "run-up"' }),
     note: z.string().trim().max(2000, "At most 2000 characters").default(""),
+    // ISO 10816-3 machine group for the severity zones: 1 above 300 kW, 2 from 15 to 300 kW.
+    // Not stated: group 2, whose boundaries are the lower ones (the safe side).
+    machineGroup: z
+      .enum(["", "1", "2"], { message: 'Choose machine group "1" or "2"' })
+      .optional()
+      .transform((v) => (v === "1" ? (1 as const) : v === "2" ? (2 as const) : undefined)),
     supersedesId: z
       .string()
       .trim()

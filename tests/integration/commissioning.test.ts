@@ -159,11 +159,15 @@ describe("the vendor's field staff", () => {
     expect(ws.getCell("A2").value).toBe(B1);
     ws.getCell("E2").value = 1.1;
     ws.getCell("E3").value = 1.6;
-    const res = await postMeasurement(fx.cookies.vendor, cf, Buffer.from(await wb.xlsx.writeBuffer()), "acceptance-test.xlsx", recordFields({ measuredBy: "Vendor field engineer" }));
+    const badGroup = await postMeasurement(fx.cookies.vendor, cf, Buffer.from(await wb.xlsx.writeBuffer()), "acceptance-test.xlsx", recordFields({ machineGroup: "3" }));
+    expect(badGroup.status).toBe(400);
+    expect(((await badGroup.json()) as ErrorBody).error.issues?.map((i) => i.path)).toEqual(["machineGroup"]);
+    const res = await postMeasurement(fx.cookies.vendor, cf, Buffer.from(await wb.xlsx.writeBuffer()), "acceptance-test.xlsx", recordFields({ measuredBy: "Vendor field engineer", machineGroup: "1" }));
     expect(res.status).toBe(201);
     const created = (await res.json()) as Created;
-    const [row] = await getDb().select({ companyId: measurementRecords.companyId }).from(measurementRecords).where(eq(measurementRecords.id, created.record.id));
+    const [row] = await getDb().select({ companyId: measurementRecords.companyId, verdicts: measurementRecords.verdicts }).from(measurementRecords).where(eq(measurementRecords.id, created.record.id));
     expect(row!.companyId).not.toBeNull();
+    expect((row!.verdicts as { zoneBasis: string }).zoneBasis).toMatch(/^machine group 1 \(as stated on the record\)/);
     const list = await callRoute(BASE, "GET", params(cf), { cookie: fx.cookies.vendor });
     const { records } = (await list.json()) as { records: { id: string }[] };
     // the vendor sees its own company's record only, not the design team's

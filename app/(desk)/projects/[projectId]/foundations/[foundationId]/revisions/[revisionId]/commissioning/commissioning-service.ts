@@ -76,7 +76,7 @@ export async function addMeasurementRecord(
       issues,
     );
   }
-  const evaluation = await evaluateInPool({ input: scope.revision.input, result: scope.revision.result, speedRpm: fields.speedRpm, readings: intake.readings, trace: intake.trace });
+  const evaluation = await evaluateInPool({ input: scope.revision.input, result: scope.revision.result, speedRpm: fields.speedRpm, readings: intake.readings, trace: intake.trace, ...(fields.machineGroup ? { machineGroup: fields.machineGroup } : {}) });
   const created = await createMeasurementRecord(actor, scope, {
     ...fields,
     file: { fileName: file.fileName, contentType: intake.contentType, bytes: file.bytes },

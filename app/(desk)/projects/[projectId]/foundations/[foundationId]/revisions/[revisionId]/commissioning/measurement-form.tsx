@@ -97,6 +97,14 @@ export function MeasurementForm(props: { apiBase: string; recordPathBase: string
             <option value="run-up">run-up or coast-down trace</option>
           </select>
         </label>
+        <label className="block">
+          <span className="field-label">Machine group (ISO 10816-3 zones)</span>
+          <select className="field-input" name="machineGroup" defaultValue="">
+            <option value="">not stated: group 2 (lower boundaries)</option>
+            <option value="1">group 1: above 300 kW</option>
+            <option value="2">group 2: 15 kW to 300 kW</option>
+          </select>
+        </label>
         {props.corrects?.length ? (
           <label className="block">
             <span className="field-label">Corrects an earlier record (optional)</span>

@@ -17,11 +17,11 @@ export const metadata: Metadata = { title: "Site measurements" };
 
 export default async function CommissioningPage({ params }: { params: Promise<{ projectId: string; foundationId: string; revisionId: string }> }) {
   const { projectId, foundationId, revisionId } = await params;
-  const { actor, project, role } = await requireProjectPage(projectId, "measurement.read");
+  const { actor, project, role, user } = await requireProjectPage(projectId, "measurement.read");
   const scope = await requireCommissioningScopeForPage(actor, projectId, foundationId, revisionId);
   if (!scope) notFound();
   const records = await listMeasurementRecords(scope);
-  const units = project.units;
+  const units = user.unitsPreference ?? project.units;
   const { foundation, revision } = scope;
   const mayAdd = roleAllows(role, "measurement.create") && revision.ofRecord && !foundation.withdrawnAt;
   const api = `/api/v1/projects/${projectId}/foundations/${foundationId}/revisions/${revisionId}/measurements`;
