@@ -106,7 +106,7 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
   a.blank();
   a.note("Governing check: the failing check that exceeds its limit most, or, when all pass, the one closest to its limit, from the latest revision as issued.");
   a.note("Flags: an approved revision whose vendor data the draft has since replaced, a draft that differs from the latest revision, and a site-measured soil shear modulus outside the design's soil band.");
-  a.note("Site measurement: the newest commissioning record not corrected by a later one, its verdict against the revision's criteria and the ISO 20816-3 zones, and the soil shear modulus fitted to its measured resonance (blank when the record has no resonance).");
+  a.note("Site measurement: the newest commissioning record not corrected by a later one, its verdict against the revision's criteria and the ISO 10816-3 / 20816-3 severity zones (boundaries recalled from memory), and the soil shear modulus fitted to its measured resonance (blank when the record has no resonance).");
   a.finish();
   return wb;
 }

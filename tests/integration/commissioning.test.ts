@@ -13,6 +13,8 @@ import { createUser } from "@/db/queries/accounts";
 import { getOrCreateCompany, upsertMember } from "@/db/queries/projects";
 import { Predictor } from "@/modules/commissioning/prediction";
 import { READINGS_SHEET } from "@/modules/commissioning/readings";
+import { MEASUREMENTS_SHEET, REGISTER_SHEETS } from "@/modules/calc-package";
+import { readTables, tableByTitle, toStored } from "../unit/calc-package/read-tables";
 import { callRoute, cookieFor, demoEmail, getFixture, waitForEmail, type Fixture } from "./support/fixture";
 import { commissioningFoundation, postMeasurement, recordFields, type CommissioningFoundation } from "./support/commissioning-fixture";
 
@@ -145,6 +147,29 @@ describe("calibration from a measured resonance", () => {
     expect(inside.status).toBe(201);
     const [g] = await getDb().select({ flag: foundations.soilFlag }).from(foundations).where(eq(foundations.id, c.foundationId));
     expect(g!.flag).toBeNull();
+
+    // the package carries a Site measurements sheet with both records; the register the latest verdict and fitted G
+    const pkg = await callRoute("v1/projects/[projectId]/foundations/[foundationId]/revisions/[revisionId]/package", "GET", params(c), { cookie: fx.cookies.manager });
+    expect(pkg.status).toBe(200);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(Buffer.from(await pkg.arrayBuffer()) as unknown as ExcelJS.Buffer);
+    const sheet = wb.getWorksheet(MEASUREMENTS_SHEET);
+    expect(sheet).toBeDefined();
+    const records = tableByTitle(readTables(sheet!), "Records");
+    const sha = records.headers.indexOf("SHA-256");
+    expect(records.rows.map((r) => r[sha])).toEqual(expect.arrayContaining([created.record.sha256]));
+    expect(records.rows).toHaveLength(2);
+    const reg = await callRoute("v1/projects/[projectId]/register", "GET", { projectId: c.projectId }, { cookie: fx.cookies.manager });
+    expect(reg.status).toBe(200);
+    const rwb = new ExcelJS.Workbook();
+    await rwb.xlsx.load(Buffer.from(await reg.arrayBuffer()) as unknown as ExcelJS.Buffer);
+    const table = tableByTitle(readTables(rwb.getWorksheet(REGISTER_SHEETS.register)!), "Foundations");
+    const regRow = table.rows.find((r) => r[0] === c.tag)!;
+    const gCol = table.headers.findIndex((h) => h.startsWith("Fitted soil G"));
+    const fitted = toStored(regRow[gCol] as number, table.headers[gCol]!);
+    const g0 = cal.designShearModulus;
+    // the latest record (fitted at 1.1 x G0) is the one the register shows
+    expect(fitted / g0).toBeCloseTo(1.1, 2);
   });
 });
 
