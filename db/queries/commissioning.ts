@@ -18,6 +18,7 @@ import {
 } from "../schema";
 import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
 import { AppError } from "@/modules/platform/errors";
+import { verdictsWithoutDesignSide } from "@/modules/desk/measurement-view";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { recordAuditEvent } from "./audit";
 import { storeFile } from "./files";
@@ -192,7 +193,8 @@ async function selectRecords(scope: CommissioningScope, recordId?: string): Prom
     createdByName,
     createdAt: m.createdAt,
     note: m.note,
-    verdicts: m.verdicts,
+    // a vendor reads its verdicts against the limits, not the design's prediction
+    verdicts: scope.design ? m.verdicts : verdictsWithoutDesignSide(m.verdicts),
     calibration: scope.design ? m.calibration : null,
     engineVersion: m.engineVersion,
     readings: m.readings,

@@ -96,3 +96,17 @@ export function recordVerdictText(v: unknown): string {
 }
 
 export const POSITION_WORDS = { below: "below the design band (softer soil)", inside: "inside the design band", above: "above the design band (stiffer soil)" } as const;
+
+/**
+ * The verdicts as a reader without the design side (a vendor) gets them: readings against the
+ * limits and zones, without the revision's prediction, ratio or predicted curve.
+ */
+export function verdictsWithoutDesignSide(v: unknown): unknown {
+  const s = storedVerdicts(v);
+  if (!s) return v;
+  return {
+    ...s,
+    readings: s.readings.map((r) => ({ ...r, predicted: null, ratio: null })),
+    tracePlot: s.tracePlot ? { ...s.tracePlot, predicted: [], predictedLabel: "" } : null,
+  };
+}

@@ -194,8 +194,16 @@ describe("the vendor's field staff", () => {
     expect(row!.companyId).not.toBeNull();
     expect((row!.verdicts as { zoneBasis: string }).zoneBasis).toMatch(/^machine group 1 \(as stated on the record\)/);
     const list = await callRoute(BASE, "GET", params(cf), { cookie: fx.cookies.vendor });
-    const { records } = (await list.json()) as { records: { id: string }[] };
-    // the vendor sees its own company's record only, not the design team's
+    const { records } = (await list.json()) as { records: { id: string; calibration: unknown; verdicts: { readings: { verdict: string; predicted: number | null; ratio: number | null }[] } }[] };
+    // the vendor sees its own company's record only, not the design team's, and no prediction
     expect(records.map((r) => r.id)).toEqual([created.record.id]);
+    expect(records[0]!.verdicts.readings.map((r) => [r.verdict, r.predicted, r.ratio])).toEqual([
+      ["pass", null, null],
+      ["fail", null, null],
+    ]);
+    expect(records[0]!.calibration).toBeNull();
+    const designer = await callRoute(`${BASE}/[recordId]`, "GET", { ...params(cf), recordId: created.record.id }, { cookie: fx.cookies.designer });
+    expect(designer.status).toBe(200);
+    expect(JSON.stringify(await designer.json())).toMatch(/"predicted":\d/);
   });
 });
