@@ -204,7 +204,13 @@ async function selectRecords(scope: CommissioningScope, recordId?: string): Prom
 
 /** The revision's records the reader may see, newest measurement first (summaries). */
 export async function listMeasurementRecords(scope: CommissioningScope): Promise<MeasurementSummary[]> {
-  return (await selectRecords(scope)).map(({ readings: _r, trace: _t, ...summary }) => summary);
+  return (await selectRecords(scope)).map((d): MeasurementSummary => {
+    // the parsed file stays out of a list; the record's own page reads it
+    const summary: MeasurementSummary & Partial<Pick<MeasurementDetail, "readings" | "trace">> = { ...d };
+    delete summary.readings;
+    delete summary.trace;
+    return summary;
+  });
 }
 
 export async function getMeasurementRecord(scope: CommissioningScope, recordId: string): Promise<MeasurementDetail | undefined> {
