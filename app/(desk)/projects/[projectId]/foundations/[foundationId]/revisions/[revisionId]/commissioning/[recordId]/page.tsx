@@ -119,7 +119,7 @@ export default async function MeasurementRecordPage({ params }: { params: Promis
                   <th scope="col">Direction</th>
                   <th scope="col">As measured</th>
                   <th scope="col">Compared as</th>
-                  {scope.design ? <th scope="col">Predicted</th> : null}
+                  {scope.design ? <th scope="col">Predicted (as compared)</th> : null}
                   {scope.design ? <th scope="col">Measured / predicted</th> : null}
                   <th scope="col">Limit</th>
                   <th scope="col">Zone</th>
