@@ -8,7 +8,7 @@ import ExcelJS from "exceljs";
 import { count, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb, getDb } from "@/db/client";
-import { foundations, measurementRecords } from "@/db/schema";
+import { auditEvents, foundations, measurementRecords } from "@/db/schema";
 import { createUser } from "@/db/queries/accounts";
 import { getOrCreateCompany, upsertMember } from "@/db/queries/projects";
 import { Predictor } from "@/modules/commissioning/prediction";
@@ -138,6 +138,8 @@ describe("calibration from a measured resonance", () => {
     const cal = row!.calibration as { fittedShearModulus: number; designShearModulus: number; position: string };
     expect(cal.position).toBe("below");
     expect(cal.fittedShearModulus / cal.designShearModulus).toBeCloseTo(0.4, 2);
+    const events = await getDb().select({ action: auditEvents.action }).from(auditEvents).where(sql`${auditEvents.detail}->>'recordId' = ${created.record.id}`);
+    expect(events.map((e) => e.action).sort()).toEqual(["foundation.soil-flag-raised", "measurement.recorded"]);
     for (const role of ["designer", "checker"]) {
       const mail = await waitForEmail(demoEmail(role), `${c.tag}: site-measured soil outside the design band`);
       expect(mail.text).toMatch(/below the design band/);
