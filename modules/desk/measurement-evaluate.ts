@@ -54,6 +54,13 @@ export function evaluateMeasurement(job: MeasurementEvaluationJob): MeasurementE
     supportOf: (r) => predictor.supportOf(r, runningHz),
     predictedPeak: (r) => predictor.predictedPeak(r, job.speedRpm),
   };
+  // The prediction is recomputed from the revision's input by this engine: say so when it no
+  // longer gives the revision's stored natural frequencies (a later engine version).
+  const stored = job.result.modes.map((m) => m.frequencyHz);
+  const now = predictor.design.naturalHz;
+  if (stored.length !== now.length || stored.some((f, i) => Math.abs(f - (now[i] ?? 0)) > 1e-6 * Math.max(1, f))) {
+    notes.push(`The prediction is this desk's engine ${ENGINE_VERSION} on the revision's input; it no longer gives the revision's stored natural frequencies (engine ${job.result.engineVersion}).`);
+  }
   const judged: StoredReading[] = readings.map((r) => judgeReading(r, ctx));
   // A run-up trace: the sample at the running speed, when there is one, is judged like a reading.
   if (trace && trace.samples.length) {

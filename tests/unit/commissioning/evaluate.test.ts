@@ -76,6 +76,13 @@ describe("evaluateMeasurement", () => {
     expect(a!.ratio! * a!.predicted!).toBeCloseTo(a!.value, 12);
     expect(b!.verdict).toBe("fail");
     expect(e.verdicts.zoneBasis).toMatch(/group 2/);
+    expect(e.verdicts.notes.join(" ")).not.toMatch(/no longer gives/);
+  });
+
+  it("says so when the engine no longer gives the revision's stored natural frequencies", () => {
+    const altered = { ...result, engineVersion: "0.9.0", modes: result.modes.map((m) => ({ ...m, frequencyHz: m.frequencyHz * 1.01 })) };
+    const e = evaluateMeasurement({ input, result: altered, speedRpm: 1785, readings: [reading({})], trace: null });
+    expect(e.verdicts.notes.join(" ")).toMatch(/no longer gives the revision's stored natural frequencies \(engine 0\.9\.0\)/);
   });
 
   it("calibrates from a resonance outside the band and asks for the soil flag", () => {
