@@ -12,6 +12,7 @@ import { auditEvents, foundations, measurementRecords } from "@/db/schema";
 import { createUser } from "@/db/queries/accounts";
 import { getOrCreateCompany, upsertMember } from "@/db/queries/projects";
 import { Predictor } from "@/modules/commissioning/prediction";
+import { buildResponseModel, findPoint, modelPoints, SoilResponse } from "@/modules/commissioning/response";
 import { READINGS_SHEET } from "@/modules/commissioning/readings";
 import { MEASUREMENTS_SHEET, REGISTER_SHEETS } from "@/modules/calc-package";
 import { readTables, tableByTitle, toStored } from "../unit/calc-package/read-tables";
@@ -172,6 +173,33 @@ describe("calibration from a measured resonance", () => {
     const g0 = cal.designShearModulus;
     // the latest record (fitted at 1.1 x G0) is the one the register shows
     expect(fitted / g0).toBeCloseTo(1.1, 2);
+  });
+});
+
+describe("a run-up trace", () => {
+  it("is stored with the predicted curve and its resonance, and the soil fitted to it (synthetic trace at 1.3 G0: inside the band)", async () => {
+    const c = await commissioningFoundation(fx);
+    const model = buildResponseModel(c.input);
+    const truth = new SoilResponse(model, 1.3);
+    const point = findPoint(modelPoints(model), B1)!;
+    const rows = Array.from({ length: 151 }, (_, i) => 300 + i * 10).map((rpm) => `${B1},horizontal,displacement peak-to-peak,µm,${rpm},${(2 * truth.at(point, 1, rpm).displacementPeak * 1e6).toFixed(4)}`);
+    const file = Buffer.from(["bearing,direction,quantity,unit,speed_rpm,value", ...rows].join("\n"), "utf8");
+    const res = await postMeasurement(fx.cookies.designer, c, file, "run-up.csv", recordFields({ kind: "run-up" }));
+    expect(res.status).toBe(201);
+    const created = (await res.json()) as Created;
+    expect(created.soilFlag).toBeNull();
+    const [row] = await getDb().select().from(measurementRecords).where(eq(measurementRecords.id, created.record.id));
+    const v = row!.verdicts as { resonances: { rpm: number }[]; tracePlot: { measured: unknown[]; predicted: { value: number }[] }; readings: { location: string }[] };
+    expect(v.resonances.length).toBeGreaterThan(0);
+    expect(v.tracePlot.measured).toHaveLength(151);
+    expect(v.tracePlot.predicted).toHaveLength(151);
+    // the sample nearest 1785 rpm (1780, the first of two as near) is judged like a reading
+    expect(v.readings.map((r) => r.location)).toEqual([`${B1} (trace at 1780 rpm)`]);
+    const cal = row!.calibration as { fittedShearModulus: number; designShearModulus: number; position: string };
+    expect(cal.position).toBe("inside");
+    // the trace's values are rounded to 0.1 nm and its steps are 10 rpm: 1 % on G
+    expect(Math.abs(cal.fittedShearModulus / cal.designShearModulus / 1.3 - 1)).toBeLessThan(0.01);
+    expect((row!.trace as { samples: unknown[] }).samples).toHaveLength(151);
   });
 });
 
