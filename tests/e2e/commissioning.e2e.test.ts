@@ -2,13 +2,15 @@
 // to Corvane Pumps, the vendor's field staff open the site measurements from their request,
 // upload a file with a problem and see it by cell, then a good one and see their verdicts
 // (without the design's prediction); the designer opens the record and reads each reading
-// beside the revision's prediction with the ratio.
+// beside the revision's prediction with the ratio, the soil fitted to the resonance the vendor
+// measured (0.4 x the design G, below the band) and the flag on the project table.
 import { describe, expect, it } from "vitest";
 import { screenshot } from "./support/browser";
 import { projectIdOf } from "./support/desk";
 import { asDemo, sharedBrowser } from "./support/fixtures";
 import { example, seededFoundation } from "./support/workspace";
 import { RequestsPage } from "./support/vendor-data";
+import { Predictor } from "@/modules/commissioning/prediction";
 
 const browser = sharedBrowser();
 const B1 = "Motor RWM-101 rotor bearing 1";
@@ -50,10 +52,13 @@ describe("site measurements", () => {
       await problems.waitFor({ timeout: 20_000 });
       expect(await problems.innerText()).toMatch(/CSV!B3[\s\S]*sideways/);
       await screenshot(page, "commissioning-refused");
-      await fill(csv([`${B1},vertical,velocity rms,mm/s,0.9`, `${B1},horizontal,velocity rms,mm/s,3.2`]));
+      // the vertical mode as the engine gives it at 0.4 x the design G
+      const resonanceHz = new Predictor(example("raw-water-pump-train.json")).design.naturalHz[2]! * Math.sqrt(0.4);
+      await fill(csv([`${B1},vertical,velocity rms,mm/s,0.9`, `${B1},horizontal,velocity rms,mm/s,3.2`, `${B1},vertical,resonance,Hz,${resonanceHz.toFixed(4)}`]));
       await page.getByTestId("record-verdict").waitFor({ timeout: 30_000 });
       expect(await page.getByTestId("record-verdict").innerText()).toMatch(/outside limits/);
-      expect(await page.getByTestId("reading-row").count()).toBe(2);
+      expect(await page.getByTestId("reading-row").count()).toBe(3);
+      expect(await page.getByTestId("calibration").count()).toBe(0);
       // the vendor reads verdicts against the limits, not the design's prediction
       expect(await page.getByTestId("reading-predicted").count()).toBe(0);
       expect(await page.getByTestId("reading-measured").first().innerText()).toMatch(/mm\/s peak/);
@@ -67,12 +72,18 @@ describe("site measurements", () => {
       await row.getByTestId("measurement-link").click();
       await page.getByTestId("reading-table").waitFor();
       const predicted = await page.getByTestId("reading-predicted").allInnerTexts();
-      expect(predicted).toHaveLength(2);
-      for (const p of predicted) expect(p).toMatch(/^\d[\d.,]* mm\/s$/);
+      expect(predicted).toHaveLength(3);
+      for (const p of predicted.slice(0, 2)) expect(p).toMatch(/^\d[\d.,]* mm\/s$/);
       const ratios = await page.getByTestId("reading-ratio").allInnerTexts();
-      for (const r of ratios) expect(Number(r.replace(",", ""))).toBeGreaterThan(0);
+      for (const r of ratios.slice(0, 2)) expect(Number(r.replace(",", ""))).toBeGreaterThan(0);
+      expect(await page.getByTestId("band-position").innerText()).toBe("below the design band (softer soil)");
+      expect(await page.getByTestId("fitted-g").innerText()).toMatch(/ MPa$/);
       expect(await page.getByText("Before you rely on these numbers").count()).toBeGreaterThan(0);
       await screenshot(page, "commissioning-designer-record");
+      await page.goto(`/projects/${ids.projectId}`);
+      const tableRow = page.getByTestId("foundation-table").locator("tr", { hasText: ids.tag });
+      await tableRow.waitFor();
+      expect(await tableRow.innerText()).toMatch(/site-measured soil G .* below the design band/);
     });
   });
 });
