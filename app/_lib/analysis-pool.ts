@@ -9,6 +9,7 @@ import type { SizingLimits, SizingOutcome } from "@/modules/sizing";
 import { AppError } from "@/modules/platform/errors";
 import { getServerEnv, runsFromSources } from "@/modules/platform/env";
 import type { AnalysisJob } from "./analysis-jobs";
+import type { MeasurementEvaluation, MeasurementEvaluationJob } from "@/modules/desk/measurement-evaluate";
 
 // Analyses run on a small pool of worker threads, never on the request thread: one heavy input
 // then holds one worker, while health checks, pages and other users are still answered. Each job
@@ -205,6 +206,11 @@ export async function governingInPool(input: AnalysisInput): Promise<GoverningSu
 /** The block-sizing search, under its own (longer) time limit. */
 export async function proposeBlockSizesInPool(document: unknown, sizingOptions: unknown, limits: SizingLimits): Promise<SizingOutcome> {
   return JSON.parse(await submit({ kind: "sizing", document, options: sizingOptions, limits }, currentOptions().sizingTimeoutMs)) as SizingOutcome;
+}
+
+/** A site measurement judged against its revision and the soil calibrated from it (modules/desk/measurement-evaluate.ts). */
+export async function evaluateInPool(evaluation: MeasurementEvaluationJob): Promise<MeasurementEvaluation> {
+  return JSON.parse(await submit({ kind: "commission", evaluation }, currentOptions().sizingTimeoutMs)) as MeasurementEvaluation;
 }
 
 /** Tests only: a job that never ends, to show the time limit. */

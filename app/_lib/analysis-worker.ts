@@ -6,6 +6,7 @@ import { analyse } from "../../modules/calc/analyse";
 import { withSeries } from "../../modules/calc/sweep-downsample";
 import { governingCheck } from "../../modules/desk/foundation-summary";
 import { proposeBlockSizes } from "../../modules/sizing/search";
+import { evaluateMeasurement } from "../../modules/desk/measurement-evaluate";
 import type { AnalysisJob } from "./analysis-jobs";
 
 function run(job: AnalysisJob): string {
@@ -17,6 +18,9 @@ function run(job: AnalysisJob): string {
       return JSON.stringify(governingCheck(analyse(job.input)));
     case "sizing":
       return JSON.stringify(proposeBlockSizes(job.document, job.options, job.limits));
+    case "commission":
+      // site measurement: verdicts, and the soil calibration (many engine runs)
+      return JSON.stringify(evaluateMeasurement(job.evaluation));
     case "spin":
       // tests of the time limit only: a job that never ends
       for (;;);

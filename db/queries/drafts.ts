@@ -1,6 +1,6 @@
 import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
-import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
+import { foundationDrafts, foundations, type FoundationDraftRow, type FoundationSoilFlag } from "../schema";
 import { parseDraftInput, type AnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
 import { readPlacements, withStoredTrails, type MachinePlacement } from "@/modules/desk/machine-placements";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
@@ -144,6 +144,8 @@ export interface FoundationWithDraft {
   machineTrain: string;
   location: string;
   updatedAt: Date;
+  /** Raised by a site measurement whose fitted soil G is outside the design's band (commissioning). */
+  soilFlag: FoundationSoilFlag | null;
   draftVersion: number;
   draftUpdatedAt: Date | null;
   /** The draft's valid input; null when there is none or it is incomplete. */
@@ -169,6 +171,7 @@ export async function listFoundationsWithDrafts(actor: Actor, projectId: string)
       machineTrain: foundations.machineTrain,
       location: foundations.location,
       updatedAt: foundations.updatedAt,
+      soilFlag: foundations.soilFlag,
       draftVersion: foundationDrafts.version,
       draftUpdatedAt: foundationDrafts.updatedAt,
       input: foundationDrafts.input,

@@ -190,6 +190,7 @@ export async function listFoundations(actor: Actor, projectId: string): Promise<
       withdrawnAt: foundations.withdrawnAt,
       withdrawnById: foundations.withdrawnById,
       withdrawalReason: foundations.withdrawalReason,
+      soilFlag: foundations.soilFlag,
       createdAt: foundations.createdAt,
       updatedAt: foundations.updatedAt,
     })

@@ -5,3 +5,4 @@ export * from "./audit";
 export * from "./drafts";
 export * from "./revisions";
 export * from "./vendor";
+export * from "./commissioning";

@@ -1,5 +1,8 @@
 import { index, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import type { FoundationSoilFlag } from "@/modules/desk/measurement-flag";
 import { users } from "./accounts";
+
+export type { FoundationSoilFlag };
 
 const stamps = {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -60,6 +63,9 @@ export const foundations = pgTable(
     withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
     withdrawnById: uuid("withdrawn_by_id").references(() => users.id, { onDelete: "set null" }),
     withdrawalReason: text("withdrawal_reason").notNull().default(""),
+    // Raised by a commissioning record whose fitted soil shear modulus falls outside the
+    // design's soil band (the latest such record; cleared by a later record inside the band).
+    soilFlag: jsonb("soil_flag").$type<FoundationSoilFlag | null>(),
     ...stamps,
   },
   (t) => [unique("foundations_project_tag_uq").on(t.projectId, t.tag)],

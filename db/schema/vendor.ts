@@ -47,9 +47,10 @@ export const storedFiles = pgTable(
   {
     id: uuid("id").primaryKey().defaultRandom(),
     projectId: uuid("project_id").notNull().references(() => projects.id, { onDelete: "cascade" }),
-    // Vendor files belong to a request, which decides which vendor company may read them.
+    // Vendor files belong to a request, which decides which vendor company may read them;
+    // measurement files (purpose "measurement") have none: their record decides.
     requestId: uuid("request_id").references(() => vendorRequests.id, { onDelete: "cascade" }),
-    purpose: text("purpose", { enum: ["machine-data", "drawing"] }).notNull(),
+    purpose: text("purpose", { enum: ["machine-data", "drawing", "measurement"] }).notNull(),
     fileName: text("file_name").notNull(),
     contentType: text("content_type").notNull(),
     byteSize: integer("byte_size").notNull(),

@@ -6,6 +6,7 @@ export { addHandCheckSheet, handCheckValues, HAND_CHECK_COLUMNS, HAND_CHECK_FIRS
 export { packageFileName, packagePdfFileName, registerFileName, attachmentDisposition, XLSX_CONTENT_TYPE } from "./file-names";
 export { safeText, looksLikeFormula } from "./safe-text";
 export { SPEED_RAMPS_SHEET, SPEED_RAMP_MAX_ROWS } from "./speed-ramps-sheet";
+export { MEASUREMENTS_SHEET } from "./measurements-sheet";
 export { packageUnit, toPackageUnit, factorToStored, type PackageKind } from "./package-units";
 export type * from "./types";
 export { revisionPdfBytes, PDF_CONTENT_TYPE } from "./revision-pdf";

@@ -45,6 +45,9 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
       l ? l.result.checks.filter((c) => !c.pass).length : null,
       l?.openComments ?? null,
       r.flags.length ? r.flags.join("; ") : "none",
+      r.site ? `${r.site.measuredOn} (rev. ${r.site.revisionLabel})` : "none recorded",
+      r.site?.verdict ?? null,
+      r.site?.fittedShearModulus ?? null,
     ];
   });
   w.table(
@@ -68,6 +71,9 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
       { header: "Failing checks", kind: "count" },
       { header: "Open comments", kind: "count" },
       { header: "Flags" },
+      { header: "Latest site measurement" },
+      { header: "Site verdict" },
+      { header: "Fitted soil G", kind: "modulus" },
     ],
     rows,
   );
@@ -99,7 +105,8 @@ export function buildRegisterWorkbook(d: RegisterData): ExcelJS.Workbook {
   for (const c of CAUTIONS) a.note(c, { bold: true });
   a.blank();
   a.note("Governing check: the failing check that exceeds its limit most, or, when all pass, the one closest to its limit, from the latest revision as issued.");
-  a.note("Flags: an approved revision whose vendor data the draft has since replaced, and a draft that differs from the latest revision.");
+  a.note("Flags: an approved revision whose vendor data the draft has since replaced, a draft that differs from the latest revision, and a site-measured soil shear modulus outside the design's soil band.");
+  a.note("Site measurement: the newest commissioning record not corrected by a later one, its verdict against the revision's criteria and the ISO 10816-3 / 20816-3 severity zones (boundaries recalled from memory), and the soil shear modulus fitted to its measured resonance (blank when the record has no resonance).");
   a.finish();
   return wb;
 }

@@ -14,6 +14,7 @@ import { addHandCheckSheet } from "./hand-check-sheet";
 import { packageFigures, type PackageFigure } from "./figures";
 import { SheetWriter, type Cell, type Column, type Pair } from "./sheet-writer";
 import { SPEED_RAMPS_SHEET, writeSpeedRampsSheet } from "./speed-ramps-sheet";
+import { MEASUREMENTS_SHEET, writeMeasurementsSheet } from "./measurements-sheet";
 import { applyPrintSetup, printLabels, revisionSignOffs } from "./print-setup";
 import type { PackageSignOff, RevisionPackageData } from "./types";
 
@@ -134,6 +135,7 @@ function cover(w: SheetWriter, d: RevisionPackageData): void {
       [PACKAGE_SHEETS.checks, "every check with value, limit, verdict and source"],
       [PACKAGE_SHEETS.history, "every revision of this foundation and its review trail"],
       [PACKAGE_SHEETS.handCheck, "vertical single-degree-of-freedom check as live formulas: change a yellow cell and see the effect"],
+      ...(d.measurements?.length ? [[MEASUREMENTS_SHEET, "site measurement records: readings beside the prediction with the ratio, verdicts, soil calibrated from the measured resonance"]] : []),
     ],
   );
 }
@@ -940,6 +942,8 @@ export function buildRevisionWorkbook(d: RevisionPackageData, figures: PackageFi
   sheet(PACKAGE_SHEETS.band, band);
   sheet(PACKAGE_SHEETS.checks, checks);
   sheet(PACKAGE_SHEETS.history, history);
+  // Only a revision with site measurement records (commissioning) has this sheet.
+  if (d.measurements?.length) sheet(MEASUREMENTS_SHEET, writeMeasurementsSheet);
   const hc = wb.addWorksheet(PACKAGE_SHEETS.handCheck);
   const hcArea = addHandCheckSheet(hc, d);
   applyPrintSetup(hc, labels, hcArea);

@@ -79,6 +79,45 @@ export interface PackageTrailEntry {
   createdAt: Date;
 }
 
+/** One reading of a site measurement as the package lists it (stored SI values). */
+export interface PackageMeasurementReading {
+  location: string;
+  direction: string;
+  /** "velocity" (mm/s, in/s) or "displacement" (um, mil): the kind of the design check it is compared with. */
+  kind: "velocity" | "displacement" | "frequency";
+  /** As measured, and the basis stated (rms, peak, peak-to-peak). */
+  asMeasured: string;
+  /** In the design check's basis (stored SI value) and that basis. */
+  value: number;
+  basis: string;
+  predicted: number | null;
+  ratio: number | null;
+  limit: number | null;
+  zone: string | null;
+  verdict: string;
+}
+
+/** A site measurement record (commissioning) of the revision, for the package's sheet. */
+export interface PackageMeasurement {
+  measuredOn: string;
+  measuredBy: string;
+  instrument: string;
+  instrumentCalibratedOn: string;
+  speedRpm: number;
+  load: string;
+  kind: string;
+  fileName: string;
+  sha256: string;
+  createdByName: string;
+  correctedBy: boolean;
+  verdict: string;
+  readings: PackageMeasurementReading[];
+  /** Measured resonance speeds (rpm) of a run-up trace. */
+  resonancesRpm: number[];
+  calibration: { fittedShearModulus: number; bandLower: number; bandUpper: number; position: string; atOperating: { label: string; kind: "frequency" | "velocity" | "displacement" | "ratio"; designed: number | null; fitted: number | null }[] } | null;
+  engineVersion: string;
+}
+
 export interface RevisionPackageData {
   project: PackageProject;
   foundation: PackageFoundation;
@@ -91,6 +130,8 @@ export interface RevisionPackageData {
   trail: PackageTrailEntry[];
   /** The revision's review comments and answers, oldest first. */
   comments?: PackageComment[];
+  /** The revision's site measurement records, newest first (absent or empty: no sheet). */
+  measurements?: PackageMeasurement[];
   /** The vendor submission the revision used (null: none; absent: not read). */
   vendorSubmission?: PackageVendorSubmission | null;
   generatedAt: Date;
@@ -117,6 +158,8 @@ export interface RegisterRow {
   latestApproved?: { label: string; approvedAt: Date | null } | null;
   revisionCount: number;
   flags: string[];
+  /** The latest site measurement (commissioning), uncorrected: its date, record verdict and fitted soil G (Pa). */
+  site?: { measuredOn: string; revisionLabel: string; verdict: string; fittedShearModulus: number | null } | null;
 }
 
 export interface RegisterData {

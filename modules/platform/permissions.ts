@@ -39,6 +39,13 @@ export const permissionMap = {
   // Sharing an earlier (unapproved) revision's package with the client.
   "revision.share": ["manager"],
   "register.export": ["manager"],
+  // Commissioning (site measurements on an approved revision): the design team and the client
+  // read them; a vendor reads only its own company's records, on foundations whose data
+  // request went to that company (checked on the foundation by db/queries/commissioning.ts),
+  // and sees the readings and their verdicts, not the design's prediction or calibration.
+  "measurement.read": ["manager", "designer", "checker", "viewer", "vendor"],
+  // Adding one: designers, managers and the vendor's field staff (own company, as above).
+  "measurement.create": ["manager", "designer", "vendor"],
 } as const satisfies Record<string, readonly ProjectRole[]>;
 
 export type ProjectPermission = keyof typeof permissionMap;

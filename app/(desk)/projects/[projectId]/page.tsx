@@ -35,6 +35,7 @@ import { EmptyState } from "../../../_components/brand";
 import { NewFoundationForm } from "./new-foundation-form";
 import { RestoreFoundationButton } from "./foundation-withdrawal";
 import { listWithdrawnFoundations } from "@/db/queries/foundations";
+import { soilFlagText } from "@/modules/desk/measurement-format";
 
 export const metadata: Metadata = { title: "Foundations" };
 
@@ -75,7 +76,11 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
       openComments: rev?.openComments ?? null,
       href: mayReadDraft ? `/projects/${projectId}/foundations/${f.id}` : `/projects/${projectId}/foundations/${f.id}/revisions`,
       // Approved on vendor data the draft has since replaced: flagged until a new revision is issued.
-      flags: mayReadDraft && latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : [],
+      flags: [
+        ...(mayReadDraft && latest && isApprovalStale(latest, rev?.draftVendorSubmissionId ?? null) ? ["vendor data changed since approval"] : []),
+        // A site measurement fitted a soil G outside the design's band (commissioning).
+        ...(f.soilFlag ? [soilFlagText(f.soilFlag, project.units)] : []),
+      ],
       governing: governing[i] ?? null,
       // A draft saved with blanks: no verdict until it is complete (issue 18).
       draftIncomplete: f.incomplete,

@@ -8,6 +8,7 @@ import { describeDatum } from "@/modules/vendor-data/datum";
 import { formatSignificant } from "@/modules/units/format-number";
 import { prefillInVendorTerms } from "@/modules/desk/machine-placements";
 import { getDraft } from "@/db/queries/drafts";
+import { getRevisionOfRecordRef } from "@/db/queries/commissioning";
 import { getVendorRequest, requestStatusLabels, type FileMeta } from "@/db/queries/vendor-requests";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
 import { DataDiff } from "../../../../../_components/vendor/data-diff";
@@ -40,6 +41,8 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
   const mayReview = roleAllows(role, "vendorSubmission.review");
   const draft = mayReview ? await getDraft(actor, projectId, request.foundationId) : undefined;
   const api = `/api/v1/projects/${projectId}/requests/${requestId}`;
+  // The approved revision of record, where the vendor's field staff record site measurements.
+  const ofRecord = await getRevisionOfRecordRef(projectId, request.foundationId);
   return (
     <div className="space-y-6">
       <div>
@@ -64,6 +67,18 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
         </p>
         {request.message ? <p className="mt-2 text-sm">Note: {request.message}</p> : null}
       </div>
+
+      {ofRecord && roleAllows(role, "measurement.read") ? (
+        <section className="slab space-y-2 p-5" data-testid="request-site-measurements">
+          <h2>Site measurements</h2>
+          <p className="text-sm">
+            Revision {ofRecord.label} of {request.foundationTag} is approved: vibration measured on site (acceptance test, later surveys) is recorded against it.{" "}
+            <Link href={`/projects/${projectId}/foundations/${request.foundationId}/revisions/${ofRecord.id}/commissioning`} data-testid="request-site-measurements-link">
+              Open the site measurements of revision {ofRecord.label}
+            </Link>
+          </p>
+        </section>
+      ) : null}
 
       <section className="slab space-y-3 p-5">
         <h2>Data sheet</h2>

@@ -2,6 +2,9 @@ import { listFoundationsWithDrafts } from "@/db/queries/drafts";
 import { getProjectForMember } from "@/db/queries/projects";
 import { getRevision, getUserContact, listFoundationRevisionStates, listRevisions } from "@/db/queries/revisions";
 import { defineRoute } from "@/app/_lib/route";
+import { listLatestMeasurements } from "@/db/queries/commissioning";
+import { soilFlagText } from "@/modules/desk/measurement-format";
+import { recordVerdictText, storedCalibration } from "@/modules/desk/measurement-view";
 import { AppError } from "@/modules/platform/errors";
 import { canonicalInputHash, isApprovalStale } from "@/modules/revisions";
 import { attachmentDisposition, registerFileName, registerWorkbookBytes, XLSX_CONTENT_TYPE, type RegisterRow } from "@/modules/calc-package";
@@ -17,8 +20,14 @@ export const GET = defineRoute({
     const actor = auth!.actor;
     const project = await getProjectForMember(actor, params.projectId);
     if (!project) throw new AppError("not_found");
-    const [foundations, states, me] = await Promise.all([listFoundationsWithDrafts(actor, project.id), listFoundationRevisionStates(actor, project.id), getUserContact(actor.userId)]);
+    const [foundations, states, me, latestSite] = await Promise.all([
+      listFoundationsWithDrafts(actor, project.id),
+      listFoundationRevisionStates(actor, project.id),
+      getUserContact(actor.userId),
+      listLatestMeasurements(project.id),
+    ]);
     const stateOf = new Map(states.map((s) => [s.foundationId, s]));
+    const siteOf = new Map(latestSite.map((m) => [m.foundationId, m]));
     const rows: RegisterRow[] = [];
     for (const f of foundations) {
       const state = stateOf.get(f.id);
@@ -27,6 +36,8 @@ export const GET = defineRoute({
       const flags: string[] = [];
       if (state?.latest && isApprovalStale(state.latest, state.draftVendorSubmissionId)) flags.push("vendor data changed since approval");
       if (latest && f.input && canonicalInputHash(f.input) !== latest.inputHash) flags.push("draft differs from the latest revision");
+      if (f.soilFlag) flags.push(soilFlagText(f.soilFlag, project.units));
+      const site = siteOf.get(f.id);
       rows.push({
         tag: f.tag,
         machineTrain: f.machineTrain,
@@ -36,6 +47,7 @@ export const GET = defineRoute({
         latestApproved: approved ? { label: approved.label, approvedAt: approved.decision?.decidedAt ?? null } : null,
         revisionCount: state?.revisionCount ?? 0,
         flags,
+        site: site ? { measuredOn: site.measuredOn, revisionLabel: site.revisionLabel, verdict: recordVerdictText(site.verdicts), fittedShearModulus: storedCalibration(site.calibration)?.fittedShearModulus ?? null } : null,
       });
     }
     const now = new Date();

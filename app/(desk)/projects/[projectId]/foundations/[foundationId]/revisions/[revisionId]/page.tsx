@@ -12,6 +12,9 @@ import { RevisionResults } from "../revision-results";
 import { formatStamp, RevisionCrumbs, RevisionStatusTag } from "../revision-parts";
 import { revisionPath } from "../revision-service";
 import { FieldCommentArea, InputValues } from "./field-comments";
+import { getCommissioningScope, listMeasurementRecords } from "@/db/queries/commissioning";
+import { recordVerdictText } from "@/modules/desk/measurement-view";
+import { commissioningPath } from "./commissioning/commissioning-service";
 
 export const metadata: Metadata = { title: "Revision" };
 
@@ -24,6 +27,9 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
   const [foundation, revision] = await Promise.all([getFoundation(actor, projectId, foundationId), getRevision(actor, projectId, foundationId, revisionId)]);
   if (!foundation || !revision) notFound();
   const [comments, all] = await Promise.all([listRevisionComments(actor, projectId, foundationId, revisionId), listRevisions(actor, projectId, foundationId)]);
+  // Commissioning: the records of measured vibration on this (approved) revision.
+  const siteScope = await getCommissioningScope(actor, projectId, foundationId, revisionId, "measurement.read");
+  const siteRecords = siteScope ? await listMeasurementRecords(siteScope) : [];
   const previous = all.filter((r) => r.sequence < revision.sequence).at(-1);
   const mayComment = roleAllows(role, "revision.comment");
   const showComments = roleAllows(role, "revision.commentsRead");
@@ -153,6 +159,20 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
       </div>
 
       <Cautions />
+
+      {siteScope && (siteScope.revision.approvedAt || siteRecords.length) ? (
+        <section className="slab max-w-2xl space-y-2 p-5" aria-labelledby="site-heading" data-testid="revision-site-measurements">
+          <h2 id="site-heading">Site measurements</h2>
+          <p className="text-sm">
+            {siteRecords.length
+              ? `${siteRecords.length} record${siteRecords.length === 1 ? "" : "s"} of measured vibration on this revision; latest ${siteRecords[0]?.measuredOn ?? ""}: ${recordVerdictText(siteRecords[0]?.verdicts)}.`
+              : "No site measurement recorded yet."}{" "}
+            <Link href={commissioningPath(projectId, foundationId, revision.id)} data-testid="site-measurements-link">
+              {siteScope.revision.ofRecord && roleAllows(role, "measurement.create") ? "Open or add site measurements" : "Open the site measurements"}
+            </Link>
+          </p>
+        </section>
+      ) : null}
 
       {mayDecide ? (
         <section className="slab max-w-2xl space-y-2 p-5" aria-labelledby="decide-heading">

@@ -3,6 +3,8 @@ import { getProjectForMember, type Actor } from "@/db/queries/projects";
 import { getPackageRevision, getRevision, getRevisionVendorSubmission, getUserContact, listRevisionCommentsWithResolution, listRevisionHistory, listRevisions } from "@/db/queries/revisions";
 import { AppError } from "@/modules/platform/errors";
 import type { RevisionPackageData } from "@/modules/calc-package";
+import { packageMeasurementOf } from "@/modules/calc-package/measurements-sheet";
+import { listRevisionMeasurementsForPackage } from "@/db/queries/commissioning";
 import { idOf, revisionNotFound, type RevisionParams } from "../../revision-params";
 
 /**
@@ -19,16 +21,18 @@ export async function readPackageRows(actor: Actor, params: RevisionParams) {
   if (!access.ok) {
     throw new AppError("forbidden", `Revision ${access.revision.label} is ${access.revision.status === "in-check" ? "in check" : access.revision.status}: the client receives approved packages only, unless a manager shares this one.`);
   }
-  const [project, foundation, history, trail, me] = await Promise.all([
+  const [project, foundation, history, trail, me, measurements] = await Promise.all([
     getProjectForMember(actor, params.projectId),
     getFoundation(actor, params.projectId, foundationId),
     listRevisions(actor, params.projectId, foundationId),
     listRevisionHistory(actor, params.projectId, foundationId),
     getUserContact(actor.userId),
+    // Site measurements (commissioning) of the revision: records of measured vibration, read by every package reader.
+    listRevisionMeasurementsForPackage(revisionId),
   ]);
   const summary = history.find((r) => r.id === revisionId);
   if (!project || !foundation || !summary) throw revisionNotFound();
-  const key = JSON.stringify([actor.userId, project.code, project.name, project.client, project.site, project.units, project.paperSize, project.updatedAt, foundation, revisionId, history, trail.length]);
+  const key = JSON.stringify([actor.userId, project.code, project.name, project.client, project.site, project.units, project.paperSize, project.updatedAt, foundation, revisionId, history, trail.length, measurements.map((m) => m.id)]);
   const load = async (): Promise<RevisionPackageData> => {
     const revision = await getRevision(actor, params.projectId, foundationId, revisionId);
     if (!revision) throw revisionNotFound();
@@ -50,6 +54,7 @@ export async function readPackageRows(actor: Actor, params: RevisionParams) {
       vendorSubmission: submission
         ? { request: `request to ${submission.companyName} of ${submission.requestedAt.toISOString().slice(0, 10)}`, version: submission.version, fileName: submission.fileName, sha256: submission.sha256, submittedAt: submission.submittedAt }
         : null,
+      measurements: measurements.map(packageMeasurementOf),
       generatedAt: new Date(),
       generatedByName: me?.name ?? "",
     };
