@@ -95,12 +95,30 @@ function readLocalSecret(root: string): string | undefined {
 
 export interface BenchServer {
   baseUrl: string;
+  /** How many `next start` processes answer (more than one: through nginx at baseUrl). */
+  servers: number;
   cookieFor: (email: string) => Promise<string>;
   stop: () => Promise<void>;
 }
 
-/** Starts the production server for the benchmark, or explains why it cannot. */
-export async function startBenchServer(port = 3400): Promise<BenchServer | string> {
+function spawnNextStart(root: string, port: number, env: NodeJS.ProcessEnv): ChildProcess {
+  return spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], { env, stdio: "ignore", detached: true });
+}
+
+export interface BenchServerOptions {
+  /** One port per `next start` process; two or more go behind nginx on `balancerPort`. */
+  ports?: number[];
+  balancerPort?: number;
+}
+
+/**
+ * Starts the production server(s) for the benchmark, or explains why it cannot. With more
+ * than one port, every server runs with TRUST_PROXY=1 and APP_URL at the balancer, and the
+ * figures are taken through nginx (scripts/lib/nginx.mts).
+ */
+export async function startBenchServer(opts: BenchServerOptions = {}): Promise<BenchServer | string> {
+  const ports = opts.ports?.length ? opts.ports : [3400];
+  const balanced = ports.length > 1;
   const root = process.cwd();
   const secret = readLocalSecret(root);
   if (!secret) return "no SESSION_SECRET (run `npm start` once first)";
@@ -117,20 +135,45 @@ export async function startBenchServer(port = 3400): Promise<BenchServer | strin
     const b = spawnSync(path.join(root, "node_modules/.bin/next"), ["build"], { stdio: "ignore" });
     if (b.status !== 0) return "next build failed";
   }
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
-    env: { ...process.env, NODE_ENV: "production", APP_URL: baseUrl, SMTP_URL: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525" },
-    stdio: "ignore",
-    detached: true,
-  });
-  if (!(await waitForHealth(baseUrl, 60_000))) {
-    child.kill("SIGTERM");
-    return "the benchmark server did not start";
+  const balancerPort = opts.balancerPort ?? (ports[ports.length - 1] ?? 3400) + 1;
+  const baseUrl = `http://127.0.0.1:${balanced ? balancerPort : ports[0]}`;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: "production",
+    APP_URL: baseUrl,
+    SMTP_URL: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525",
+    ...(balanced ? { TRUST_PROXY: "1" } : {}),
+  };
+  const children = ports.map((port) => spawnNextStart(root, port, env));
+  const stopChildren = () => {
+    for (const c of children) if (c.pid) process.kill(-c.pid, "SIGTERM");
+  };
+  for (const port of ports) {
+    if (!(await waitForHealth(`http://127.0.0.1:${port}`, 60_000))) {
+      stopChildren();
+      return `the benchmark server on port ${port} did not start`;
+    }
+  }
+  let stopBalancer = () => {};
+  if (balanced) {
+    const { startBalancer } = await import("./lib/nginx.mts");
+    const b = await startBalancer(root, balancerPort, ports.map((p) => `127.0.0.1:${p}`));
+    if (typeof b === "string") {
+      stopChildren();
+      return b;
+    }
+    stopBalancer = b.stop;
+    if (!(await waitForHealth(baseUrl, 10_000))) {
+      stopBalancer();
+      stopChildren();
+      return `nginx on ${baseUrl} does not answer (see ${path.dirname(b.configFile)}/error.log)`;
+    }
   }
   const { createSession } = await import("../db/queries/accounts");
   const { sealSessionCookie, SESSION_COOKIE } = await import("../app/_lib/session");
   return {
     baseUrl,
+    servers: ports.length,
     cookieFor: async (email: string) => {
       const user = await getUserByEmail(email);
       if (!user) throw new Error(`no account ${email}: seed the demo first`);
@@ -138,7 +181,8 @@ export async function startBenchServer(port = 3400): Promise<BenchServer | strin
       return `${SESSION_COOKIE}=${encodeURIComponent(await sealSessionCookie(id))}`;
     },
     stop: async () => {
-      if (child.pid) process.kill(-child.pid, "SIGTERM");
+      stopBalancer();
+      stopChildren();
       const { closeDb } = await import("../db/client");
       await closeDb();
     },
@@ -171,6 +215,32 @@ export async function benchCalculateApi(server: BenchServer, inputFile: string, 
   return runLoad(server.baseUrl, { name: "POST /api/v1/calculate", method: "POST", path: "/api/v1/calculate", body, headers: { cookie } }, 20, durationS);
 }
 
+async function demoProjectId(): Promise<string> {
+  const { DEMO_PROJECT_CODE } = await import("../modules/platform/demo");
+  const { getProjectByCode } = await import("../db/queries/projects");
+  const project = await getProjectByCode(DEMO_PROJECT_CODE);
+  if (!project) throw new Error("the demo project is missing: run `npm start` once first");
+  return project.id;
+}
+
+/**
+ * Sequential server time of the pages: one client, each request sent when the previous one
+ * is answered, `durationS` per page: the prerendered sign-in and forgot-password pages and
+ * the demo project's page for its manager (rendered per request).
+ */
+export async function benchSequentialPages(server: BenchServer, durationS = 5): Promise<HttpStats[]> {
+  const projectId = await demoProjectId();
+  const manager = await server.cookieFor("manager@plinthwise.test");
+  const targets: HttpTarget[] = [
+    { name: "GET sign-in page (prerendered)", method: "GET", path: "/sign-in" },
+    { name: "GET forgot-password page (prerendered)", method: "GET", path: "/forgot-password" },
+    { name: "GET project page (HTML, signed in)", method: "GET", path: `/projects/${projectId}`, headers: { cookie: manager } },
+  ];
+  const rows: HttpStats[] = [];
+  for (const t of targets) rows.push(await runLoad(server.baseUrl, t, 1, durationS));
+  return rows;
+}
+
 /**
  * The reliability figures: sign-in, the project page, the calculation API and a
  * revision's workbook download, each under `connections` clients for `durationS`.
@@ -187,6 +257,7 @@ export async function benchLoadSuite(server: BenchServer, inputFile: string, con
   const manager = await server.cookieFor("manager@plinthwise.test");
   const designer = await server.cookieFor("designer@plinthwise.test");
   const targets: HttpTarget[] = [
+    { name: "GET sign-in page (prerendered)", method: "GET", path: "/sign-in" },
     {
       name: "POST /api/v1/session (sign-in, bcrypt)",
       method: "POST",

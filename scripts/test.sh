@@ -7,6 +7,8 @@ source "$(dirname "$0")/lib/common.sh"
 set -e
 
 APP_PORT="${PLINTH_TEST_APP_PORT:-3100}"
+# A second `next start` on the same build and database for the two-server browser test.
+APP_PORT_2="${PLINTH_TEST_APP_PORT_2:-$((APP_PORT + 1))}"
 SMTP_PORT="${PLINTH_TEST_SMTP_PORT:-2535}"
 ART="$ROOT/test-artifacts"
 rm -rf "$ART" && mkdir -p "$ART"
@@ -33,9 +35,10 @@ export APP_URL="http://127.0.0.1:$APP_PORT"
 export SMTP_URL="smtp://127.0.0.1:$SMTP_PORT"
 export PLINTH_TEST_SMTP_PORT="$SMTP_PORT"
 export PLINTH_TEST_APP_URL="$APP_URL"
+export PLINTH_TEST_APP_URL_2="http://127.0.0.1:$APP_PORT_2"
 
 # Another checkout's test run on the same machine would want the same ports: say so in one line.
-for p in "$APP_PORT:PLINTH_TEST_APP_PORT" "$SMTP_PORT:PLINTH_TEST_SMTP_PORT"; do
+for p in "$APP_PORT:PLINTH_TEST_APP_PORT" "$APP_PORT_2:PLINTH_TEST_APP_PORT_2" "$SMTP_PORT:PLINTH_TEST_SMTP_PORT"; do
   if (echo >"/dev/tcp/127.0.0.1/${p%%:*}") >/dev/null 2>&1; then
     log "port ${p%%:*} on 127.0.0.1 is taken (another checkout's test run?): set ${p#*:} to a free port"
     exit 1
@@ -48,8 +51,10 @@ PG_STARTED_HERE=0
 if [ -z "${TEST_DATABASE_URL:-}" ] && ! bash scripts/lib/pg.sh running; then PG_STARTED_HERE=1; fi
 FAKE_SMTP_PID=""
 SERVER_PID=""
+SERVER_2_PID=""
 cleanup() {
   [ -n "$SERVER_PID" ] && kill "$SERVER_PID" 2>/dev/null || true
+  [ -n "$SERVER_2_PID" ] && kill "$SERVER_2_PID" 2>/dev/null || true
   [ -n "$FAKE_SMTP_PID" ] && kill "$FAKE_SMTP_PID" 2>/dev/null || true
   if [ "$PG_STARTED_HERE" = 1 ] && [ "${PLINTH_KEEP_PG:-0}" != 1 ]; then bash scripts/lib/pg.sh stop || true; fi
 }
@@ -71,7 +76,9 @@ start_fake_smtp "$SMTP_PORT" "$ART/fake-smtp-e2e.log"
 if node_modules/.bin/next build >"$ART/build.log" 2>&1; then
   node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$ART/server.log" 2>&1 &
   SERVER_PID=$!
-  if wait_for_port 127.0.0.1 "$APP_PORT" 60; then
+  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT_2" >"$ART/server-2.log" 2>&1 &
+  SERVER_2_PID=$!
+  if wait_for_port 127.0.0.1 "$APP_PORT" 60 && wait_for_port 127.0.0.1 "$APP_PORT_2" 60; then
     log "browser suite"
     node_modules/.bin/vitest run --project e2e --reporter=default --reporter=json --outputFile.json="$ART/e2e.json"
   else
