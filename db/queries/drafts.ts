@@ -2,6 +2,7 @@ import { and, asc, eq, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb } from "../client";
 import { foundationDrafts, foundations, type FoundationDraftRow } from "../schema";
 import { parseDraftInput, type AnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
+import { readPlacements, withStoredTrails, type MachinePlacement } from "@/modules/desk/machine-placements";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
 import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor } from "./projects";
@@ -20,6 +21,8 @@ export interface Draft {
   /** What is stored, complete or not (null when nothing is saved). */
   document: AnalysisInputDocument | null;
   incomplete: boolean;
+  /** Per machine: its datum on the block and the vendor's own figures (empty for older drafts). */
+  placements: MachinePlacement[];
   vendorSubmissionId: string | null;
   updatedById: string | null;
   updatedAt: Date | null;
@@ -41,6 +44,7 @@ function toDraft(row: FoundationDraftRow): Draft {
     foundationId: row.foundationId,
     version: row.version,
     ...storedDraftInput(row.input),
+    placements: readPlacements(row.machinePlacements),
     vendorSubmissionId: row.vendorSubmissionId,
     updatedById: row.updatedById,
     updatedAt: row.updatedAt,
@@ -48,7 +52,7 @@ function toDraft(row: FoundationDraftRow): Draft {
 }
 
 function emptyDraft(foundationId: string): Draft {
-  return { foundationId, version: 0, input: null, document: null, incomplete: false, vendorSubmissionId: null, updatedById: null, updatedAt: null };
+  return { foundationId, version: 0, input: null, document: null, incomplete: false, placements: [], vendorSubmissionId: null, updatedById: null, updatedAt: null };
 }
 
 /**
@@ -92,24 +96,33 @@ export async function saveDraft(
   actor: Actor,
   projectId: string,
   foundationId: string,
-  /** A valid input, or an incomplete draft document that parseDraftInput accepted. */
-  change: { input: AnalysisInput | AnalysisInputDocument; expectedVersion: number },
+  /**
+   * A valid input, or an incomplete draft document that parseDraftInput accepted; the machine
+   * placements when the caller sends them (absent: the stored ones are kept).
+   */
+  change: { input: AnalysisInput | AnalysisInputDocument; expectedVersion: number; placements?: MachinePlacement[] },
 ): Promise<SaveDraftResult | undefined> {
   const foundation = await findFoundationFor(actor, projectId, foundationId, "draft.edit");
   if (!foundation) return undefined;
   assertFoundationActive(foundation);
   const db = getDb();
+  // Datums come from the caller; vendor figures only as stored (the server writes them on take-in).
+  let placementsChange = {};
+  if (change.placements) {
+    const stored = await db.select({ placements: foundationDrafts.machinePlacements }).from(foundationDrafts).where(eq(foundationDrafts.foundationId, foundation.id)).limit(1);
+    placementsChange = { machinePlacements: withStoredTrails(change.placements, readPlacements(stored[0]?.placements)) };
+  }
   const rows =
     change.expectedVersion === 0
       ? await db
           .insert(foundationDrafts)
-          .values({ foundationId: foundation.id, input: change.input, version: 1, updatedById: actor.userId, editorIds: [actor.userId] })
+          .values({ foundationId: foundation.id, input: change.input, ...placementsChange, version: 1, updatedById: actor.userId, editorIds: [actor.userId] })
           // An existing row means someone saved first: a conflict, not an overwrite.
           .onConflictDoNothing({ target: foundationDrafts.foundationId })
           .returning()
       : await db
           .update(foundationDrafts)
-          .set({ input: change.input, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, editorIds: draftEditorsWith(actor.userId), updatedAt: new Date() })
+          .set({ input: change.input, ...placementsChange, version: sql`${foundationDrafts.version} + 1`, updatedById: actor.userId, editorIds: draftEditorsWith(actor.userId), updatedAt: new Date() })
           .where(and(eq(foundationDrafts.foundationId, foundation.id), eq(foundationDrafts.version, change.expectedVersion)))
           .returning();
   const saved = rows[0];

@@ -353,6 +353,8 @@ export async function issueRevision(
         vendorSubmissionId: draft.vendorSubmissionId,
         issuedById: actor.userId,
         editorIds: draft.editorIds,
+        // The datum and the vendor's own figures behind the machines go on record with the input.
+        machinePlacements: draft.machinePlacements,
         note: opts.note ?? "",
         purpose: opts.purpose ?? "issued-for-check",
       })

@@ -3,6 +3,7 @@ import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import {
   companies,
+  foundationDrafts,
   foundations,
   projectMembers,
   storedFiles,
@@ -16,7 +17,9 @@ import {
 import type { MachineInput } from "@/modules/calc/schema";
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
-import { MAX_BEARINGS, MAX_ROTORS } from "@/modules/vendor-data/layout";
+import { readPlacements } from "@/modules/desk/machine-placements";
+import type { MachineDatum } from "@/modules/vendor-data/datum";
+import { MAX_BEARINGS, MAX_ROTORS, type RotorRampTimes } from "@/modules/vendor-data/layout";
 import { assertFoundationActive, getFoundation } from "./foundations";
 import { getMembership, type Actor, type Membership } from "./projects";
 import { recordAuditEvent } from "./audit";
@@ -72,6 +75,9 @@ export interface SubmissionView {
   version: number;
   source: "workbook" | "csv" | "form";
   machines: MachineInput[];
+  /** "machine-datum": positions from each machine's own datum; "block": version 1 template (block coordinates). */
+  frame: "machine-datum" | "block";
+  rampTimes: RotorRampTimes[];
   sha256: string;
   note: string;
   createdAt: Date;
@@ -89,6 +95,11 @@ export interface VendorRequestDetail extends VendorRequestSummary {
   submissions: SubmissionView[];
   /** Every drawing uploaded to the request, attached or not yet. */
   drawings: FileMeta[];
+  /**
+   * The datum the designer placed on the block for each machine of the foundation's draft
+   * (by machine name): the workbook is prefilled in the machine's terms through it.
+   */
+  datums: { machine: string; datum: MachineDatum }[];
 }
 
 export interface RequestScope {
@@ -220,8 +231,13 @@ export async function getVendorRequest(actor: Actor, projectId: string, requestI
     ? await db.select().from(vendorSubmissionDrawings).where(inArray(vendorSubmissionDrawings.submissionId, subs.map((s) => s.s.id)))
     : [];
   const byId = new Map(files.map((f) => [f.id, f]));
+  // Read under the request's scope (a vendor of the company may read the request), not the
+  // draft's: only where each machine's datum sits, nothing else of the draft.
+  const draftRows = await db.select({ placements: foundationDrafts.machinePlacements }).from(foundationDrafts).where(eq(foundationDrafts.foundationId, scope.request.foundationId)).limit(1);
+  const datums = readPlacements(draftRows[0]?.placements).flatMap((p) => (p.datum ? [{ machine: p.machine, datum: p.datum }] : []));
   return {
     ...summary,
+    datums,
     machines: scope.request.machines as RequestedMachine[],
     drawings: files.filter((f) => f.purpose === "drawing").map(fileMeta),
     submissions: subs.map(({ s, submitterName, submitterEmail, review, reviewerName }) => {
@@ -231,6 +247,8 @@ export async function getVendorRequest(actor: Actor, projectId: string, requestI
         version: s.version,
         source: s.source,
         machines: s.machines as MachineInput[],
+        frame: s.frame,
+        rampTimes: s.rampTimes as RotorRampTimes[],
         sha256: s.sha256,
         note: s.note,
         createdAt: s.createdAt,

@@ -15,6 +15,8 @@ import {
 import { parseDraftInput, type AnalysisInputDocument } from "@/modules/calc";
 import { emptyDraftForm, toInputDocument } from "@/modules/desk/draft-form";
 import type { MachineInput } from "@/modules/calc/schema";
+import { readPlacements, takeVendorMachines } from "@/modules/desk/machine-placements";
+import type { RotorRampTimes } from "@/modules/vendor-data/layout";
 import { AppError } from "@/modules/platform/errors";
 import { roleAllows } from "@/modules/platform/permissions";
 import { recordAuditEvent } from "./audit";
@@ -32,6 +34,9 @@ export function machinesSha256(machines: MachineInput[]): string {
 export interface NewSubmission {
   source: VendorSubmissionRow["source"];
   machines: MachineInput[];
+  /** Positions from the machine datum (template version 2, web form) or block coordinates (version 1, the default). */
+  frame?: VendorSubmissionRow["frame"];
+  rampTimes?: RotorRampTimes[];
   file: { fileName: string; contentType: string; bytes: Buffer } | null;
   drawingIds: string[];
   note: string;
@@ -76,6 +81,8 @@ export async function createVendorSubmission(actor: Actor, projectId: string, re
         version,
         source: input.source,
         machines: input.machines,
+        frame: input.frame ?? "block",
+        rampTimes: input.rampTimes ?? [],
         fileId: file?.id ?? null,
         sha256: file?.sha256 ?? machinesSha256(input.machines),
         note: input.note,
@@ -157,7 +164,24 @@ export async function acceptVendorSubmission(actor: Actor, projectId: string, su
       // A foundation with no saved draft starts from the workspace's empty form (one mat,
       // blank soil): the vendor's data need not wait for a save (issue 18).
       const base = (draft?.input ?? toInputDocument(emptyDraftForm())) as AnalysisInputDocument;
-      const next = { ...base, machines: target.submission.machines };
+      // Positions from the machine datum go through the datum the designer placed (nothing is
+      // guessed: without one the take-in is refused, naming the machine); the vendor's own
+      // values and the datum are kept beside the input (machine_placements).
+      const requested = (target.request.machines as { name: string }[]).map((m) => m.name);
+      const taken = takeVendorMachines({
+        submission: {
+          id: target.submission.id,
+          version: target.submission.version,
+          frame: target.submission.frame,
+          machines: target.submission.machines as MachineInput[],
+          rampTimes: target.submission.rampTimes as RotorRampTimes[],
+        },
+        requestedNames: requested,
+        placements: readPlacements(draft?.machinePlacements),
+        transient: base.transient,
+      });
+      if (!taken.ok) throw new AppError("invalid_input", taken.issues[0]?.message ?? "The machine datum is not placed.", taken.issues);
+      const next = { ...base, machines: taken.machines, ...(taken.transient ? { transient: taken.transient } : {}) };
       // The draft may stay incomplete (the analysis waits); a value that is wrong is refused.
       const parsed = parseDraftInput(next);
       if (!parsed.ok) {
@@ -166,6 +190,7 @@ export async function acceptVendorSubmission(actor: Actor, projectId: string, su
       const input = parsed.complete ? parsed.input : next;
       const change = {
         input,
+        machinePlacements: taken.placements,
         vendorSubmissionId: target.submission.id,
         updatedById: actor.userId,
         // Taking vendor data in writes the draft: the one who did it is among its editors.

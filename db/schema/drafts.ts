@@ -23,6 +23,10 @@ export const foundationDrafts = pgTable("foundation_drafts", {
   // four-eyes rule can refuse a decision by anyone who wrote the revision, not just its issuer.
   // An array, not a link table: it is read and replaced whole, always with the draft row.
   editorIds: uuid("editor_ids").array().notNull().default(sql`'{}'::uuid[]`),
+  // Per machine: where its own datum sits on the block and the vendor's own figures behind it
+  // (modules/desk/machine-placements.ts). Beside the input, not in it: the input stays the
+  // contract's, in block coordinates. '[]' for drafts from before: positions are block coordinates.
+  machinePlacements: jsonb("machine_placements").notNull().default(sql`'[]'::jsonb`),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });

@@ -41,6 +41,9 @@ export const revisions = pgTable(
     // set at issue). With the issuer, these are the revision's authors: none may decide on it.
     // Users are never deleted while they have revisions (issued_by_id restricts it).
     editorIds: uuid("editor_ids").array().notNull().default(sql`'{}'::uuid[]`),
+    // The draft's machine placements at issue (datum on the block and the vendor's own figures
+    // per machine, modules/desk/machine-placements.ts); '[]' for revisions issued before.
+    machinePlacements: jsonb("machine_placements").notNull().default(sql`'[]'::jsonb`),
     // The designer's revision note: what changed since the previous revision and why. Required
     // at issue (zod); revisions issued before the note existed keep '' (shown as "no note").
     note: text("note").notNull().default(""),

@@ -1,3 +1,4 @@
+import { sql } from "drizzle-orm";
 import { customType, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { users } from "./accounts";
 import { companies, foundations, projects } from "./projects";
@@ -83,6 +84,11 @@ export const vendorSubmissions = pgTable(
     version: integer("version").notNull(),
     source: text("source", { enum: ["workbook", "csv", "form"] }).notNull(),
     machines: jsonb("machines").notNull(),
+    // The frame of the machines' positions: "machine-datum" (template version 2 and the web form)
+    // or "block" (version 1 template, and every version stored before the datum existed).
+    frame: text("frame", { enum: ["machine-datum", "block"] }).notNull().default("block"),
+    // The vendor's start-up and coast-down times per rotor ({ machine, rotor, startUpS?, coastDownS? }, s).
+    rampTimes: jsonb("ramp_times").notNull().default(sql`'[]'::jsonb`),
     // Cascade only so that a removed request can take its files and versions together; on its
     // own, removing the file of a version is refused by the immutability trigger.
     fileId: uuid("file_id").references(() => storedFiles.id, { onDelete: "cascade" }),

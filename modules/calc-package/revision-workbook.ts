@@ -6,7 +6,7 @@ import ExcelJS from "exceljs";
 import { CHECK_VERDICT_LABELS, checkVerdict, CRITERIA_DEFAULTS, DOF_KEYS, SOIL_BAND_DEFAULTS, soilCaseText, type CheckResult, type DofKey } from "@/modules/calc";
 import { CAUTIONS, CAUTIONS_TITLE } from "@/modules/platform/cautions";
 import { checkUtilisation, governingCheck } from "@/modules/desk/foundation-summary";
-import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
+import { FACTOR_DOF_LABELS, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { revisionPurposeLabels, revisionStatusLabels } from "@/modules/revisions";
 import type { PackageKind } from "./package-units";
 import { addHandCheckSheet } from "./hand-check-sheet";
@@ -170,7 +170,18 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
   w.pairs("Impedance method", [
     { label: "Method", value: input.impedance.method, note: METHOD_NAMES[input.impedance.method] },
     ...(input.impedance.method === "gazetas"
-      ? [{ label: "Dynamic coefficients", value: input.impedance.gazetasDynamic ?? "published", note: input.impedance.gazetasDynamic === "simplified" ? "k_z = k_y = 1, c = 1 (warned)" : "published closed forms" }]
+      ? [
+          {
+            label: "Dynamic coefficients",
+            value: input.impedance.gazetasDynamic ?? "published",
+            note:
+              input.impedance.gazetasDynamic === "simplified"
+                ? "k_z = k_y = 1, c = 1 (warned)"
+                : input.impedance.gazetasDynamic === "pais-kausel"
+                  ? "Pais & Kausel (1988) closed forms"
+                  : "Gazetas (1991) charts, digitised (default)",
+          },
+        ]
       : []),
   ]);
   if (input.impedance.method === "springs") {
@@ -326,6 +337,8 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
   if (imp.materialDamping !== undefined) pairs.push({ label: "Material damping beta", value: imp.materialDamping, kind: "ratio" });
   if (imp.shearModulus !== undefined) pairs.push({ label: "Shear modulus G", value: imp.shearModulus, kind: "modulus" });
   if (imp.shearWaveVelocity !== undefined) pairs.push({ label: "Shear-wave velocity Vs", value: imp.shearWaveVelocity, kind: "waveSpeed" });
+  const dynamic = dynamicCoefficientSource(imp);
+  if (dynamic) pairs.push({ label: "Dynamic coefficients k(a0), c(a0)", value: dynamic.label, note: dynamic.source });
   w.pairs("Basis", pairs);
   const table = (title: string, keys: DofKey[], k: PackageKind, c: PackageKind) =>
     w.table(

@@ -1,5 +1,6 @@
 // Warnings about conditions outside a method's validity, found after the analysis.
 import { GAZETAS_A0_LIMIT, NEARLY_INCOMPRESSIBLE_NU } from "./criteria-defaults";
+import { CHART_A0_MAX } from "./gazetas-charts";
 import type { Model } from "./model";
 import type { SoilCase } from "./soil-case";
 import type { SweepSettings } from "./sweep-grid";
@@ -15,17 +16,19 @@ export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSe
     const B = nominal.impedance.details.B ?? 0;
     const Vs = nominal.soil.shearWaveVelocity;
     const a0 = (hz: number) => (2 * Math.PI * hz * B) / Vs;
+    const charts = (model.input.impedance.gazetasDynamic ?? "published") === "published";
+    const held = charts ? `; the charts' coefficients end at a0 = ${CHART_A0_MAX} and are held at that value beyond` : "";
     for (const r of model.rotors) {
       const top = a0(r.rangeRpm[1] / 60);
       if (top > GAZETAS_A0_LIMIT) {
         warnings.push(
-          `${r.machine} ${r.rotor}: a0 = w B / Vs reaches ${top.toFixed(2)} in the speed range, beyond ${GAZETAS_A0_LIMIT} where the straight-line dynamic multipliers of Gazetas (1991) are used here.`,
+          `${r.machine} ${r.rotor}: a0 = w B / Vs reaches ${top.toFixed(2)} in the speed range, beyond ${GAZETAS_A0_LIMIT} where the straight-line dynamic multipliers of Gazetas (1991) are used here${held}.`,
         );
       }
     }
     const limitHz = (GAZETAS_A0_LIMIT * Vs) / (2 * Math.PI * B);
     if (sweep.toHz > limitHz) {
-      warnings.push(`Sweep: above ${limitHz.toFixed(1)} Hz a0 exceeds ${GAZETAS_A0_LIMIT}; the Gazetas (1991) multipliers are extrapolated there (floored at a small positive value).`);
+      warnings.push(`Sweep: above ${limitHz.toFixed(1)} Hz a0 exceeds ${GAZETAS_A0_LIMIT}; the Gazetas (1991) multipliers are extrapolated there (floored at a small positive value)${held}.`);
     }
   }
   warnings.push(...cutoffWarnings(model, nominal));

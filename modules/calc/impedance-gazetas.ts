@@ -1,10 +1,12 @@
 // Gazetas (1991), "Formulas and charts for impedances of surface and embedded foundations",
 // J. Geotech. Eng. ASCE 117(9): static stiffness of the base enclosed in a 2L x 2B rectangle
 // (L >= B, x along L, y along B), embedment factors, dynamic multipliers and radiation dashpots.
-// The coefficients Gazetas gives only as charts come from published closed forms (Pais &
-// Kausel 1988, NIST GCR 12-917-21 2012 Table 2-3a); the old simplified variant (k = 1, c = 1)
-// stays as the named option impedance.gazetasDynamic = "simplified", warned.
+// The coefficients Gazetas gives only as charts are read from his charts (digitised, see
+// gazetas-charts.ts) by default; the closed forms of Pais & Kausel (1988, NIST GCR 12-917-21
+// 2012 Table 2-3a) stay as the named option impedance.gazetasDynamic = "pais-kausel", and the
+// old simplified variant (k = 1, c = 1) as "simplified", warned.
 import { GAZETAS_A0_LIMIT, GAZETAS_MULTIPLIER_FLOOR } from "./criteria-defaults";
+import { CHART_A0_MAX, chartDashpotCoefficients, chartStiffnessCoefficients, chartsBeyondAspect } from "./gazetas-charts";
 import { type ImpedanceContext, type ImpedanceModel } from "./impedance-model";
 import {
   cutoffPerDof,
@@ -90,16 +92,30 @@ export function gazetasRyEmbedmentAlternatives(b: GazetasBase, D: number, d: num
   };
 }
 
-export type GazetasDynamic = "published" | "simplified";
+/**
+ * Source of the chart-only coefficients k_z, k_y, c_z, c_y, c_rx, c_ry, c_t:
+ * "published" (default) Gazetas' own charts, digitised; "pais-kausel" the closed forms of Pais &
+ * Kausel (1988); "simplified" k = 1, c = 1 (warned).
+ */
+export type GazetasDynamic = "published" | "pais-kausel" | "simplified";
+
+/** Where the dynamic coefficients of each variant come from, in the words shown on the desk and in the package. */
+export const GAZETAS_DYNAMIC_SOURCES: Record<GazetasDynamic, string> = {
+  published:
+    "Gazetas (1991) charts (Table 1 graphs of k_z, k_y, c_z, c_y, c_rx, c_ry, c_t), as digitised in the open-source geofound library (MIT licence); k_x, k_rx, k_ry, k_t and c_x from Gazetas' Table 1 formulas",
+  "pais-kausel":
+    "Closed forms of Pais & Kausel (1988) as reprinted in NIST GCR 12-917-21 (2012) Table 2-3a for k_z, k_y, c_rx, c_ry, c_t (c_z = c_y = 1); k_x, k_rx, k_ry, k_t from Gazetas (1991) Table 1",
+  simplified: "Simplified: k_z = k_y = 1 and every radiation dashpot coefficient 1 (Lysmer-analog limit; overstates rocking damping at low a0, warned)",
+};
 
 /**
  * Dynamic stiffness multipliers k(a0), a0 = w B / Vs, of the surface base (L/B = aspect >= 1).
  * - k_x = 1, k_rx = 1 - 0.20 a0, k_ry = 1 - 0.30 a0 (nu < 0.45) or 1 - 0.25 a0 (L/B)^0.3
  *   (nu >= 0.45), k_t = 1 - 0.14 a0: Gazetas (1991) Table 1 closed forms (the nu >= 0.45 form
- *   also stated by geofound).
- * - "published": k_y = 1 and k_z = 1 - (0.4 + 0.2/(L/B)) a0^2 / (10/(1 + 3(L/B - 1)) + a0^2),
- *   the closed forms of Pais & Kausel (1988), reprinted in NIST GCR 12-917-21 (2012) Table 2-3a
- *   (Gazetas 1991 gives k_z and k_y only as charts).
+ *   also stated by geofound); the charts have no graph for these.
+ * - "published": k_z and k_y read from Gazetas' (1991) Table 1 graphs (gazetas-charts.ts).
+ * - "pais-kausel": k_y = 1 and k_z = 1 - (0.4 + 0.2/(L/B)) a0^2 / (10/(1 + 3(L/B - 1)) + a0^2),
+ *   the closed forms of Pais & Kausel (1988), reprinted in NIST GCR 12-917-21 (2012) Table 2-3a.
  * - "simplified": k_z = k_y = 1 and k_ry = 1 - 0.30 a0 for every nu (the engine before issue 13).
  * Each is floored at a small positive value.
  */
@@ -108,16 +124,24 @@ export function gazetasDynamicMultipliers(a0: number, aspect = 1, nu = 0.3, vari
   if (variant === "simplified") {
     return { x: 1, y: 1, z: 1, rx: floor(1 - 0.2 * a0), ry: floor(1 - 0.3 * a0), t: floor(1 - 0.14 * a0) };
   }
-  const a2 = a0 * a0;
-  const z = 1 - ((0.4 + 0.2 / aspect) * a2) / (10 / (1 + 3 * (aspect - 1)) + a2);
   const ry = nu < 0.45 ? 1 - 0.3 * a0 : 1 - 0.25 * a0 * aspect ** 0.3;
-  return { x: 1, y: 1, z: floor(z), rx: floor(1 - 0.2 * a0), ry: floor(ry), t: floor(1 - 0.14 * a0) };
+  const common = { x: 1, rx: floor(1 - 0.2 * a0), ry: floor(ry), t: floor(1 - 0.14 * a0) };
+  if (variant === "pais-kausel") {
+    const a2 = a0 * a0;
+    const z = 1 - ((0.4 + 0.2 / aspect) * a2) / (10 / (1 + 3 * (aspect - 1)) + a2);
+    return { ...common, y: 1, z: floor(z) };
+  }
+  const chart = chartStiffnessCoefficients(a0, aspect, nu);
+  return { ...common, y: floor(chart.y), z: floor(chart.z) };
 }
 
 /**
- * Radiation dashpot coefficients c(a0) of the surface base, "published" variant: the frequency
- * functions of the Pais & Kausel (1988) radiation damping ratios, NIST GCR 12-917-21 (2012)
- * Table 2-3a, written as Gazetas' c with C = rho V A c (C = 2 beta K / w, K cancels):
+ * Radiation dashpot coefficients c(a0) of the surface base, C = rho V A c.
+ * "published" (default): c_z, c_y, c_rx, c_ry, c_t read from Gazetas' (1991) Table 1 graphs
+ * (gazetas-charts.ts; c_z between its nu <= 0.4 and nu -> 0.5 graphs), c_x = 1 (Gazetas gives
+ * C_x = rho Vs A_b without a graph).
+ * "pais-kausel": the frequency functions of the Pais & Kausel (1988) radiation damping ratios,
+ * NIST GCR 12-917-21 (2012) Table 2-3a, written as Gazetas' c (C = 2 beta K / w, K cancels):
  * c_z = c_x = c_y = 1; c_rx = a0^2 / (2.2 - 0.4/(L/B)^3 + a0^2);
  * c_ry = a0^2 / (1.8/(1 + 1.75 (L/B - 1)) + a0^2); c_t = a0^2 / (1.4/(1 + 3 (L/B - 1)^0.7) + a0^2).
  * The rocking and torsion coefficients vanish as a0 -> 0 (little rocking radiation at low
@@ -125,8 +149,9 @@ export function gazetasDynamicMultipliers(a0: number, aspect = 1, nu = 0.3, vari
  * sqrt(2(1 - nu)/(1 - 2 nu)) <= 2.5; the engine keeps Gazetas' V_La, lower for every nu (less
  * damping: the safe side). "simplified": every c = 1 (Lysmer-analog limit).
  */
-export function gazetasRadiationCoefficients(a0: number, aspect: number, variant: GazetasDynamic = "published"): GazetasStiffness {
+export function gazetasRadiationCoefficients(a0: number, aspect: number, variant: GazetasDynamic = "published", nu = 0.3): GazetasStiffness {
   if (variant === "simplified") return { x: 1, y: 1, z: 1, rx: 1, ry: 1, t: 1 };
+  if (variant === "published") return { x: 1, ...chartDashpotCoefficients(a0, aspect, nu) };
   const a2 = a0 * a0;
   return {
     x: 1,
@@ -258,9 +283,17 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
       "Gazetas (1991), simplified dynamic coefficients: the radiation dashpot coefficients c_z, c_y, c_rx, c_ry, c_t are taken at their Lysmer-analog limit 1 (rocking damping is overestimated at low a0: the unsafe side).",
     );
   }
+  if (variant === "published") {
+    const beyond = chartsBeyondAspect(aspect, nu);
+    if (beyond.length) {
+      warnings.push(
+        `Gazetas (1991) charts: L/B = ${aspect.toFixed(2)} lies beyond the largest digitised curve of ${beyond.map((b) => `${b.name} (L/B = ${b.largest})`).join(", ")}; those coefficients are taken on that curve.`,
+      );
+    }
+  }
   if (D > 0) {
     warnings.push(
-      variant === "published"
+      variant !== "simplified"
         ? "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory) and adds the sidewall dashpots of Table 2 for x, y, z, rx, ry (no torsion wall term; the embedded dynamic multipliers are those of the surface base)."
         : "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory); the dashpots are taken as those of the surface base (sidewall radiation ignored).",
     );
@@ -281,7 +314,10 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
     lysmerAnalogVelocity: lysmerAnalogVelocity(Vs, nu),
     a0Limit: GAZETAS_A0_LIMIT,
     hzAtA0Limit: (GAZETAS_A0_LIMIT * Vs) / (2 * Math.PI * base.B),
-    publishedDynamicCoefficients: variant === "published" ? 1 : 0,
+    publishedDynamicCoefficients: variant === "simplified" ? 0 : 1,
+    // 1: k_z, k_y and the dashpot coefficients read from Gazetas' charts; 0: closed forms or simplified
+    chartDynamicCoefficients: variant === "published" ? 1 : 0,
+    chartA0Max: CHART_A0_MAX,
     ...prefixed("embedmentFactor", mapped(emb)),
     ...(stratum ? { ...prefixed("stratumFactor", mapped(strat)), ...stratumDetails(ctx, cutoffHz as number[]) } : {}),
   };
@@ -292,8 +328,8 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
     evaluate(omega, k, c) {
       const a0 = (omega * base.B) / Vs;
       const mult = gazetasDynamicMultipliers(a0, aspect, nu, variant);
-      const coef = gazetasRadiationCoefficients(a0, aspect, variant);
-      const wall = variant === "published" ? gazetasSidewallDashpots(rho, Vs, nu, base, D, d, a0) : undefined;
+      const coef = gazetasRadiationCoefficients(a0, aspect, variant, nu);
+      const wall = variant !== "simplified" ? gazetasSidewallDashpots(rho, Vs, nu, base, D, d, a0) : undefined;
       const hz = omega / (2 * Math.PI);
       for (let i = 0; i < 6; i++) {
         const key = map[i] as keyof GazetasStiffness;

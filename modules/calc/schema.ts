@@ -102,8 +102,9 @@ const impedanceSchema = z.discriminatedUnion(
     z.strictObject({ method: z.literal("equivalent-radius") }),
     z.strictObject({
       method: z.literal("gazetas"),
-      // "published" (default): closed-form k(a0), c(a0); "simplified": k_z = k_y = 1, c = 1 (warned).
-      gazetasDynamic: z.enum(["published", "simplified"], { error: 'must be "published" or "simplified"' }).optional(),
+      // "published" (default): k(a0), c(a0) from Gazetas' charts (digitised); "pais-kausel": the
+      // closed forms of Pais & Kausel (1988); "simplified": k_z = k_y = 1, c = 1 (warned).
+      gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
     }),
     z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
     // Optional (issue 16): a block on steel springs at given positions (impedance-springs.ts).

@@ -4,6 +4,9 @@
 // contract's zod schema then has the last word on the server.
 import * as yup from "yup";
 import { ACCEPTANCE_JUSTIFICATION_MAX, ACCEPTANCE_JUSTIFICATION_MIN, TRANSIENT_LIMITS, type AnalysisInputDocument } from "@/modules/calc";
+import { RAMP_TIME_DEFAULTS, ROTOR_DEFAULTS } from "./rotor-defaults";
+import type { MachinePlacement, VendorTrail } from "./machine-placements";
+import type { DatumRotation } from "@/modules/vendor-data/datum";
 
 export type Num = number | null;
 export type Vec3Form = [Num, Num, Num];
@@ -38,6 +41,23 @@ export interface MachineForm {
   /** A machine modelled as a uniform box (its own rotational inertia) instead of a point mass. */
   box: { enabled: boolean; x: RangeForm; y: RangeForm; z: RangeForm };
   rotors: RotorForm[];
+  /**
+   * Where the machine's own datum sits on the block (machine-placements.ts): the vendor's
+   * positions are given from it. Absent or not placed: the positions are block coordinates.
+   */
+  datum?: DatumForm;
+  /** The vendor's own figures behind this machine, when they were taken in (read-only). */
+  vendor?: VendorTrail | null;
+}
+
+export interface DatumForm {
+  placed: boolean;
+  origin: Vec3Form;
+  rotationDeg: DatumRotation;
+}
+
+export function newDatumForm(): DatumForm {
+  return { placed: true, origin: [0, 0, null], rotationDeg: 0 };
 }
 
 export type Dof6Form = { x: Num; y: Num; z: Num; rx: Num; ry: Num; rz: Num };
@@ -104,8 +124,8 @@ export interface DraftForm {
     /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
     springsDampingRatio?: Num;
     dampingRatio: Dof6Form;
-    /** Gazetas only: the published dynamic coefficients (default) or the simplified k = 1, c = 1. */
-    gazetasDynamic: "published" | "simplified";
+    /** Gazetas only: the paper's charts (default), Pais & Kausel's closed forms, or the simplified k = 1, c = 1. */
+    gazetasDynamic: "published" | "pais-kausel" | "simplified";
   };
   machines: MachineForm[];
   checkPoints: { name: string; position: Vec3Form }[];
@@ -142,12 +162,12 @@ export function newRotor(): RotorForm {
     speedRpm: null,
     speedRangeRpm: [null, null],
     unbalanceSource: "grade",
-    balanceGrade: 6.3,
-    // ACI 351.3R recommends a service factor of 2 for unbalance growth (recalled from memory).
-    serviceFactor: 2,
+    // The desk's defaults, with their sources (rotor-defaults.ts; the vendor template prints the same).
+    balanceGrade: ROTOR_DEFAULTS.balanceGrade.value,
+    serviceFactor: ROTOR_DEFAULTS.serviceFactor.value,
     unbalanceForce: null,
     axis: "x",
-    unbalanceMode: "static",
+    unbalanceMode: ROTOR_DEFAULTS.unbalanceMode.value,
     bearings: [
       [null, 0, null],
       [null, 0, null],
@@ -189,15 +209,18 @@ export function emptyDraftForm(): DraftForm {
 }
 
 /**
- * Placeholder run durations for a new run (s): a direct-on-line start takes seconds, a free
- * coast-down of a pump or fan a minute or more (orders of magnitude recalled from memory, not
- * from a source); the designer replaces them with the drive vendor's figures.
+ * Placeholder run durations for a new run (s) when the vendor gave none (RAMP_TIME_DEFAULTS:
+ * common practice, orders of magnitude recalled from memory); the vendor's start-up and
+ * coast-down times replace them (machine-placements.ts, rampDurationFor).
  */
-export const NEW_RUN_DURATION_S = { "run-up": 10, "coast-down": 60 } as const;
+export const NEW_RUN_DURATION_S = { "run-up": RAMP_TIME_DEFAULTS.startUpS.value, "coast-down": RAMP_TIME_DEFAULTS.coastDownS.value } as const;
 
-/** A new run of a rotor with the core's default speeds (standstill and the rated speed). */
-export function newTransientRun(machine: string, rotor: string, kind: TransientRunForm["kind"]): TransientRunForm {
-  return { machine, rotor, kind, fromRpm: null, toRpm: null, durationS: NEW_RUN_DURATION_S[kind], case: "rotating", unbalanceMode: null, outputPoints: null };
+/**
+ * A new run of a rotor with the core's default speeds (standstill and the rated speed); its
+ * duration is the vendor's time when one is on record (`durationS`), the desk's default otherwise.
+ */
+export function newTransientRun(machine: string, rotor: string, kind: TransientRunForm["kind"], durationS?: number | null): TransientRunForm {
+  return { machine, rotor, kind, fromRpm: null, toRpm: null, durationS: durationS ?? NEW_RUN_DURATION_S[kind], case: "rotating", unbalanceMode: null, outputPoints: null };
 }
 
 /** A rotor a run can name: the form's machines and rotors as they stand. */
@@ -339,7 +362,39 @@ const list = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
  * saved with blanks). Missing objects and lists are filled in empty, so the form opens on
  * whatever was saved; blank values stay blank (null).
  */
-export function formFromDraftDocument(doc: unknown): DraftForm {
+export function formFromDraftDocument(doc: unknown, placements: readonly MachinePlacement[] = []): DraftForm {
+  return withPlacements(formFromDocument(doc), placements);
+}
+
+/** The form's machines with their datums and vendor figures, matched by machine name. */
+export function withPlacements(form: DraftForm, placements: readonly MachinePlacement[]): DraftForm {
+  if (!placements.length) return form;
+  return {
+    ...form,
+    machines: form.machines.map((m) => {
+      const p = placements.find((q) => q.machine === m.name);
+      if (!p) return m;
+      return { ...m, ...(p.datum ? { datum: { placed: true, origin: [...p.datum.origin] as Vec3Form, rotationDeg: p.datum.rotationDeg } } : {}), vendor: p.vendor };
+    }),
+  };
+}
+
+/**
+ * The placements to store with the draft: a machine whose datum is placed with all three
+ * coordinates, or that carries vendor figures. Keyed by the machine's name as it stands.
+ */
+export function placementsFromForm(form: Pick<DraftForm, "machines">): MachinePlacement[] {
+  return form.machines.flatMap((m) => {
+    const d = m.datum;
+    const origin = d?.origin;
+    const datum =
+      d?.placed && origin && origin.every((v) => typeof v === "number" && Number.isFinite(v)) ? { origin: [origin[0], origin[1], origin[2]] as [number, number, number], rotationDeg: d.rotationDeg } : null;
+    if (!datum && !m.vendor) return [];
+    return [{ machine: m.name, datum, vendor: m.vendor ?? null }];
+  });
+}
+
+function formFromDocument(doc: unknown): DraftForm {
   const d = obj(doc);
   const block = obj(d.block);
   const filled = {
@@ -405,8 +460,8 @@ export function toInputDocument(f: DraftForm): unknown {
               springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
               ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
             }
-          : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic === "simplified"
-          ? { method: "gazetas", gazetasDynamic: "simplified" }
+          : f.impedance.method === "gazetas" && f.impedance.gazetasDynamic !== "published"
+          ? { method: "gazetas", gazetasDynamic: f.impedance.gazetasDynamic }
           : { method: f.impedance.method },
     machines: f.machines.map((m) => ({
       name: m.name,
@@ -561,6 +616,9 @@ export const draftFormSchema = yup.object({
         name: yup.string().trim().required(required("a name for the machine")),
         mass: positive("machine mass"),
         cg: vec3,
+        datum: yup
+          .object({ placed: yup.boolean(), origin: yup.array().when("placed", { is: true, then: () => vec3 }) })
+          .default(undefined),
         rotors: yup.array().of(
           yup.object({
             name: yup.string().trim().required(required("a name for the rotor")),

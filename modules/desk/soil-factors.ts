@@ -1,6 +1,7 @@
 // The soil factors of an impedance result (embedment, stratum) and the stratum's cutoff
 // frequencies, as rows with their published sources: shown in the explanation panel, the
 // frequency-response plots and the package's soil-springs sheet.
+import { GAZETAS_DYNAMIC_SOURCES, type GazetasDynamic } from "@/modules/calc/impedance-gazetas";
 import type { ImpedanceResult } from "@/modules/calc/result-types";
 
 export const FACTOR_DOFS = ["X", "Y", "Z", "Rx", "Ry", "Rz"] as const;
@@ -70,4 +71,31 @@ export function cutoffMarkers(imp: ImpedanceResult): { hz: number; label: string
     { hz: s.cutoffShearHz, label: "cutoff Vs/4H" },
     { hz: s.cutoffCompressionHz, label: "cutoff V_La/4H" },
   ];
+}
+
+export interface DynamicCoefficientSource {
+  option: GazetasDynamic;
+  /** The option as the desk names it. */
+  label: string;
+  source: string;
+}
+
+const DYNAMIC_LABELS: Record<GazetasDynamic, string> = {
+  published: "Gazetas' charts (default)",
+  "pais-kausel": "Pais & Kausel closed forms",
+  simplified: "Simplified k = 1, c = 1",
+};
+
+/**
+ * Which dynamic coefficients a Gazetas result used, read from its details (so a stored revision
+ * names what its engine did: engines 1.1.0-1.4.0 have no chart flag and their default was the
+ * Pais & Kausel closed forms; engine 1.0.0 has neither flag and used k = 1, c = 1). Null for the
+ * other methods.
+ */
+export function dynamicCoefficientSource(imp: ImpedanceResult): DynamicCoefficientSource | null {
+  if (imp.method !== "gazetas") return null;
+  const d = imp.details ?? {};
+  // no flag at all: an engine before issue 13, which took k = 1, c = 1
+  const option: GazetasDynamic = d.publishedDynamicCoefficients !== 1 ? "simplified" : d.chartDynamicCoefficients === 1 ? "published" : "pais-kausel";
+  return { option, label: DYNAMIC_LABELS[option], source: GAZETAS_DYNAMIC_SOURCES[option] };
 }

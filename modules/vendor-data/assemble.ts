@@ -2,11 +2,30 @@
 // the machine documents, validates them with the contract, and names the cell of every
 // problem. The workbook and CSV readers both end here.
 import type { MachineInput } from "@/modules/calc/schema";
-import { bearingLabel, machineFields, rotorFields, type FieldSpec, type MachineFieldKey, type RotorFieldKey } from "./layout";
-import { problemAt, type CellRef, type Problem, type RawCell, type RawMachine } from "./types";
+import { TRANSIENT_LIMITS } from "@/modules/calc/transient-settings";
+import { ROTOR_DEFAULTS } from "@/modules/desk/rotor-defaults";
+import {
+  bearingLabel,
+  datumAxisChoices,
+  machineFields,
+  rampFields,
+  rotorFields,
+  type FieldSpec,
+  type MachineFieldKey,
+  type PositionFrame,
+  type RampFieldKey,
+  type RotorFieldKey,
+  type RotorRampTimes,
+} from "./layout";
+import { problemAt, type CellRef, type Problem, type RawCell, type RawMachine, type UploadTerms } from "./types";
 import { sheetWording, validateMachines } from "./validate";
 
-export type AssembleResult = { ok: true; machines: MachineInput[] } | { ok: false; problems: Problem[] };
+export type AssembleResult =
+  | { ok: true; machines: MachineInput[]; rampTimes: RotorRampTimes[]; terms: UploadTerms }
+  | { ok: false; problems: Problem[] };
+
+/** Version 2 unless said otherwise: positions from the machine datum. */
+const DATUM_TERMS: UploadTerms = { formatVersion: 2, frame: "machine-datum" };
 
 interface Target {
   ref: CellRef;
@@ -47,12 +66,16 @@ function convert(spec: FieldSpec, cell: RawCell | undefined, problems: Problem[]
   }
 }
 
+/** Longest start-up or coast-down accepted: the speed-ramp runs' own limit (transient-settings.ts). */
+const RAMP_MAX_S = TRANSIENT_LIMITS.maxDurationS;
+
 function isFilled(cell: RawCell | undefined): boolean {
   return !!cell && cell.value.kind !== "empty";
 }
 
 const machineSpec = (key: MachineFieldKey): FieldSpec => machineFields.find((f) => f.key === key) as FieldSpec;
 const rotorSpec = (key: RotorFieldKey): FieldSpec => rotorFields.find((f) => f.key === key) as FieldSpec;
+const rampSpec = (key: RampFieldKey): FieldSpec => rampFields.find((f) => f.key === key) as FieldSpec;
 
 /** Which cell a contract path points at; the nearest enclosing path when not exact. */
 function lookup(targets: Map<string, Target>, path: string): Target | undefined {
@@ -66,8 +89,10 @@ function lookup(targets: Map<string, Target>, path: string): Target | undefined 
   }
 }
 
-export function assembleMachines(raws: RawMachine[]): AssembleResult {
+export function assembleMachines(raws: RawMachine[], terms: UploadTerms = DATUM_TERMS): AssembleResult {
+  const frame: PositionFrame = terms.frame;
   const problems: Problem[] = [];
+  const rampTimes: RotorRampTimes[] = [];
   // Contract paths that already have a cell problem; the contract's own issue at the same
   // place (a value missing because its cell was unreadable) would only repeat it.
   const reported = new Set<string>();
@@ -149,6 +174,24 @@ export function assembleMachines(raws: RawMachine[]): AssembleResult {
         if (value !== undefined) rotor[key] = value;
         target(`${rp}.${key}`, rr.fields[key], rr.anchor, rotorSpec(key).label);
       }
+      // A blank service factor is the desk's default (rotor-defaults.ts), not the contract's 1.
+      if (rotor.serviceFactor === undefined && !isFilled(rr.fields.serviceFactor)) rotor.serviceFactor = ROTOR_DEFAULTS.serviceFactor.value;
+      // In the machine datum a horizontal shaft runs along x by definition (datum.ts).
+      if (frame === "machine-datum" && rotor.axis !== undefined && !(datumAxisChoices as readonly unknown[]).includes(rotor.axis)) {
+        problems.push(
+          problemAt(rr.fields.axis?.ref ?? rr.anchor, `${rotorSpec("axis").label}: "${String(rotor.axis)}" is not an axis of the machine datum; its x runs along a horizontal shaft (give x), z up a vertical shaft (give z)`),
+        );
+        reported.add(`${rp}.axis`);
+      }
+      const times: RotorRampTimes = { machine: typeof doc.name === "string" ? doc.name : "", rotor: typeof rotor.name === "string" ? rotor.name : "" };
+      for (const key of ["startUpS", "coastDownS"] as const) {
+        const value = convert(rampSpec(key), rr.ramp?.[key], problems);
+        if (typeof value === "number") {
+          if (!(value > 0) || value > RAMP_MAX_S) problems.push(problemAt(rr.ramp?.[key]?.ref ?? rr.anchor, `${rampSpec(key).label}: must be greater than 0 and at most ${RAMP_MAX_S} s`));
+          else times[key] = value;
+        }
+      }
+      if (times.startUpS !== undefined || times.coastDownS !== undefined) rampTimes.push(times);
       // A rotor-level issue is the grade-or-force rule: point at the grade.
       target(rp, rr.fields.balanceGrade, rr.anchor, rotorSpec("balanceGrade").label);
       const lo = rf("speedMinRpm");
@@ -188,7 +231,7 @@ export function assembleMachines(raws: RawMachine[]): AssembleResult {
   });
 
   const validated = validateMachines(docs);
-  if (validated.ok && problems.length === 0) return { ok: true, machines: validated.machines };
+  if (validated.ok && problems.length === 0) return { ok: true, machines: validated.machines, rampTimes, terms };
   // A cell that already has a problem (say, text in a number cell) also lacks its value in
   // the document; the contract's "is required" for it would only repeat the first problem.
   if (!validated.ok) {

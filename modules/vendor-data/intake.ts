@@ -4,14 +4,14 @@
 import { createHash } from "node:crypto";
 import type { MachineInput } from "@/modules/calc/schema";
 import { readMachineCsv } from "./csv";
-import { MAX_DATA_BYTES, MAX_DRAWING_BYTES } from "./layout";
+import { MAX_DATA_BYTES, MAX_DRAWING_BYTES, type RotorRampTimes } from "./layout";
 import { looksLikeZip, sniff } from "./sniff";
-import type { Problem } from "./types";
+import type { Problem, UploadTerms } from "./types";
 import { readMachineWorkbook } from "./workbook-read";
 import { checkWorkbookZip } from "./zip-check";
 
 export type DataIntake =
-  | { ok: true; source: "workbook" | "csv"; contentType: string; machines: MachineInput[] }
+  | { ok: true; source: "workbook" | "csv"; contentType: string; machines: MachineInput[]; rampTimes: RotorRampTimes[]; terms: UploadTerms }
   | { ok: false; reason: "too_large" | "wrong_type" | "invalid"; problems: Problem[] };
 
 export const XLSX_MIME = "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet";
@@ -38,11 +38,11 @@ export async function readMachineDataUpload(bytes: Buffer, expect: { requestId: 
   const kind = await sniff(bytes);
   if (kind.kind === "xlsx") {
     const read = await readMachineWorkbook(bytes, expect);
-    return read.ok ? { ok: true, source: "workbook", contentType: XLSX_MIME, machines: read.machines } : { ok: false, reason: "invalid", problems: read.problems };
+    return read.ok ? { ok: true, source: "workbook", contentType: XLSX_MIME, machines: read.machines, rampTimes: read.rampTimes, terms: read.terms } : { ok: false, reason: "invalid", problems: read.problems };
   }
   if (kind.kind === "text") {
     const read = readMachineCsv(bytes, expect);
-    return read.ok ? { ok: true, source: "csv", contentType: "text/csv", machines: read.machines } : { ok: false, reason: "invalid", problems: read.problems };
+    return read.ok ? { ok: true, source: "csv", contentType: "text/csv", machines: read.machines, rampTimes: read.rampTimes, terms: read.terms } : { ok: false, reason: "invalid", problems: read.problems };
   }
   return {
     ok: false,

@@ -1,5 +1,5 @@
 // Shared shapes of the vendor data readers: where a value came from and what was wrong.
-import type { MachineFieldKey, RotorFieldKey } from "./layout";
+import type { MachineFieldKey, PositionFrame, RampFieldKey, RotorFieldKey } from "./layout";
 
 /** A cell of a sheet (A1 notation); `cell` null means the sheet (or file) as a whole. */
 export interface CellRef {
@@ -31,12 +31,20 @@ export interface RawRotor {
   fields: Partial<Record<RotorFieldKey, RawCell>>;
   /** bearings[b][axis], axis 0 x, 1 y, 2 z. */
   bearings: RawCell[][];
+  /** Start-up and coast-down times (format version 2; absent in version 1). */
+  ramp?: Partial<Record<RampFieldKey, RawCell>>;
 }
 
 export interface RawMachine {
   anchor: CellRef;
   fields: Partial<Record<MachineFieldKey, RawCell>>;
   rotors: RawRotor[];
+}
+
+/** How an upload states its positions, and the note the designer sees about it. */
+export interface UploadTerms {
+  formatVersion: number;
+  frame: PositionFrame;
 }
 
 export function problemAt(ref: CellRef | null, message: string): Problem {

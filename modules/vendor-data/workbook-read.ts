@@ -10,14 +10,19 @@ import {
   MARKER_SHEET,
   MAX_BEARINGS,
   MAX_SHEET_ROWS,
+  READABLE_FORMAT_VERSIONS,
   ROTOR_COLUMNS,
   ROTOR_HEADER_ROW,
   bearingRow,
   machineFieldRow,
   machineFields,
+  frameOfVersion,
   machineSheetName,
+  rampFieldRow,
+  rampFields,
   rotorFieldRow,
   rotorFields,
+  type FormatVersion,
 } from "./layout";
 import type { CellValue, Problem, RawCell, RawMachine, RawRotor } from "./types";
 import { outsideReachOfFormula } from "./formula-guard";
@@ -58,34 +63,42 @@ function rawCell(ws: ExcelJS.Worksheet, sheet: string, address: string): RawCell
   return { ref: { sheet, cell: address }, value: readCellValue(ws.getCell(address).value) };
 }
 
-function readMachineSheet(ws: ExcelJS.Worksheet, sheet: string): RawMachine {
+function readMachineSheet(ws: ExcelJS.Worksheet, sheet: string, version: FormatVersion): RawMachine {
   const fields: RawMachine["fields"] = {};
   for (const spec of machineFields) fields[spec.key] = rawCell(ws, sheet, `${MACHINE_VALUE_COLUMN}${machineFieldRow(spec.key)}`);
   const rotors: RawRotor[] = ROTOR_COLUMNS.map((col) => {
     const rf: RawRotor["fields"] = {};
     for (const spec of rotorFields) rf[spec.key] = rawCell(ws, sheet, `${col}${rotorFieldRow(spec.key)}`);
     const bearings = Array.from({ length: MAX_BEARINGS }, (_, b) => [0, 1, 2].map((a) => rawCell(ws, sheet, `${col}${bearingRow(b, a)}`)));
-    return { anchor: { sheet, cell: `${col}${ROTOR_HEADER_ROW}` }, fields: rf, bearings };
+    const rotor: RawRotor = { anchor: { sheet, cell: `${col}${ROTOR_HEADER_ROW}` }, fields: rf, bearings };
+    // Version 1 has no time rows: whatever is below its bearings is not read.
+    if (version >= 2) {
+      rotor.ramp = {};
+      for (const spec of rampFields) rotor.ramp[spec.key] = rawCell(ws, sheet, `${col}${rampFieldRow(spec.key)}`);
+    }
+    return rotor;
   });
   return { anchor: { sheet, cell: null }, fields, rotors };
 }
 
-function markerProblems(wb: ExcelJS.Workbook, expect: WorkbookExpectation): Problem[] {
+function readMarker(wb: ExcelJS.Workbook, expect: WorkbookExpectation): { ok: true; version: FormatVersion } | { ok: false; problems: Problem[] } {
   const ws = wb.getWorksheet(MARKER_SHEET);
   const notOurs = "This is not a machine data workbook from Plinthwise (its format marker is missing). Download the workbook of this request, fill it in and upload that file.";
-  if (!ws) return [{ sheet: MARKER_SHEET, cell: null, message: notOurs }];
+  const fail = (cell: string | null, message: string) => ({ ok: false as const, problems: [{ sheet: MARKER_SHEET, cell, message }] });
+  if (!ws) return fail(null, notOurs);
   const text = (addr: string) => {
     const v = readCellValue(ws.getCell(addr).value);
     return v.kind === "text" ? v.value : v.kind === "number" ? String(v.value) : "";
   };
-  if (text("B1") !== FORMAT_ID) return [{ sheet: MARKER_SHEET, cell: "B1", message: notOurs }];
-  if (text("B2") !== String(FORMAT_VERSION)) {
-    return [{ sheet: MARKER_SHEET, cell: "B2", message: `The workbook is format version ${text("B2") || "?"}; this desk reads version ${FORMAT_VERSION}. Download the workbook again.` }];
+  if (text("B1") !== FORMAT_ID) return fail("B1", notOurs);
+  const version = READABLE_FORMAT_VERSIONS.find((v) => String(v) === text("B2"));
+  if (version === undefined) {
+    return fail("B2", `The workbook is format version ${text("B2") || "?"}; this desk reads versions ${READABLE_FORMAT_VERSIONS.join(" and ")} (version ${FORMAT_VERSION} is the current one). Download the workbook again.`);
   }
   if (text("B3") !== expect.requestId) {
-    return [{ sheet: MARKER_SHEET, cell: "B3", message: "This workbook was generated for another data request. Download the workbook of this request and copy your figures into it." }];
+    return fail("B3", "This workbook was generated for another data request. Download the workbook of this request and copy your figures into it.");
   }
-  return [];
+  return { ok: true, version };
 }
 
 /**
@@ -122,8 +135,8 @@ export async function readMachineWorkbook(bytes: Buffer, expect: WorkbookExpecta
   }
   const outside = outsideFormulaProblems(wb);
   if (outside.length) return { ok: false, problems: outside };
-  const marker = markerProblems(wb, expect);
-  if (marker.length) return { ok: false, problems: marker };
+  const marker = readMarker(wb, expect);
+  if (!marker.ok) return marker;
   const problems: Problem[] = [];
   const raws: RawMachine[] = [];
   for (let i = 0; i < expect.machineCount; i++) {
@@ -137,8 +150,8 @@ export async function readMachineWorkbook(bytes: Buffer, expect: WorkbookExpecta
       problems.push({ sheet: name, cell: null, message: `The sheet has ${ws.rowCount} rows; the layout has ${MAX_SHEET_ROWS - 200}. Remove anything pasted below it.` });
       continue;
     }
-    raws.push(readMachineSheet(ws, name));
+    raws.push(readMachineSheet(ws, name, marker.version));
   }
   if (problems.length) return { ok: false, problems };
-  return assembleMachines(raws);
+  return assembleMachines(raws, { formatVersion: marker.version, frame: frameOfVersion(marker.version) });
 }

@@ -58,6 +58,23 @@ describe("POST /api/v1/calculate", () => {
     expect(body.error.issues?.some((i) => i.path === "impedance.springs")).toBe(true);
   });
 
+  it("takes impedance.gazetasDynamic \"pais-kausel\" (engine 1.5.0): the closed forms' rocking dashpot, not the charts'; an unknown option is a 400 naming the field", async () => {
+    const doc = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "gazetas-embedded.json"), "utf8")) as { impedance: Record<string, unknown> };
+    type Imp = { impedance: { dashpot: { rx: number; ry: number }; details: Record<string, number> } };
+    const charts = (await (await calculate(doc)).json()) as Imp;
+    const res = await calculate({ ...doc, impedance: { method: "gazetas", gazetasDynamic: "pais-kausel" } });
+    expect(res.status).toBe(200);
+    const pk = (await res.json()) as Imp;
+    expect(charts.impedance.details.chartDynamicCoefficients).toBe(1);
+    expect(pk.impedance.details.chartDynamicCoefficients).toBe(0);
+    expect(Math.abs(pk.impedance.dashpot.rx / charts.impedance.dashpot.rx - 1)).toBeGreaterThan(0.01);
+    const bad = await calculate({ ...doc, impedance: { method: "gazetas", gazetasDynamic: "charts" } });
+    expect(bad.status).toBe(400);
+    const body = (await bad.json()) as ErrorBody;
+    const issue = body.error.issues?.find((i) => i.path === "impedance.gazetasDynamic");
+    expect(issue?.message).toContain('"pais-kausel"');
+  });
+
   it("serves any signed-in account, project member or not", async () => {
     for (const role of ["outsider", "vendor", "viewer", "admin"] as const) {
       expect((await calculate(sampleAnalysisInput(), fx.cookies[role])).status).toBe(200);

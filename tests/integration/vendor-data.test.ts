@@ -95,7 +95,12 @@ beforeAll(async () => {
   // A foundation of our own with the sample draft, so the demo's drafts stay as seeded.
   const f = await createFoundation(manager, fx.projectId, { tag: `IT-VND-${stamp}`, machineTrain: "Test fan train", location: "Test bay" });
   foundationId = f.id;
-  const saved = await saveDraft(manager, fx.projectId, foundationId, { input: sampleAnalysisInput() as never, expectedVersion: 0 });
+  // The machine's datum placed at the block's origin, unturned (template version 2 gives
+  // positions from the machine datum): the figures read the same in both frames here, the
+  // conversion itself is tested in vendor-datum.test.ts.
+  const sample = sampleAnalysisInput() as unknown as { machines: { name: string }[] };
+  const placements = sample.machines.map((m) => ({ machine: m.name, datum: { origin: [0, 0, 0] as [number, number, number], rotationDeg: 0 as const }, vendor: null }));
+  const saved = await saveDraft(manager, fx.projectId, foundationId, { input: sampleAnalysisInput() as never, expectedVersion: 0, placements });
   expect(saved?.ok).toBe(true);
   // A vendor of another company on the same project.
   const other = await createUser({ email: `halden-${stamp}@halden-fans.test`, name: "Other Vendor" });

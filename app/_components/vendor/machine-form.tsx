@@ -2,7 +2,8 @@
 
 import { useActionState, useState } from "react";
 import type { MachineInput } from "@/modules/calc/schema";
-import { MAX_BEARINGS, MAX_ROTORS, bearingLabel, machineFields, rotorFields, type MachineFieldKey, type RotorFieldKey } from "@/modules/vendor-data/layout";
+import { MACHINE_DATUM_TEXT } from "@/modules/vendor-data/datum";
+import { MAX_BEARINGS, MAX_ROTORS, bearingLabel, machineFields, rampFields, rotorFields, type MachineFieldKey, type RotorFieldKey } from "@/modules/vendor-data/layout";
 import { FormMessage, SubmitButton, type FormState } from "../form-kit";
 import type { ServerAction } from "../../_lib/action";
 
@@ -13,7 +14,17 @@ type Cells = Record<string, string>;
 
 const s = (v: number | string | null | undefined) => (v === null || v === undefined ? "" : String(v));
 
-function machineCells(m: MachineInput | null, name: string): Cells {
+/** What the form is prefilled with: positions in the machine datum, or left blank (`omitPositions`). */
+export interface FormMachine {
+  name: string;
+  values: MachineInput | null;
+  omitPositions?: boolean;
+  rampTimes?: { rotor: string; startUpS?: number; coastDownS?: number }[];
+}
+
+function machineCells(entry: FormMachine): Cells {
+  const m = entry.values && entry.omitPositions ? { ...entry.values, cg: [null, null, null], box: undefined, rotors: entry.values.rotors.map((r) => ({ ...r, bearings: [] })) } : entry.values;
+  const name = entry.name;
   const c: Cells = { name: m?.name ?? name, mass: s(m?.mass), cgX: s(m?.cg[0]), cgY: s(m?.cg[1]), cgZ: s(m?.cg[2]) };
   c.boxXFrom = s(m?.box?.x[0]);
   c.boxXTo = s(m?.box?.x[1]);
@@ -35,6 +46,9 @@ function machineCells(m: MachineInput | null, name: string): Cells {
     put("axis", r?.axis);
     put("unbalanceMode", r?.unbalanceMode);
     for (let b = 0; b < MAX_BEARINGS; b++) for (let a = 0; a < 3; a++) put(`b${b}.${a}`, r?.bearings[b]?.[a]);
+    const times = r ? entry.rampTimes?.find((t) => t.rotor === r.name) : undefined;
+    put("startUpS", times?.startUpS);
+    put("coastDownS", times?.coastDownS);
   }
   return c;
 }
@@ -58,7 +72,7 @@ function toDocument(c: Cells): Record<string, unknown> {
     if (!used) continue;
     const r: Record<string, unknown> = { name: c[`r${k}.name`]?.trim(), mass: g("mass"), speedRpm: g("speedRpm"), axis: c[`r${k}.axis`] || undefined, bearings: [] };
     if (g("speedMinRpm") !== undefined || g("speedMaxRpm") !== undefined) r.speedRangeRpm = [g("speedMinRpm"), g("speedMaxRpm")];
-    for (const key of ["balanceGrade", "unbalanceForce", "serviceFactor"]) if (g(key) !== undefined) r[key] = g(key);
+    for (const key of ["balanceGrade", "unbalanceForce", "serviceFactor", "startUpS", "coastDownS"]) if (g(key) !== undefined) r[key] = g(key);
     if (c[`r${k}.unbalanceMode`]) r.unbalanceMode = c[`r${k}.unbalanceMode`];
     const bearings: unknown[] = [];
     for (let b = 0; b < MAX_BEARINGS; b++) {
@@ -76,9 +90,9 @@ const machinePath: Record<MachineFieldKey, string> = { name: "name", mass: "mass
 const rotorPath: Record<RotorFieldKey, string> = { name: "name", mass: "mass", speedRpm: "speedRpm", speedMinRpm: "speedRangeRpm", speedMaxRpm: "speedRangeRpm", balanceGrade: "balanceGrade", unbalanceForce: "unbalanceForce", serviceFactor: "serviceFactor", axis: "axis", unbalanceMode: "unbalanceMode" };
 
 /** The same figures as the workbook, typed in the browser; checked by the same contract on the server. */
-export function MachineForm({ projectId, requestId, machines, action }: { projectId: string; requestId: string; machines: { name: string; values: MachineInput | null }[]; action: AnyAction }) {
+export function MachineForm({ projectId, requestId, machines, action }: { projectId: string; requestId: string; machines: FormMachine[]; action: AnyAction }) {
   const [state, formAction] = useActionState(action as (s: FormState, f: FormData) => Promise<FormState>, null);
-  const [cells, setCells] = useState<Cells[]>(() => machines.map((m) => machineCells(m.values, m.name)));
+  const [cells, setCells] = useState<Cells[]>(() => machines.map((m) => machineCells(m)));
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   const errorAt = (path: string) => Object.entries(errors).filter(([p]) => p === path || p.startsWith(`${path}[`) || p.startsWith(`${path}.`)).flatMap(([, m]) => m);
   const set = (i: number, key: string, v: string) => setCells((all) => all.map((c, j) => (j === i ? { ...c, [key]: v } : c)));
@@ -100,6 +114,9 @@ export function MachineForm({ projectId, requestId, machines, action }: { projec
       <input type="hidden" name="projectId" value={projectId} />
       <input type="hidden" name="requestId" value={requestId} />
       <input type="hidden" name="machines" value={JSON.stringify(cells.map(toDocument))} />
+      <p className="text-xs text-basalt-700" data-testid="machine-datum-text">
+        Positions in metres from the machine&apos;s own datum. {MACHINE_DATUM_TEXT}
+      </p>
       {cells.map((_, i) => {
         const mp = `machines[${i}]`;
         return (
@@ -136,11 +153,19 @@ export function MachineForm({ projectId, requestId, machines, action }: { projec
                   const a = n % 3;
                   return (
                     <tr key={n}>
-                      <th className="normal-case">{bearingLabel(b, a)} (m)</th>
+                      <th className="normal-case">{bearingLabel(b, a)} from the machine datum (m)</th>
                       {Array.from({ length: MAX_ROTORS }, (_, k) => <Cell key={k}>{input(i, `r${k}.b${b}.${a}`, `${mp}.rotors[${k}].bearings[${b}]`, `Rotor ${k + 1} ${bearingLabel(b, a)}`)}</Cell>)}
                     </tr>
                   );
                 })}
+                {rampFields.map((f) => (
+                  <tr key={f.key}>
+                    <th className="normal-case" title={f.hint}>
+                      {f.label} ({f.unit})<span className="block text-2xs font-normal text-basalt-400">{f.hint}</span>
+                    </th>
+                    {Array.from({ length: MAX_ROTORS }, (_, k) => <Cell key={k}>{input(i, `r${k}.${f.key}`, `${mp}.rotors[${k}].${f.key}`, `Rotor ${k + 1} ${f.label}`)}</Cell>)}
+                  </tr>
+                ))}
               </tbody>
             </table>
           </fieldset>

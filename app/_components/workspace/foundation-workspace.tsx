@@ -3,7 +3,7 @@
 import { Formik, useFormikContext } from "formik";
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import type { AnalysisResult } from "@/modules/calc";
-import { draftFormSchema, formCompleteness, formFromDraftDocument, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
+import { draftFormSchema, formCompleteness, formFromDraftDocument, placementsFromForm, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
 import type { AnalysisInputDocument } from "@/modules/calc";
@@ -20,7 +20,7 @@ import { ChecksTable, CombinedResponseTable, CrossCheckTable, ImpedanceTable, Ma
 import { SoilSection } from "./soil-section";
 import { SpeedRampsSection } from "./speed-ramps-section";
 import { useCalculation, useEngineStatus, type CalcIssue } from "./use-calculation";
-import { useDraftSave } from "./use-draft-save";
+import { draftSaveBody, useDraftSave } from "./use-draft-save";
 import { useLeaveGuard } from "./use-leave-guard";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
 import { ReviewCommentsProvider, type WorkspaceComment } from "./review-comments";
@@ -78,13 +78,16 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   // Blank criteria take the project's defaults, so the result and the saved draft record what was used.
   const toDocument = useCallback((form: DraftForm) => withProjectDefaults(toInputDocument(form), props.projectDefaults), [props.projectDefaults]);
   const document = useMemo(() => toDocument(values), [values, toDocument]);
+  // Datums on the block and the vendor's figures: saved beside the input, never in it.
+  const placements = useMemo(() => placementsFromForm(values), [values]);
   const { result, error, stale, pending } = useCalculation(document, true);
   const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues) }), [setStatus]);
   const saver = useDraftSave({
     url: `/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`,
     document,
+    placements,
     // A foundation without a stored draft starts from the empty form: untouched, it has nothing to save.
-    initialSavedBody: JSON.stringify(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults)),
+    initialSavedBody: draftSaveBody(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults), placementsFromForm(props.initialForm)),
     version: props.version,
     setVersion: props.setVersion,
     valid: completeness !== "invalid",
@@ -110,9 +113,9 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     if (!conflict) return;
     let storedBody: string | null = null;
     if (conflict.current) {
-      const form = formFromDraftDocument(conflict.current);
+      const form = formFromDraftDocument(conflict.current, conflict.placements);
       resetForm({ values: form });
-      storedBody = JSON.stringify(withProjectDefaults(toInputDocument(form), props.projectDefaults));
+      storedBody = draftSaveBody(withProjectDefaults(toInputDocument(form), props.projectDefaults), placementsFromForm(form));
     }
     saver.acceptStored(storedBody);
   };

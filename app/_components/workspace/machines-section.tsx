@@ -3,6 +3,8 @@
 import { FieldArray, useFormikContext } from "formik";
 import { BALANCE_GRADE_SOURCE, balanceGradeClasses } from "@/modules/desk/balance-grades";
 import { newMachine, newRotor, type DraftForm } from "@/modules/desk/draft-form";
+import { ROTOR_DEFAULTS } from "@/modules/desk/rotor-defaults";
+import { MachineDatumPanel } from "./machine-datum-panel";
 import { NumberField } from "./number-field";
 
 function Vec3Inputs({ base, label, kind, readOnly }: { base: string; label: string; kind: "length"; readOnly: boolean }) {
@@ -51,6 +53,7 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
                   </button>
                 )}
               </div>
+              <MachineDatumPanel mi={mi} machine={m} readOnly={readOnly} />
               {m.box.enabled ? (
                 <div className="mt-2 grid grid-cols-3 gap-2 md:grid-cols-6">
                   {(["x", "y", "z"] as const).flatMap((axis) =>
@@ -113,7 +116,7 @@ export function MachinesSection({ readOnly }: { readOnly: boolean }) {
                             ) : (
                               <NumberField name={`${base}.unbalanceForce`} label="Vendor force at rated speed" kind="force" readOnly={readOnly} />
                             )}
-                            <NumberField name={`${base}.serviceFactor`} label="Service factor" kind="ratio" readOnly={readOnly} hint="Default 2 (ACI 351.3R, recalled from memory)" />
+                            <NumberField name={`${base}.serviceFactor`} label="Service factor" kind="ratio" readOnly={readOnly} hint={`Default ${ROTOR_DEFAULTS.serviceFactor.value} (${ROTOR_DEFAULTS.serviceFactor.source})`} />
                             <label>
                               <span className="field-label">Unbalance</span>
                               <select className="field-input" name={`${base}.unbalanceMode`} value={r.unbalanceMode} onChange={handleChange} disabled={readOnly}>

@@ -60,8 +60,12 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
         <fieldset className="space-y-1.5" disabled={readOnly}>
           <legend className="field-label">Dynamic coefficients k(a0), c(a0)</legend>
           <label className="flex items-start gap-2 text-sm">
-            <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic !== "simplified"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "published")} className="mt-1" />
-            <span>Published closed forms (Gazetas 1991 Table 1; Pais &amp; Kausel 1988 as reprinted in NIST GCR 12-917-21), with sidewall dashpots when embedded</span>
+            <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "published"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "published")} className="mt-1" />
+            <span>Gazetas&apos; charts (1991, Table 1 graphs, digitised), with sidewall dashpots when embedded</span>
+          </label>
+          <label className="flex items-start gap-2 text-sm">
+            <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "pais-kausel"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "pais-kausel")} className="mt-1" />
+            <span>Pais &amp; Kausel closed forms (1988, as reprinted in NIST GCR 12-917-21), with sidewall dashpots when embedded (more rocking damping than the charts on a squarish base at a0 = 1-2: the unsafe side there)</span>
           </label>
           <label className="flex items-start gap-2 text-sm">
             <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === "simplified"} onChange={() => void setFieldValue("impedance.gazetasDynamic", "simplified")} className="mt-1" />

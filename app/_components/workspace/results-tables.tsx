@@ -4,7 +4,7 @@ import type { ReactNode } from "react";
 import { FieldPick } from "./field-pick";
 import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
-import { FACTOR_DOF_LABELS, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
+import { FACTOR_DOF_LABELS, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { DOF_KEYS } from "@/modules/calc";
 import { formatSignificant as sig } from "@/modules/units";
 import { Explain } from "./explain";
@@ -180,11 +180,12 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
   const u = useUnits();
   const imp = result.impedance;
   const kindFor = (d: string): QuantityKey => (d.startsWith("r") ? "rotationalStiffness" : "stiffness");
+  const dynamic = dynamicCoefficientSource(imp);
   const methodText =
     imp.method === "equivalent-radius"
       ? "Equivalent-radius circular footing on an elastic half-space with Lysmer's analog damping"
       : imp.method === "gazetas"
-        ? "Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots"
+        ? `Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots; dynamic coefficients: ${dynamic?.label ?? ""}`
         : imp.method === "springs"
           ? "Steel springs at their positions, assembled at O (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²)"
           : "Springs and damping ratios given by the user";
@@ -222,9 +223,11 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
           imp.method === "equivalent-radius"
             ? "k_z = 4 G r0/(1−ν); k_x = 32(1−ν) G r0/(7−8ν); k_ψ = 8 G r0³/(3(1−ν)); k_θ = 16 G r0³/3; D_z = 0.425/√B_z …; c = 2 D √(k M_ii)"
             : imp.method === "gazetas"
-              ? imp.details?.publishedDynamicCoefficients === 0
+              ? dynamic?.option === "simplified"
                 ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; simplified k_z = k_y = 1, C = ρ V A with c = 1; material damping K(1 + 2iβ)"
-                : "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; k_z = 1 − (0.4 + 0.2/(L/B)) a0²/(10/(1 + 3(L/B − 1)) + a0²); C_rx = ρ V_La I_bx a0²/(2.2 − 0.4/(L/B)³ + a0²) …; material damping K(1 + 2iβ)"
+                : dynamic?.option === "published"
+                  ? "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; K(ω) = K k(a0), C = ρ V A c(a0) with k_z, k_y, c_z, c_y, c_rx, c_ry, c_t read from Gazetas' charts (linear in a0 and L/B, held beyond a0 = 2); k_rx = 1 − 0.20 a0 …; material damping K(1 + 2iβ)"
+                  : "K_z = 2GL/(1−ν)(0.73 + 1.54 χ^0.75) …; k_z = 1 − (0.4 + 0.2/(L/B)) a0²/(10/(1 + 3(L/B − 1)) + a0²); C_rx = ρ V_La I_bx a0²/(2.2 − 0.4/(L/B)³ + a0²) …; material damping K(1 + 2iβ)"
               : imp.method === "springs"
                 ? "dashpots: the dampers' Σcz, Σch assembled like the springs, or c = 2 D √(k M_ii); TR = √(1 + (2ζr)²) / √((1 − r²)² + (2ζr)²)"
                 : "c = 2 D √(k M_ii)"
@@ -233,7 +236,7 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
           imp.method === "equivalent-radius"
             ? "Richart, Hall & Woods (1970), Vibrations of Soils and Foundations, ch. 7 and 10; Lysmer (1965); Hall (1967)"
             : imp.method === "gazetas"
-              ? "Gazetas (1991), J. Geotech. Eng. ASCE 117(9), Tables 1 and 2; chart-only coefficients from the closed forms of Pais & Kausel (1988) as reprinted in NIST GCR 12-917-21 (2012) Table 2-3a"
+              ? `Gazetas (1991), J. Geotech. Eng. ASCE 117(9), Tables 1 and 2; dynamic coefficients: ${dynamic?.source ?? ""}`
               : imp.method === "springs"
                 ? "Catalogue spring stiffness typed by the designer; rigid-body kinematics; Chopra, Dynamics of Structures, §3.6 (transmissibility)"
                 : "User-entered values"

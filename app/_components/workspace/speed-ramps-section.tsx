@@ -4,7 +4,9 @@ import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries, type Poi
 import { FieldArray, getIn, useFormikContext } from "formik";
 import { useId, useMemo, useState } from "react";
 import { TRANSIENT_LIMITS, type AnalysisResult, type TransientResult } from "@/modules/calc";
-import { newTransientRun, runRotorChoices, type DraftForm, type RunRotorChoice, type TransientRunForm } from "@/modules/desk/draft-form";
+import { newTransientRun, placementsFromForm, runRotorChoices, type DraftForm, type RunRotorChoice, type TransientRunForm } from "@/modules/desk/draft-form";
+import { rampDurationFor, runDurationSource } from "@/modules/desk/machine-placements";
+import { RAMP_TIME_DEFAULTS } from "@/modules/desk/rotor-defaults";
 import {
   operatingRangeRpm,
   passedNaturalFrequencies,
@@ -81,7 +83,9 @@ function useRunErrors() {
 }
 
 function RunRow({ index, run, rotor, readOnly, onRemove }: { index: number; run: TransientRunForm; rotor: RunRotorChoice; readOnly: boolean; onRemove: () => void }) {
-  const { setFieldValue } = useFormikContext<DraftForm>();
+  const { setFieldValue, values } = useFormikContext<DraftForm>();
+  // Which figure the duration is (the vendor's time, the desk's default, or the designer's), and its source.
+  const durationSource = runDurationSource(placementsFromForm(values), run);
   const errorAt = useRunErrors();
   const base = `transient[${index}]`;
   const rated = rotor.speedRpm !== null && Number.isFinite(rotor.speedRpm) ? `${rotor.speedRpm} rpm` : "the rated speed";
@@ -138,6 +142,9 @@ function RunRow({ index, run, rotor, readOnly, onRemove }: { index: number; run:
           hint={`Blank: ${TRANSIENT_LIMITS.defaultOutputPoints} (${TRANSIENT_LIMITS.minOutputPoints}–${TRANSIENT_LIMITS.maxOutputPoints})`}
         />
       </div>
+      <p className="mt-1 text-2xs text-basalt-500" data-testid={`speed-ramp-duration-source-${index}`}>
+        {durationSource}
+      </p>
     </div>
   );
 }
@@ -187,6 +194,9 @@ function RunsEditor({ readOnly }: { readOnly: boolean }) {
   const { values } = useFormikContext<DraftForm>();
   const errorAt = useRunErrors();
   const choices = runRotorChoices(values);
+  const placements = placementsFromForm(values);
+  // A new run starts from the vendor's time for that rotor when one is on record, the desk's default otherwise.
+  const startRun = (c: RunRotorChoice, kind: TransientRunForm["kind"]) => newTransientRun(c.machine, c.rotor, kind, rampDurationFor(placements, c.machine, c.rotor, kind).durationS);
   const runs = values.transient.map((run, index) => ({ run, index }));
   const matches = (c: RunRotorChoice, r: TransientRunForm) => c.machine === r.machine && c.rotor === r.rotor;
   const orphans = runs.filter(({ run }) => !choices.some((c) => matches(c, run)));
@@ -212,10 +222,10 @@ function RunsEditor({ readOnly }: { readOnly: boolean }) {
                 </div>
                 {readOnly ? null : (
                   <div className="mt-2 flex flex-wrap gap-2">
-                    <button type="button" className="btn-quiet text-xs" disabled={full} onClick={() => arr.push(newTransientRun(c.machine, c.rotor, "run-up"))}>
+                    <button type="button" className="btn-quiet text-xs" disabled={full} onClick={() => arr.push(startRun(c, "run-up"))}>
                       Add start-up
                     </button>
-                    <button type="button" className="btn-quiet text-xs" disabled={full} onClick={() => arr.push(newTransientRun(c.machine, c.rotor, "coast-down"))}>
+                    <button type="button" className="btn-quiet text-xs" disabled={full} onClick={() => arr.push(startRun(c, "coast-down"))}>
                       Add coast-down
                     </button>
                   </div>
@@ -235,8 +245,8 @@ function RunsEditor({ readOnly }: { readOnly: boolean }) {
           ) : null}
           {!readOnly ? (
             <p className="text-2xs text-basalt-400">
-              A new run takes {newTransientRun("", "", "run-up").durationS} s to start and {newTransientRun("", "", "coast-down").durationS} s to coast down as placeholders (orders of
-              magnitude recalled from memory): enter the drive vendor&apos;s times.
+              A new run takes the vendor&apos;s start-up or coast-down time for its rotor when the machine data gives one; otherwise {RAMP_TIME_DEFAULTS.startUpS.value} s to start and{" "}
+              {RAMP_TIME_DEFAULTS.coastDownS.value} s to coast down as placeholders (common practice, orders of magnitude recalled from memory): enter the drive vendor&apos;s times.
             </p>
           ) : null}
         </div>

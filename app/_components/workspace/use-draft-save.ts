@@ -2,6 +2,7 @@
 
 import { useCallback, useEffect, useLayoutEffect, useRef, useState } from "react";
 import type { AnalysisInputDocument } from "@/modules/calc";
+import type { MachinePlacement } from "@/modules/desk/machine-placements";
 import { AUTOSAVE_PAUSE_MS, draftSaveStatus, KEEPALIVE_BODY_LIMIT, mayAutosave, type DraftSaveStatus } from "@/modules/desk/draft-autosave";
 import { fieldLabel } from "@/modules/revisions/field-labels";
 import type { CalcIssue } from "./use-calculation";
@@ -9,6 +10,8 @@ import type { CalcIssue } from "./use-calculation";
 export interface DraftConflict {
   currentVersion: number;
   current: AnalysisInputDocument | null;
+  /** The stored draft's machine placements (datums, vendor figures). */
+  placements: MachinePlacement[];
   /** "Keep mine for now": the dialog is closed, nothing saves until the next explicit save. */
   dismissed: boolean;
 }
@@ -16,7 +19,7 @@ export interface DraftConflict {
 interface SaveAnswer {
   draft?: { version: number };
   error?: { message?: string; currentVersion?: number; issues?: CalcIssue[] };
-  current?: { version: number; input: AnalysisInputDocument | null; document?: AnalysisInputDocument | null };
+  current?: { version: number; input: AnalysisInputDocument | null; document?: AnalysisInputDocument | null; placements?: MachinePlacement[] };
 }
 
 /**
@@ -34,9 +37,19 @@ function failureMessage(message: string, issues: CalcIssue[] | undefined): strin
   return `${message} ${named.join("; ")}${more}.`;
 }
 
+/**
+ * What a save sends after the version: the input and, when given, the machine placements
+ * (datum on the block, vendor figures). Compared as text to tell whether anything is unsaved.
+ */
+export function draftSaveBody(document: unknown, placements?: unknown): string {
+  return `"input":${JSON.stringify(document)}${placements === undefined ? "" : `,"placements":${JSON.stringify(placements)}`}`;
+}
+
 export function useDraftSave(opts: {
   url: string;
   document: unknown;
+  /** The machine placements saved with the input (PUT .../draft `placements`). */
+  placements?: unknown;
   initialSavedBody: string;
   version: number;
   setVersion: (v: number) => void;
@@ -44,8 +57,8 @@ export function useDraftSave(opts: {
   readOnly: boolean;
   onIssues: (issues: CalcIssue[]) => void;
 }) {
-  const { url, document, version, setVersion, valid, readOnly, onIssues } = opts;
-  const body = JSON.stringify(document);
+  const { url, document, placements, version, setVersion, valid, readOnly, onIssues } = opts;
+  const body = draftSaveBody(document, placements);
   const [savedBody, setSavedBody] = useState(opts.initialSavedBody);
   const [saving, setSaving] = useState(false);
   const [savedAt, setSavedAt] = useState<string | null>(null);
@@ -71,7 +84,7 @@ export function useDraftSave(opts: {
       if (how === "auto" && !ok) return;
       inFlight.current = true;
       setSaving(true);
-      const payload = `{"version":${from},"input":${sending}}`;
+      const payload = `{"version":${from},${sending}}`;
       try {
         const res = await fetch(url, {
           method: "PUT",
@@ -90,7 +103,7 @@ export function useDraftSave(opts: {
           setFailure(null);
           setConflict(null);
         } else if (res.status === 409) {
-          setConflict({ currentVersion: answer.error?.currentVersion ?? answer.current?.version ?? 0, current: answer.current?.document ?? answer.current?.input ?? null, dismissed: false });
+          setConflict({ currentVersion: answer.error?.currentVersion ?? answer.current?.version ?? 0, current: answer.current?.document ?? answer.current?.input ?? null, placements: answer.current?.placements ?? [], dismissed: false });
         } else {
           if (answer.error?.issues) onIssues(answer.error.issues);
           setFailure({ body: sending, message: failureMessage(answer.error?.message ?? `Saving failed (${res.status})`, answer.error?.issues) });

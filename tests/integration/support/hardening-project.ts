@@ -43,7 +43,10 @@ export async function createHardeningProject(owner: Actor, label: string): Promi
   const foundation = await createFoundation(owner, project.id, { tag: foundationTag, machineTrain: "Hardening fan", location: "Bay H" });
   const parsed = parseAnalysisInput(sampleAnalysisInput());
   if (!parsed.ok) throw new Error("the sample input is not valid");
-  const saved = await saveDraft(owner, project.id, foundation.id, { input: parsed.input, expectedVersion: 0 });
+  // Each machine's datum placed at the block's origin, unturned: the web form gives positions
+  // from the machine datum, and they read the same on the block here.
+  const placements = parsed.input.machines.map((m) => ({ machine: m.name, datum: { origin: [0, 0, 0] as [number, number, number], rotationDeg: 0 as const }, vendor: null }));
+  const saved = await saveDraft(owner, project.id, foundation.id, { input: parsed.input, expectedVersion: 0, placements });
   if (!saved?.ok) throw new Error("hardening draft not saved");
   const issued = await issueRevision(owner, project.id, foundation.id);
   if (!issued.ok) throw new Error(`hardening revision not issued: ${issued.reason}`);

@@ -45,3 +45,29 @@ describe("soil-springs sheet of a base on borehole layers over rock", () => {
     expect(texts(inputs)).toContain("Borehole layers over rock (top down)");
   });
 });
+
+describe("soil-springs sheet names the source of the Gazetas dynamic coefficients (engine 1.5.0)", () => {
+  const example = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "gazetas-embedded.json"), "utf8"));
+  const sheetFor = async (gazetasDynamic?: string) => {
+    const p = parseAnalysisInput({ ...example, impedance: { method: "gazetas", ...(gazetasDynamic ? { gazetasDynamic } : {}) } });
+    if (!p.ok) throw new Error("example invalid");
+    const d = packageData(p.input, "si");
+    const wb = await roundTrip(Buffer.from(await buildRevisionWorkbook(d).xlsx.writeBuffer()));
+    return { springs: wb.getWorksheet(PACKAGE_SHEETS.springs)!, inputs: wb.getWorksheet(PACKAGE_SHEETS.inputs)! };
+  };
+
+  it("default: Gazetas' charts as digitised by geofound; option pais-kausel: the closed forms with their reprint; simplified says so", async () => {
+    const def = await sheetFor();
+    const row = rowWith(def.springs, "Dynamic coefficients k(a0), c(a0)");
+    expect(String(row.getCell(2).value)).toBe("Gazetas' charts (default)");
+    expect(String(row.getCell(3).value)).toMatch(/Gazetas \(1991\) charts .*geofound/);
+    expect(String(rowWith(def.inputs, "Dynamic coefficients").getCell(3).value)).toMatch(/charts/);
+    const pk = await sheetFor("pais-kausel");
+    const pkRow = rowWith(pk.springs, "Dynamic coefficients k(a0), c(a0)");
+    expect(String(pkRow.getCell(2).value)).toBe("Pais & Kausel closed forms");
+    expect(String(pkRow.getCell(3).value)).toMatch(/NIST GCR 12-917-21 \(2012\) Table 2-3a/);
+    expect(String(rowWith(pk.inputs, "Dynamic coefficients").getCell(2).value)).toBe("pais-kausel");
+    const simp = await sheetFor("simplified");
+    expect(String(rowWith(simp.springs, "Dynamic coefficients k(a0), c(a0)").getCell(3).value)).toMatch(/Lysmer-analog limit/);
+  });
+});

@@ -146,6 +146,7 @@ export function arbitraryInput(): fc.Arbitrary<AnalysisInputDocument> {
     const impedance = fc.oneof(
       fc.constant({ method: "equivalent-radius" as const }),
       fc.constant({ method: "gazetas" as const }),
+      fc.constant({ method: "gazetas" as const, gazetasDynamic: "pais-kausel" as const }),
       fc
         .record({ k: fc.array(fc.double({ min: 1e8, max: 1e10, noNaN: true }), { minLength: 6, maxLength: 6 }), d: fc.array(fc.double({ min: 0.005, max: 0.5, noNaN: true }), { minLength: 6, maxLength: 6 }) })
         .map(({ k, d }) => ({

@@ -155,8 +155,8 @@ describe("Gazetas (1991) in the analysis", () => {
     const a0 = ((1500 * 2 * Math.PI) / 60) * 1.5 / Math.sqrt(G_SAND / RHO_SOIL);
     expect(relClose(imp.stiffness.ry, imp.staticStiffness.ry * (1 - 0.3 * a0), 1e-12)).toBe(true);
     expect(relClose(imp.stiffness.rx, imp.staticStiffness.rx * (1 - 0.2 * a0), 1e-12)).toBe(true);
-    // issue 13: the chart coefficients now come from published closed forms by default; only the
-    // named simplified variant keeps k = 1, c = 1 and says so
+    // issue 13: the chart coefficients come from Gazetas' charts by default (engine 1.5.0); only
+    // the named simplified variant keeps k = 1, c = 1 and says so
     expect(result.warnings.some((w) => w.includes("Lysmer-analog limit 1"))).toBe(false);
     const simplified = run(symmetricBlock({ lx: 7, ly: 3, impedance: { method: "gazetas", gazetasDynamic: "simplified" } }));
     expect(simplified.warnings.some((w) => w.includes("Lysmer-analog limit 1"))).toBe(true);

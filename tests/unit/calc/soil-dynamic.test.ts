@@ -30,39 +30,45 @@ function issues(doc: AnalysisInputDocument) {
 }
 
 const VS = Math.sqrt(G_SAND / RHO_SOIL);
+const PK = "pais-kausel" as const;
 
 function withSoil(doc: AnalysisInputDocument, soil: Partial<AnalysisInputDocument["soil"]>): AnalysisInputDocument {
   return { ...doc, soil: { ...doc.soil, ...soil } };
 }
 
-describe("published dynamic stiffness multipliers (Pais & Kausel 1988, NIST GCR 12-917-21 2012 Table 2-3a; Gazetas 1991 Table 1)", () => {
+// The closed forms of Pais & Kausel are the named option "pais-kausel" since engine 1.5.0 (the
+// default reads Gazetas' charts: tests/unit/calc/gazetas-charts.test.ts).
+describe("option pais-kausel: dynamic stiffness multipliers (Pais & Kausel 1988, NIST GCR 12-917-21 2012 Table 2-3a; Gazetas 1991 Table 1)", () => {
   it("k_z = 1 - (0.4 + 0.2/(L/B)) a0^2 / (10/(1 + 3(L/B - 1)) + a0^2): 0.94545 for L/B = 1, 0.85714 for L/B = 2 at a0 = 1", () => {
-    expect(gazetasDynamicMultipliers(1, 1, NU).z).toBeCloseTo(1 - 0.6 / 11, 10);
-    expect(gazetasDynamicMultipliers(1, 2, NU).z).toBeCloseTo(1 - 0.5 / 3.5, 10);
-    expect(gazetasDynamicMultipliers(0, 3, NU).z).toBe(1);
+    expect(gazetasDynamicMultipliers(1, 1, NU, PK).z).toBeCloseTo(1 - 0.6 / 11, 10);
+    expect(gazetasDynamicMultipliers(1, 2, NU, PK).z).toBeCloseTo(1 - 0.5 / 3.5, 10);
+    expect(gazetasDynamicMultipliers(0, 3, NU, PK).z).toBe(1);
   });
 
   it("keeps Gazetas' closed forms k_x = 1, k_rx = 1 - 0.20 a0, k_ry = 1 - 0.30 a0 (nu < 0.45) or 1 - 0.25 a0 (L/B)^0.3, k_t = 1 - 0.14 a0", () => {
-    const k = gazetasDynamicMultipliers(0.6, 2, NU);
+    const k = gazetasDynamicMultipliers(0.6, 2, NU, PK);
     expect(k.x).toBe(1);
     expect(k.y).toBe(1);
     expect(k.rx).toBeCloseTo(0.88, 12);
     expect(k.ry).toBeCloseTo(0.82, 12);
     expect(k.t).toBeCloseTo(1 - 0.084, 12);
-    expect(gazetasDynamicMultipliers(0.6, 2, 0.48).ry).toBeCloseTo(1 - 0.25 * 0.6 * 2 ** 0.3, 12);
+    expect(gazetasDynamicMultipliers(0.6, 2, 0.48, PK).ry).toBeCloseTo(1 - 0.25 * 0.6 * 2 ** 0.3, 12);
+    // the chart default keeps the same closed forms where the charts have no graph
+    const chart = gazetasDynamicMultipliers(0.6, 2, NU);
+    expect([chart.x, chart.rx, chart.ry, chart.t]).toEqual([k.x, k.rx, k.ry, k.t]);
     // the simplified variant keeps k_z = 1 and 1 - 0.30 a0 for every nu
     expect(gazetasDynamicMultipliers(1, 2, 0.48, "simplified").z).toBe(1);
     expect(gazetasDynamicMultipliers(0.6, 2, 0.48, "simplified").ry).toBeCloseTo(0.82, 12);
   });
 });
 
-describe("published radiation coefficients (Pais & Kausel 1988 damping ratios, NIST 2012 Table 2-3a, as c in C = rho V A c)", () => {
+describe("option pais-kausel: radiation coefficients (Pais & Kausel 1988 damping ratios, NIST 2012 Table 2-3a, as c in C = rho V A c)", () => {
   it("c_rx, c_ry, c_t at a0 = 0.5: 0.12195 / 0.12195 / 0.15152 (L/B = 1) and 0.10417 / 0.27638 / 0.41667 (L/B = 2)", () => {
-    const sq = gazetasRadiationCoefficients(0.5, 1);
+    const sq = gazetasRadiationCoefficients(0.5, 1, PK);
     expect(sq.rx).toBeCloseTo(0.25 / 2.05, 10);
     expect(sq.ry).toBeCloseTo(0.25 / 2.05, 10);
     expect(sq.t).toBeCloseTo(0.25 / 1.65, 10);
-    const r2 = gazetasRadiationCoefficients(0.5, 2);
+    const r2 = gazetasRadiationCoefficients(0.5, 2, PK);
     expect(r2.rx).toBeCloseTo(0.25 / 2.4, 10);
     expect(r2.ry).toBeCloseTo(0.25 / (1.8 / 2.75 + 0.25), 10);
     expect(r2.t).toBeCloseTo(0.25 / 0.6, 10);
@@ -71,8 +77,8 @@ describe("published radiation coefficients (Pais & Kausel 1988 damping ratios, N
   });
 
   it("the rocking coefficient falls well below 1 at low a0 and tends to 1 at high a0 (the simplified variant keeps 1)", () => {
-    expect(gazetasRadiationCoefficients(0.2, 1).rx).toBeLessThan(0.03);
-    expect(gazetasRadiationCoefficients(20, 1).rx).toBeGreaterThan(0.99);
+    expect(gazetasRadiationCoefficients(0.2, 1, PK).rx).toBeLessThan(0.03);
+    expect(gazetasRadiationCoefficients(20, 1, PK).rx).toBeGreaterThan(0.99);
     expect(gazetasRadiationCoefficients(0.2, 1, "simplified").rx).toBe(1);
   });
 

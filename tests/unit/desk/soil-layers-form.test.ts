@@ -5,7 +5,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
 import { draftFormSchema, formFromInput, toInputDocument } from "@/modules/desk/draft-form";
-import { cutoffMarkers, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
+import { cutoffMarkers, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { diffDocuments } from "@/modules/revisions/diff";
 
 const read = (name: string) => JSON.parse(readFileSync(path.join(process.cwd(), "examples", `${name}.json`), "utf8")) as AnalysisInputDocument;
@@ -25,6 +25,33 @@ describe("the design form keeps the ground below the base", () => {
     expect(form.soil.profile).toBe("stratum");
     expect(form.impedance.gazetasDynamic).toBe("simplified");
     expect(parsed(toInputDocument(form))).toEqual(input);
+  });
+
+  it("the pais-kausel option survives form -> document, and the default charts stay implicit (no key written)", () => {
+    const base = read("gazetas-embedded");
+    const pk = parsed({ ...base, impedance: { method: "gazetas" as const, gazetasDynamic: "pais-kausel" as const } });
+    const form = formFromInput(pk);
+    expect(form.impedance.gazetasDynamic).toBe("pais-kausel");
+    expect(parsed(toInputDocument(form))).toEqual(pk);
+    const def = formFromInput(parsed({ ...base, impedance: { method: "gazetas" as const } }));
+    expect(def.impedance.gazetasDynamic).toBe("published");
+    expect((toInputDocument(def) as AnalysisInputDocument).impedance).toEqual({ method: "gazetas" });
+  });
+
+  it("the source of the dynamic coefficients is read from the result, also for results of older engines", () => {
+    const base = read("gazetas-embedded");
+    const imp = analyse(parsed(base)).impedance;
+    expect(dynamicCoefficientSource(imp)?.option).toBe("published");
+    expect(dynamicCoefficientSource(analyse(parsed({ ...base, impedance: { method: "gazetas", gazetasDynamic: "pais-kausel" } })).impedance)?.option).toBe("pais-kausel");
+    // engines 1.1.0-1.4.0: publishedDynamicCoefficients = 1 without the chart flag meant the closed forms
+    const { chartDynamicCoefficients: _drop, ...old } = imp.details!;
+    expect(_drop).toBe(1);
+    expect(dynamicCoefficientSource({ ...imp, details: old })?.option).toBe("pais-kausel");
+    // engine 1.0.0: neither flag, k = 1 and c = 1
+    const { publishedDynamicCoefficients: _p, ...oldest } = old;
+    expect(_p).toBe(1);
+    expect(dynamicCoefficientSource({ ...imp, details: oldest })?.option).toBe("simplified");
+    expect(dynamicCoefficientSource(analyse(parsed({ ...base, impedance: { method: "equivalent-radius" } })).impedance)).toBeNull();
   });
 
   it("borehole layers (one given by G) survive form -> document; the top-level Vs is left out", () => {

@@ -65,7 +65,7 @@ describe("machine data workbook", () => {
     expect(wb.getWorksheet(MARKER_SHEET)?.state).toBe("veryHidden");
     const ws = wb.getWorksheet("Machine 1");
     expect(ws?.getCell(`B${machineFieldRow("mass")}`).value).toBe("kg");
-    expect(ws?.getCell(`C${rotorFieldRow("axis")}`).dataValidation).toMatchObject({ type: "list", formulae: ['"x,y,z"'] });
+    expect(ws?.getCell(`C${rotorFieldRow("axis")}`).dataValidation).toMatchObject({ type: "list", formulae: ['"x,z"'] });
     expect(ws?.getCell(`C${rotorFieldRow("balanceGrade")}`).dataValidation).toMatchObject({ type: "list" });
   });
 

@@ -2,6 +2,7 @@
 
 import { z } from "zod";
 import { AppError } from "@/modules/platform/errors";
+import { readFormTerms } from "@/modules/vendor-data/form-terms";
 import { validateMachines } from "@/modules/vendor-data/validate";
 import { getRequestScope, type RequestedMachine } from "@/db/queries/vendor-requests";
 import { defineAction } from "../../../../_lib/action";
@@ -76,10 +77,21 @@ export const submitMachineFormAction = defineAction({
     if (!Array.isArray(json) || json.length !== requested.length) {
       throw new AppError("invalid_input", `The request asks for ${requested.length} machine(s).`, [{ path: "machines", message: `give ${requested.length} machine(s)` }]);
     }
-    const checked = validateMachines(json);
-    if (!checked.ok) throw new AppError("invalid_input", `The form has ${checked.issues.length} problem(s); nothing was stored.`, checked.issues);
+    // The form speaks the template's terms: positions from the machine datum, times per rotor.
+    const terms = readFormTerms(json);
+    const checked = validateMachines(terms.machines);
+    const issues = [...terms.issues, ...(checked.ok ? [] : checked.issues)];
+    if (!checked.ok || issues.length) throw new AppError("invalid_input", `The form has ${issues.length} problem(s); nothing was stored.`, issues);
     const drawingIds = (input.drawingIds ?? "").split(",").map((s) => s.trim()).filter(Boolean);
-    const saved = await submitMachineData(actor, input.projectId, input.requestId, { source: "form", machines: checked.machines, file: null, drawingIds, note: input.note });
+    const saved = await submitMachineData(actor, input.projectId, input.requestId, {
+      source: "form",
+      machines: checked.machines,
+      frame: "machine-datum",
+      rampTimes: terms.rampTimes,
+      file: null,
+      drawingIds,
+      note: input.note,
+    });
     return { ...saved, requestId: input.requestId, projectId: input.projectId };
   },
   redirectTo: (d) => requestPath(d.projectId, d.requestId),

@@ -3,12 +3,12 @@ import "server-only";
 // the scoped queries, then e-mails the people concerned. Mail goes out after the data
 // committed, so a message never announces something that was rolled back.
 import { AppError } from "@/modules/platform/errors";
-import type { MachineInput } from "@/modules/calc/schema";
 import { getPublicUser, getUserByEmail } from "@/db/queries/accounts";
 import { getDraft } from "@/db/queries/drafts";
 import { getMembership, getProjectForMember, type Actor } from "@/db/queries/projects";
 import { recordAuditEvent } from "@/db/queries/audit";
-import { createVendorRequest, getVendorRequest, listVendorContacts, type RequestedMachine } from "@/db/queries/vendor-requests";
+import { createVendorRequest, getVendorRequest, listVendorContacts, type RequestedMachine, type VendorRequestDetail } from "@/db/queries/vendor-requests";
+import { prefillInVendorTerms, type PrefillMachine } from "@/modules/desk/machine-placements";
 import { acceptVendorSubmission, createVendorSubmission, returnVendorSubmission, type NewSubmission } from "@/db/queries/vendor-submissions";
 import { inviteMember } from "@/app/_lib/accounts-service";
 import { appUrl, sendEmail } from "@/app/_lib/mailer";
@@ -169,7 +169,7 @@ export async function returnSubmission(actor: Actor, projectId: string, submissi
 }
 
 /** What the workbook and CSV are prefilled with: the newest version, else what the desk held. */
-export function prefillMachines(requested: RequestedMachine[], newest: MachineInput[] | undefined): RequestedMachine[] {
-  if (newest && newest.length === requested.length) return newest.map((m) => ({ name: m.name, values: m }));
-  return requested;
+/** The template's prefill, in the vendor's terms (modules/desk/machine-placements.ts). */
+export function prefillMachines(request: Pick<VendorRequestDetail, "machines" | "submissions" | "datums">): PrefillMachine[] {
+  return prefillInVendorTerms(request.machines, request.submissions[0], request.datums);
 }

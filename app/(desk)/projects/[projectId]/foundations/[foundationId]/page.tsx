@@ -43,7 +43,7 @@ export default async function FoundationPage({ params }: { params: Promise<{ pro
         readOnly={!roleAllows(role, "draft.edit") || Boolean(foundation.withdrawnAt)}
         initialVersion={draft.version}
         initialInput={draft.input}
-        initialForm={draft.document ? formFromDraftDocument(draft.document) : emptyDraftForm()}
+        initialForm={draft.document ? formFromDraftDocument(draft.document, draft.placements) : emptyDraftForm()}
         units={user.unitsPreference ?? project.units}
         projectDefaults={{ criteriaDefaults: project.criteriaDefaults, soilBand: project.soilBand }}
         openComments={openComments}

@@ -3,7 +3,10 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { roleAllows } from "@/modules/platform/permissions";
 import { diffMachines } from "@/modules/vendor-data/diff";
-import { MAX_DATA_BYTES, MAX_DRAWING_BYTES } from "@/modules/vendor-data/layout";
+import { BLOCK_FRAME_NOTE, MAX_DATA_BYTES, MAX_DRAWING_BYTES } from "@/modules/vendor-data/layout";
+import { describeDatum } from "@/modules/vendor-data/datum";
+import { formatSignificant } from "@/modules/units/format-number";
+import { prefillInVendorTerms } from "@/modules/desk/machine-placements";
 import { getDraft } from "@/db/queries/drafts";
 import { getVendorRequest, requestStatusLabels, type FileMeta } from "@/db/queries/vendor-requests";
 import { requireProjectPage } from "../../../../../_lib/page-guard";
@@ -37,7 +40,6 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
   const mayReview = roleAllows(role, "vendorSubmission.review");
   const draft = mayReview ? await getDraft(actor, projectId, request.foundationId) : undefined;
   const api = `/api/v1/projects/${projectId}/requests/${requestId}`;
-  const newest = request.submissions[0];
   return (
     <div className="space-y-6">
       <div>
@@ -83,7 +85,7 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
         <details className="slab p-5">
           <summary className="cursor-pointer font-semibold">Or type the figures into the web form</summary>
           <div className="mt-4">
-            <MachineForm projectId={projectId} requestId={requestId} machines={prefillMachines(request.machines, newest?.machines)} action={submitMachineFormAction} />
+            <MachineForm projectId={projectId} requestId={requestId} machines={prefillMachines(request)} action={submitMachineFormAction} />
           </div>
         </details>
       ) : null}
@@ -93,7 +95,13 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
         {request.submissions.length === 0 ? <p className="text-sm text-basalt-500">Nothing submitted yet.</p> : null}
         {request.submissions.map((s, i) => {
           const previous = request.submissions[i + 1];
-          const changes = diffMachines(previous?.machines ?? request.machines.flatMap((m) => (m.values ? [m.values] : [])), s.machines);
+          // Compared in the version's own terms: block figures go back through the placed datum first.
+          const baseFrame = previous?.frame ?? "block";
+          const baseMachines =
+            s.frame === "machine-datum" && baseFrame === "block"
+              ? prefillInVendorTerms(request.machines, previous, request.datums).flatMap((m) => (m.values ? [m.values] : []))
+              : (previous?.machines ?? request.machines.flatMap((m) => (m.values ? [m.values] : [])));
+          const changes = diffMachines(baseMachines, s.machines);
           const reviewable = mayReview && i === 0 && !s.review && draft;
           return (
             <article key={s.id} className="slab space-y-3 p-5" data-testid={`version-${s.version}`}>
@@ -116,6 +124,7 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
                   ))}
                 </p>
               ) : null}
+              <VersionTerms version={s} requested={request.machines.map((m) => m.name)} datums={request.datums} showDatums={mayReview} />
               <DataDiff changes={changes} against={previous ? `version ${previous.version}` : "the figures held when the request was sent"} />
               {s.review?.comment ? <p className="text-sm">Designer&apos;s comment: {s.review.comment}</p> : null}
               {reviewable ? <ReviewPanel projectId={projectId} submissionId={s.id} draftVersion={draft.version} accept={acceptSubmissionAction} giveBack={returnSubmissionAction} /> : null}
@@ -123,6 +132,44 @@ export default async function RequestPage({ params }: { params: Promise<{ projec
           );
         })}
       </section>
+    </div>
+  );
+}
+
+type VersionView = NonNullable<Awaited<ReturnType<typeof getVendorRequest>>>["submissions"][number];
+
+/** In whose terms a version's positions are, where each machine's datum sits, and its start-up and coast-down times. */
+function VersionTerms({ version, requested, datums, showDatums }: { version: VersionView; requested: string[]; datums: { machine: string; datum: Parameters<typeof describeDatum>[0] }[]; showDatums: boolean }) {
+  return (
+    <div className="space-y-1 text-xs" data-testid="version-terms">
+      {version.frame === "block" ? (
+        <p className="text-basalt-700" data-testid="block-frame-note">{BLOCK_FRAME_NOTE}</p>
+      ) : (
+        <p className="text-basalt-700">Positions from each machine&apos;s own datum (template version 2); taking them into the draft places them through the datum set in the workspace.</p>
+      )}
+      {version.frame === "machine-datum" && showDatums ? (
+        <ul className="list-inside list-disc">
+          {version.machines.map((m, i) => {
+            const names = [requested[i], m.name];
+            const placed = datums.find((d) => names.includes(d.machine));
+            return (
+              <li key={i} data-testid={`datum-status-${i}`}>
+                {m.name}: {placed ? `datum placed, ${describeDatum(placed.datum)}` : "no datum placed yet: place it in the workspace (Machines, machine datum) before taking this version in"}
+              </li>
+            );
+          })}
+        </ul>
+      ) : null}
+      {version.rampTimes.length ? (
+        <p data-testid="version-ramp-times">
+          Start-up and coast-down times:{" "}
+          {version.rampTimes
+            .map((t) => `${t.machine} · ${t.rotor}: ${t.startUpS !== undefined ? `start-up ${formatSignificant(t.startUpS)} s` : "start-up not given"}, ${t.coastDownS !== undefined ? `coast-down ${formatSignificant(t.coastDownS)} s` : "coast-down not given"}`)
+            .join("; ")}
+        </p>
+      ) : version.frame === "machine-datum" ? (
+        <p className="text-basalt-500">No start-up or coast-down times given: the speed-ramp runs keep the desk&apos;s defaults.</p>
+      ) : null}
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { checkInputBounds, formatPath, parseDraftInput, type AnalysisInputDocument } from "@/modules/calc";
 import { AppError, errorCodes } from "@/modules/platform/errors";
+import { machinePlacementsSchema, type MachinePlacement } from "@/modules/desk/machine-placements";
 import { getDraft, saveDraft } from "@/db/queries/drafts";
 import { defineRoute } from "@/app/_lib/route";
 import { foundationIdOf, foundationNotFound, projectIdOf } from "../foundation-params";
@@ -12,6 +13,9 @@ export const dynamic = "force-dynamic";
 const putBodySchema = z.strictObject({
   version: z.number({ error: "must be the draft version you started from" }).int().min(0),
   input: z.unknown().refine((v) => v !== undefined, { error: "is required" }),
+  // Optional: where each machine's datum sits on the block and the vendor's figures behind it
+  // (modules/desk/machine-placements.ts). Left out, the stored placements are kept.
+  placements: machinePlacementsSchema.optional(),
 });
 
 export const GET = defineRoute({
@@ -42,7 +46,11 @@ export const PUT = defineRoute({
     const parsed = parseDraftInput(body.input);
     if (!parsed.ok) throw new AppError("invalid_input", "The analysis input has problems.", parsed.issues);
     const input = parsed.complete ? parsed.input : (body.input as AnalysisInputDocument);
-    const saved = await saveDraft(auth!.actor, params.projectId, foundationId, { input, expectedVersion: body.version });
+    const saved = await saveDraft(auth!.actor, params.projectId, foundationId, {
+      input,
+      expectedVersion: body.version,
+      ...(body.placements ? { placements: body.placements as unknown as MachinePlacement[] } : {}),
+    });
     if (!saved) throw foundationNotFound();
     if (!saved.ok) {
       // The client needs the version it lost to, and the stored draft to offer a reload or a comparison.

@@ -14,7 +14,7 @@ export const GET = defineRoute<RequestParams, undefined, unknown>({
     const request = await getVendorRequest(auth!.actor, params.projectId, requireUuid(params.requestId));
     const project = await getProjectForMember(auth!.actor, params.projectId);
     if (!request || !project) throw new AppError("not_found");
-    const csv = buildMachineCsv(prefillMachines(request.machines, request.submissions[0]?.machines));
+    const csv = buildMachineCsv(prefillMachines(request));
     const name = `${project.code}_${request.foundationTag}_machine-data.csv`.replace(/[^A-Za-z0-9._-]/g, "_");
     return new Response(csv, { headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${name}"`, "cache-control": "private, no-store" } });
   },

@@ -44,10 +44,12 @@ export const POST = defineRoute<RequestParams, undefined, unknown>({
     const saved = await submitMachineData(actor, params.projectId, scope.request.id, {
       source: intake.source,
       machines: intake.machines,
+      frame: intake.terms.frame,
+      rampTimes: intake.rampTimes,
       file: { fileName: upload.fileName, contentType: intake.contentType, bytes: upload.bytes },
       drawingIds,
       note: (upload.fields.note ?? "").slice(0, 2000),
     });
-    return { submission: saved, machines: intake.machines };
+    return { submission: saved, machines: intake.machines, frame: intake.terms.frame, formatVersion: intake.terms.formatVersion, rampTimes: intake.rampTimes };
   },
 });

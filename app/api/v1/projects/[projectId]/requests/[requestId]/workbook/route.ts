@@ -24,7 +24,7 @@ export const GET = defineRoute<RequestParams, undefined, unknown>({
       companyName: request.companyName,
       dueOn: request.dueOn,
       message: request.message,
-      machines: prefillMachines(request.machines, request.submissions[0]?.machines),
+      machines: prefillMachines(request),
     });
     const name = `${project.code}_${request.foundationTag}_machine-data.xlsx`.replace(/[^A-Za-z0-9._-]/g, "_");
     return new Response(new Uint8Array(bytes), {
