@@ -3,6 +3,9 @@
 // one is used and ended on the other; a manager's invitation sent through one server's mail
 // queue is read from the other's outbox and accepted there; failed sign-ins counted by one
 // server throttle the next attempt on the other. Nothing here lives in a server's memory.
+// Then the same two servers behind nginx with the committed deploy/nginx/plinthwise.conf
+// (scripts/test.sh starts it on PLINTH_TEST_BALANCER_URL): requests are spread over both,
+// and a browser signs in and opens the project through the balancer.
 import { describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, DEMO_PROJECT_CODE } from "@/modules/platform/demo";
 import { appUrl, newContext } from "./support/browser";
@@ -12,6 +15,12 @@ import { sharedBrowser } from "./support/fixtures";
 const SESSION_COOKIE = "plinth_session";
 const serverA = appUrl;
 const serverB = process.env.PLINTH_TEST_APP_URL_2 ?? "";
+const balancer = process.env.PLINTH_TEST_BALANCER_URL ?? "";
+if (!balancer) {
+  console.error(
+    "\n[two-servers] WARNING: PLINTH_TEST_BALANCER_URL is not set: the tests through nginx DO NOT RUN (scripts/test.sh starts nginx; see its log for why it could not)\n",
+  );
+}
 
 interface Answer {
   status: number;
@@ -115,5 +124,47 @@ describe("two servers on one database", () => {
     expect(throttled.status).toBe(429);
     expect(JSON.stringify(throttled.json)).toMatch(/Too many failed sign-ins/);
     expect(throttled.cookie).toBeNull();
+  });
+});
+
+describe("two servers behind nginx (deploy/nginx/plinthwise.conf)", () => {
+  const browser = sharedBrowser();
+
+  it.skipIf(!balancer)("spreads requests over both servers, and a session signed in through it works whichever answers", async () => {
+    const cookie = await signIn(balancer, "designer@plinthwise.test", DEMO_PASSWORD);
+    const upstreams = new Set<string>();
+    for (let i = 0; i < 8; i++) {
+      const res = await fetch(`${balancer}/api/v1/session`, { headers: { cookie } });
+      expect(res.status).toBe(200);
+      expect(((await res.json()) as { user: { email: string } }).user.email).toBe("designer@plinthwise.test");
+      // the runtime copy of the config adds the answering server (scripts/lib/balancer-config.mts)
+      upstreams.add(res.headers.get("x-plinthwise-upstream") ?? "none");
+    }
+    expect([...upstreams].sort()).toEqual([new URL(serverA).host, new URL(serverB).host].sort());
+  });
+
+  it.skipIf(!balancer)("a browser signs in with the form on the balancer's address and opens the project, without a script policy violation", async () => {
+    const ctx = await browser().newContext({ baseURL: balancer, viewport: { width: 1360, height: 900 } });
+    await ctx.addInitScript(() => {
+      const w = window as unknown as { __cspViolations: string[] };
+      w.__cspViolations = [];
+      document.addEventListener("securitypolicyviolation", (e) => w.__cspViolations.push(`${e.violatedDirective} ${e.blockedURI}`));
+    });
+    try {
+      const page = await ctx.newPage();
+      await page.goto("/sign-in");
+      expect(page.url().startsWith(balancer)).toBe(true);
+      await page.getByLabel("E-mail").fill("manager@plinthwise.test");
+      await page.getByLabel("Password").fill(DEMO_PASSWORD);
+      // the sign-in is a server action: Next compares its Origin with the Host nginx passes on
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"), { timeout: 20_000 });
+      await page.getByRole("row", { name: new RegExp(DEMO_PROJECT_CODE) }).getByRole("link").first().click();
+      await page.waitForURL((u) => /^\/projects\/[0-9a-f-]{36}$/.test(u.pathname), { timeout: 20_000 });
+      await page.getByRole("heading", { level: 1 }).first().waitFor();
+      expect(await page.evaluate(() => (window as unknown as { __cspViolations: string[] }).__cspViolations)).toEqual([]);
+    } finally {
+      await ctx.close();
+    }
   });
 });
