@@ -159,9 +159,11 @@ describe("two servers behind nginx (deploy/nginx/plinthwise.conf)", () => {
       // the sign-in is a server action: Next compares its Origin with the Host nginx passes on
       await page.getByRole("button", { name: "Sign in" }).click();
       await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"), { timeout: 20_000 });
-      await page.getByRole("row", { name: new RegExp(DEMO_PROJECT_CODE) }).getByRole("link").first().click();
+      // the manager has one project: the desk opens it straight away (app/(desk)/page.tsx)
       await page.waitForURL((u) => /^\/projects\/[0-9a-f-]{36}$/.test(u.pathname), { timeout: 20_000 });
+      // the project's own page rendered (its project switcher names the demo project)
       await page.getByRole("heading", { level: 1 }).first().waitFor();
+      expect(await page.locator("option", { hasText: DEMO_PROJECT_CODE }).count()).toBeGreaterThan(0);
       expect(await page.evaluate(() => (window as unknown as { __cspViolations: string[] }).__cspViolations)).toEqual([]);
     } finally {
       await ctx.close();
