@@ -15,7 +15,12 @@ export interface HttpStats {
   requests: number;
   errors: number;
   non2xx: number;
+  /** Answers by status code, e.g. {"200": 430, "503": 1171}. */
+  statuses: Record<string, number>;
   throughputRps: number;
+  /** Throughput and latency of the 2xx answers only (a quick refusal must not flatter p95). */
+  okRps: number;
+  okP95Ms: number;
   p50Ms: number;
   p95Ms: number;
   p99Ms: number;
@@ -38,6 +43,8 @@ function percentile(sorted: number[], p: number): number {
 /** One bounded autocannon run; latencies are collected per response, so p95 is exact. */
 export async function runLoad(baseUrl: string, target: HttpTarget, connections: number, durationS: number): Promise<HttpStats> {
   const latencies: number[] = [];
+  const okLatencies: number[] = [];
+  const statuses: Record<string, number> = {};
   let non2xx = 0;
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
     const instance = autocannon(
@@ -54,10 +61,13 @@ export async function runLoad(baseUrl: string, target: HttpTarget, connections: 
     );
     instance.on("response", (_client: unknown, statusCode: number, _bytes: number, responseTimeMs: number) => {
       latencies.push(responseTimeMs);
+      statuses[String(statusCode)] = (statuses[String(statusCode)] ?? 0) + 1;
       if (statusCode < 200 || statusCode >= 300) non2xx += 1;
+      else okLatencies.push(responseTimeMs);
     });
   });
   latencies.sort((a, b) => a - b);
+  okLatencies.sort((a, b) => a - b);
   return {
     name: target.name,
     connections,
@@ -65,7 +75,10 @@ export async function runLoad(baseUrl: string, target: HttpTarget, connections: 
     requests: latencies.length,
     errors: result.errors + result.timeouts,
     non2xx,
+    statuses,
     throughputRps: latencies.length / durationS,
+    okRps: okLatencies.length / durationS,
+    okP95Ms: percentile(okLatencies, 95),
     p50Ms: percentile(latencies, 50),
     p95Ms: percentile(latencies, 95),
     p99Ms: percentile(latencies, 99),
@@ -190,7 +203,7 @@ export async function startBenchServer(opts: BenchServerOptions = {}): Promise<B
 }
 
 export function formatHttpTable(rows: HttpStats[]): string {
-  const head = ["endpoint", "clients", "s", "requests", "req/s", "p50 ms", "p95 ms", "p99 ms", "errors", "non-2xx"];
+  const head = ["endpoint", "clients", "s", "requests", "req/s", "p50 ms", "p95 ms", "p99 ms", "errors", "non-2xx", "2xx req/s", "2xx p95 ms"];
   const body = rows.map((r) => [
     r.name,
     String(r.connections),
@@ -201,7 +214,14 @@ export function formatHttpTable(rows: HttpStats[]): string {
     r.p95Ms.toFixed(1),
     r.p99Ms.toFixed(1),
     String(r.errors),
-    String(r.non2xx),
+    r.non2xx
+      ? `${r.non2xx} (${Object.entries(r.statuses)
+          .filter(([code]) => !code.startsWith("2"))
+          .map(([code, n]) => `${code}×${n}`)
+          .join(" ")})`
+      : "0",
+    r.okRps.toFixed(1),
+    r.okP95Ms.toFixed(1),
   ]);
   const widths = head.map((h, c) => Math.max(h.length, ...body.map((b) => (b[c] ?? "").length)));
   const line = (cells: string[]) => cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c] ?? 0) : cell.padStart(widths[c] ?? 0))).join("  ");
