@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import type { ReactNode } from "react";
-import { connection } from "next/server";
 import { plexMono, plexSans } from "./fonts";
 import "./globals.css";
 
@@ -9,11 +8,12 @@ export const metadata: Metadata = {
   description: "Design and sign-off desk for concrete block foundations of rotating machines.",
 };
 
-export default async function RootLayout({ children }: { children: ReactNode }) {
-  // Every page renders per request: Next puts the request's CSP nonce (proxy.ts) on its
-  // scripts only while rendering, so a page prerendered at build time would carry none and
-  // its scripts would be blocked. See README, "Content security policy".
-  await connection();
+// Pages render per request (the desk's layout is dynamic, and so are the one-time-link pages):
+// Next puts the request's CSP nonce (proxy.ts) on their scripts while rendering. The two pages
+// that need no session (sign-in, forgot password) are prerendered instead, and proxy.ts gives
+// them a policy naming their inline scripts by hash (app/_lib/static-pages.ts). README,
+// "Requests and headers".
+export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body>{children}</body>

@@ -1,6 +1,9 @@
 import Link from "next/link";
+import { connection } from "next/server";
 
-export default function NotFound() {
+// Rendered per request like the pages it stands in for, so its scripts carry the request's nonce.
+export default async function NotFound() {
+  await connection();
   return (
     <main className="mx-auto flex min-h-[60vh] max-w-xl flex-col justify-center gap-4 px-6">
       <p className="font-mono text-sm text-basalt-400">404</p>

@@ -15,7 +15,12 @@ export interface HttpStats {
   requests: number;
   errors: number;
   non2xx: number;
+  /** Answers by status code, e.g. {"200": 430, "503": 1171}. */
+  statuses: Record<string, number>;
   throughputRps: number;
+  /** Throughput and latency of the 2xx answers only (a quick refusal must not flatter p95). */
+  okRps: number;
+  okP95Ms: number;
   p50Ms: number;
   p95Ms: number;
   p99Ms: number;
@@ -38,6 +43,8 @@ function percentile(sorted: number[], p: number): number {
 /** One bounded autocannon run; latencies are collected per response, so p95 is exact. */
 export async function runLoad(baseUrl: string, target: HttpTarget, connections: number, durationS: number): Promise<HttpStats> {
   const latencies: number[] = [];
+  const okLatencies: number[] = [];
+  const statuses: Record<string, number> = {};
   let non2xx = 0;
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
     const instance = autocannon(
@@ -54,10 +61,13 @@ export async function runLoad(baseUrl: string, target: HttpTarget, connections: 
     );
     instance.on("response", (_client: unknown, statusCode: number, _bytes: number, responseTimeMs: number) => {
       latencies.push(responseTimeMs);
+      statuses[String(statusCode)] = (statuses[String(statusCode)] ?? 0) + 1;
       if (statusCode < 200 || statusCode >= 300) non2xx += 1;
+      else okLatencies.push(responseTimeMs);
     });
   });
   latencies.sort((a, b) => a - b);
+  okLatencies.sort((a, b) => a - b);
   return {
     name: target.name,
     connections,
@@ -65,7 +75,10 @@ export async function runLoad(baseUrl: string, target: HttpTarget, connections: 
     requests: latencies.length,
     errors: result.errors + result.timeouts,
     non2xx,
+    statuses,
     throughputRps: latencies.length / durationS,
+    okRps: okLatencies.length / durationS,
+    okP95Ms: percentile(okLatencies, 95),
     p50Ms: percentile(latencies, 50),
     p95Ms: percentile(latencies, 95),
     p99Ms: percentile(latencies, 99),
@@ -95,12 +108,30 @@ function readLocalSecret(root: string): string | undefined {
 
 export interface BenchServer {
   baseUrl: string;
+  /** How many `next start` processes answer (more than one: through nginx at baseUrl). */
+  servers: number;
   cookieFor: (email: string) => Promise<string>;
   stop: () => Promise<void>;
 }
 
-/** Starts the production server for the benchmark, or explains why it cannot. */
-export async function startBenchServer(port = 3400): Promise<BenchServer | string> {
+function spawnNextStart(root: string, port: number, env: NodeJS.ProcessEnv): ChildProcess {
+  return spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], { env, stdio: "ignore", detached: true });
+}
+
+export interface BenchServerOptions {
+  /** One port per `next start` process; two or more go behind nginx on `balancerPort`. */
+  ports?: number[];
+  balancerPort?: number;
+}
+
+/**
+ * Starts the production server(s) for the benchmark, or explains why it cannot. With more
+ * than one port, every server runs with TRUST_PROXY=1 and APP_URL at the balancer, and the
+ * figures are taken through nginx (scripts/lib/nginx.mts).
+ */
+export async function startBenchServer(opts: BenchServerOptions = {}): Promise<BenchServer | string> {
+  const ports = opts.ports?.length ? opts.ports : [3400];
+  const balanced = ports.length > 1;
   const root = process.cwd();
   const secret = readLocalSecret(root);
   if (!secret) return "no SESSION_SECRET (run `npm start` once first)";
@@ -117,20 +148,45 @@ export async function startBenchServer(port = 3400): Promise<BenchServer | strin
     const b = spawnSync(path.join(root, "node_modules/.bin/next"), ["build"], { stdio: "ignore" });
     if (b.status !== 0) return "next build failed";
   }
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], {
-    env: { ...process.env, NODE_ENV: "production", APP_URL: baseUrl, SMTP_URL: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525" },
-    stdio: "ignore",
-    detached: true,
-  });
-  if (!(await waitForHealth(baseUrl, 60_000))) {
-    child.kill("SIGTERM");
-    return "the benchmark server did not start";
+  const balancerPort = opts.balancerPort ?? (ports[ports.length - 1] ?? 3400) + 1;
+  const baseUrl = `http://127.0.0.1:${balanced ? balancerPort : ports[0]}`;
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: "production",
+    APP_URL: baseUrl,
+    SMTP_URL: process.env.SMTP_URL ?? "smtp://127.0.0.1:2525",
+    ...(balanced ? { TRUST_PROXY: "1" } : {}),
+  };
+  const children = ports.map((port) => spawnNextStart(root, port, env));
+  const stopChildren = () => {
+    for (const c of children) if (c.pid) process.kill(-c.pid, "SIGTERM");
+  };
+  for (const port of ports) {
+    if (!(await waitForHealth(`http://127.0.0.1:${port}`, 60_000))) {
+      stopChildren();
+      return `the benchmark server on port ${port} did not start`;
+    }
+  }
+  let stopBalancer = () => {};
+  if (balanced) {
+    const { startBalancer } = await import("./lib/nginx.mts");
+    const b = await startBalancer(root, balancerPort, ports.map((p) => `127.0.0.1:${p}`));
+    if (typeof b === "string") {
+      stopChildren();
+      return b;
+    }
+    stopBalancer = b.stop;
+    if (!(await waitForHealth(baseUrl, 10_000))) {
+      stopBalancer();
+      stopChildren();
+      return `nginx on ${baseUrl} does not answer (see ${path.dirname(b.configFile)}/error.log)`;
+    }
   }
   const { createSession } = await import("../db/queries/accounts");
   const { sealSessionCookie, SESSION_COOKIE } = await import("../app/_lib/session");
   return {
     baseUrl,
+    servers: ports.length,
     cookieFor: async (email: string) => {
       const user = await getUserByEmail(email);
       if (!user) throw new Error(`no account ${email}: seed the demo first`);
@@ -138,7 +194,8 @@ export async function startBenchServer(port = 3400): Promise<BenchServer | strin
       return `${SESSION_COOKIE}=${encodeURIComponent(await sealSessionCookie(id))}`;
     },
     stop: async () => {
-      if (child.pid) process.kill(-child.pid, "SIGTERM");
+      stopBalancer();
+      stopChildren();
       const { closeDb } = await import("../db/client");
       await closeDb();
     },
@@ -146,7 +203,7 @@ export async function startBenchServer(port = 3400): Promise<BenchServer | strin
 }
 
 export function formatHttpTable(rows: HttpStats[]): string {
-  const head = ["endpoint", "clients", "s", "requests", "req/s", "p50 ms", "p95 ms", "p99 ms", "errors", "non-2xx"];
+  const head = ["endpoint", "clients", "s", "requests", "req/s", "p50 ms", "p95 ms", "p99 ms", "errors", "non-2xx", "2xx req/s", "2xx p95 ms"];
   const body = rows.map((r) => [
     r.name,
     String(r.connections),
@@ -157,7 +214,14 @@ export function formatHttpTable(rows: HttpStats[]): string {
     r.p95Ms.toFixed(1),
     r.p99Ms.toFixed(1),
     String(r.errors),
-    String(r.non2xx),
+    r.non2xx
+      ? `${r.non2xx} (${Object.entries(r.statuses)
+          .filter(([code]) => !code.startsWith("2"))
+          .map(([code, n]) => `${code}×${n}`)
+          .join(" ")})`
+      : "0",
+    r.okRps.toFixed(1),
+    r.okP95Ms.toFixed(1),
   ]);
   const widths = head.map((h, c) => Math.max(h.length, ...body.map((b) => (b[c] ?? "").length)));
   const line = (cells: string[]) => cells.map((cell, c) => (c === 0 ? cell.padEnd(widths[c] ?? 0) : cell.padStart(widths[c] ?? 0))).join("  ");
@@ -169,6 +233,32 @@ export async function benchCalculateApi(server: BenchServer, inputFile: string, 
   const cookie = await server.cookieFor("designer@plinthwise.test");
   const body = readFileSync(inputFile, "utf8");
   return runLoad(server.baseUrl, { name: "POST /api/v1/calculate", method: "POST", path: "/api/v1/calculate", body, headers: { cookie } }, 20, durationS);
+}
+
+async function demoProjectId(): Promise<string> {
+  const { DEMO_PROJECT_CODE } = await import("../modules/platform/demo");
+  const { getProjectByCode } = await import("../db/queries/projects");
+  const project = await getProjectByCode(DEMO_PROJECT_CODE);
+  if (!project) throw new Error("the demo project is missing: run `npm start` once first");
+  return project.id;
+}
+
+/**
+ * Sequential server time of the pages: one client, each request sent when the previous one
+ * is answered, `durationS` per page: the prerendered sign-in and forgot-password pages and
+ * the demo project's page for its manager (rendered per request).
+ */
+export async function benchSequentialPages(server: BenchServer, durationS = 5): Promise<HttpStats[]> {
+  const projectId = await demoProjectId();
+  const manager = await server.cookieFor("manager@plinthwise.test");
+  const targets: HttpTarget[] = [
+    { name: "GET sign-in page (prerendered)", method: "GET", path: "/sign-in" },
+    { name: "GET forgot-password page (prerendered)", method: "GET", path: "/forgot-password" },
+    { name: "GET project page (HTML, signed in)", method: "GET", path: `/projects/${projectId}`, headers: { cookie: manager } },
+  ];
+  const rows: HttpStats[] = [];
+  for (const t of targets) rows.push(await runLoad(server.baseUrl, t, 1, durationS));
+  return rows;
 }
 
 /**
@@ -187,6 +277,7 @@ export async function benchLoadSuite(server: BenchServer, inputFile: string, con
   const manager = await server.cookieFor("manager@plinthwise.test");
   const designer = await server.cookieFor("designer@plinthwise.test");
   const targets: HttpTarget[] = [
+    { name: "GET sign-in page (prerendered)", method: "GET", path: "/sign-in" },
     {
       name: "POST /api/v1/session (sign-in, bcrypt)",
       method: "POST",

@@ -2,9 +2,13 @@
 // `npm run --silent bench -- --json FILE`: {"fullAnalysisMs": {"median", "min", "max"}, "runs"}
 // for the input in FILE. Optional: --runs N; --no-http skips the HTTP section (which starts
 // the production build on loopback against the local database `npm start` set up); --quick
-// shortens the HTTP runs for a smoke check.
+// shortens the HTTP runs for a smoke check; --no-browser skips the typing benchmark in headless
+// chromium; --servers 2 starts two `next start` processes behind nginx and takes the HTTP
+// figures through the balancer; --ports A,B and --balancer-port P choose the loopback ports
+// (default 3400, 3401 and the next one).
 import { benchCalc, DEFAULT_BENCH_INPUT, type BenchSection } from "./bench-calc.mts";
-import { benchCalculateApi, benchLoadSuite, benchWorstAcceptedHttp, formatHttpTable, startBenchServer } from "./bench-http.mts";
+import { benchCalculateApi, benchLoadSuite, benchSequentialPages, benchWorstAcceptedHttp, formatHttpTable, startBenchServer, type BenchServer } from "./bench-http.mts";
+import { benchWorkspaceTyping, formatBrowserTable } from "./bench-browser.mts";
 import { analyse, parseAnalysisInput } from "../modules/calc/index.ts";
 import { worstAcceptedInput } from "../tests/support/limit-inputs.ts";
 
@@ -25,11 +29,32 @@ function worstAcceptedLine(runs: number): string {
   return `worst accepted input (INPUT_LIMITS), in-thread: median ${fmt(median(ms))} ms, max ${fmt(Math.max(...ms))} ms per analysis (${runs} runs), result ${(bytes / 1e6).toFixed(1)} MB of JSON`;
 }
 
-function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean; quick: boolean } | string {
+interface Args {
+  json?: string;
+  runs: number;
+  http: boolean;
+  browser: boolean;
+  quick: boolean;
+  servers: number;
+  ports?: number[];
+  balancerPort?: number;
+  /** --only a,b: just these HTTP sections (sequential, browser, worst, calculate, load). */
+  only?: Set<string>;
+}
+
+const SECTIONS = ["sequential", "browser", "worst", "calculate", "load"];
+const isPort = (v: string | undefined) => v !== undefined && /^\d{2,5}$/.test(v) && Number(v) < 65536;
+
+function parseArgs(argv: string[]): Args | string {
   let json: string | undefined;
   let runs = 300;
   let http = true;
+  let browser = true;
   let quick = false;
+  let servers = 1;
+  let ports: number[] | undefined;
+  let balancerPort: number | undefined;
+  let only: Set<string> | undefined;
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     const next = argv[i + 1];
@@ -40,6 +65,20 @@ function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean
       http = false;
     } else if (arg === "--quick") {
       quick = true;
+    } else if (arg === "--no-browser") {
+      browser = false;
+    } else if (arg === "--servers" && (next === "1" || next === "2")) {
+      servers = Number(next);
+      i++;
+    } else if (arg === "--ports" && next !== undefined && next.split(",").every(isPort)) {
+      ports = next.split(",").map(Number);
+      i++;
+    } else if (arg === "--only" && next !== undefined && next.split(",").every((x) => SECTIONS.includes(x))) {
+      only = new Set(next.split(","));
+      i++;
+    } else if (arg === "--balancer-port" && isPort(next)) {
+      balancerPort = Number(next);
+      i++;
     } else if (arg === "--runs" && next !== undefined && Number.isInteger(Number(next)) && Number(next) > 0) {
       runs = Number(next);
       i++;
@@ -47,7 +86,10 @@ function parseArgs(argv: string[]): { json?: string; runs: number; http: boolean
       return `unknown or incomplete argument: ${arg ?? ""}`;
     }
   }
-  return json === undefined ? { runs, http, quick } : { json, runs, http, quick };
+  if (ports && ports.length < servers) return `--ports names ${ports.length} port(s) for --servers ${servers}`;
+  const base = ports ?? [3400, 3401];
+  const chosen = { runs, http, browser, quick, servers, ports: base.slice(0, servers), ...(balancerPort === undefined ? {} : { balancerPort }), ...(only ? { only } : {}) };
+  return json === undefined ? chosen : { json, ...chosen };
 }
 
 function formatTable(description: string, sections: BenchSection[]): string {
@@ -62,24 +104,50 @@ function formatTable(description: string, sections: BenchSection[]): string {
   return [description, line(head), ...rows.map(line)].join("\n");
 }
 
-async function httpSection(quick: boolean): Promise<void> {
-  const server = await startBenchServer();
+async function browserSection(server: BenchServer, quick: boolean): Promise<void> {
+  const keystrokes = quick ? 10 : 50;
+  try {
+    const { timings, soilBand } = await benchWorkspaceTyping(server, keystrokes);
+    process.stdout.write(
+      `\nTyping in the workspace (headless chromium, demo pump train, soil band ${soilBand ? "on" : "NOT shown"}): input event to the painted results, as the page measures it\n${formatBrowserTable(timings)}\n`,
+    );
+  } catch (e) {
+    process.stdout.write(`\nBrowser section failed: ${(e as Error).message}\n`);
+  }
+}
+
+async function httpSection(args: Args): Promise<void> {
+  const { quick } = args;
+  const server = await startBenchServer({ ports: args.ports, ...(args.balancerPort === undefined ? {} : { balancerPort: args.balancerPort }) });
   if (typeof server === "string") {
     process.stdout.write(`\nHTTP section skipped: ${server}\n`);
     return;
   }
+  const where = server.servers > 1 ? `${server.servers} next start processes behind nginx at ${server.baseUrl}` : `one next start process at ${server.baseUrl}`;
   try {
-    const worst = await benchWorstAcceptedHttp(server, quick ? 1 : 3);
+    const wants = (section: string) => !args.only || args.only.has(section);
+    if (wants("sequential")) {
+      const sequential = await benchSequentialPages(server, quick ? 2 : 10);
+      process.stdout.write(`\nSequential server time (one client), ${where}\n${formatHttpTable(sequential)}\n`);
+    }
+    if (args.browser && wants("browser")) await browserSection(server, quick);
+    if (wants("worst")) {
+      const worst = await benchWorstAcceptedHttp(server, quick ? 1 : 3);
     process.stdout.write(
       `\nWorst accepted input on POST /api/v1/calculate (analysis pool): median ${fmt(median(worst.analysisMs))} ms per analysis (statuses ${worst.statuses.join(", ")}); ` +
-        `GET /api/health meanwhile: ${worst.healthMs.length} requests, median ${median(worst.healthMs).toFixed(1)} ms, max ${Math.max(...worst.healthMs).toFixed(1)} ms\n`,
-    );
-    const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, quick ? 3 : 10)];
-    process.stdout.write(`\nHTTP on the production build, loopback (${server.baseUrl}): the calculation API\n${formatHttpTable(rows)}\n`);
-    const clients = 50;
-    const seconds = quick ? 5 : 30;
-    const load = await benchLoadSuite(server, DEFAULT_BENCH_INPUT, clients, seconds);
-    process.stdout.write(`\nLoad: ${clients} concurrent clients, ${seconds} s per endpoint\n${formatHttpTable(load)}\n`);
+          `GET /api/health meanwhile: ${worst.healthMs.length} requests, median ${median(worst.healthMs).toFixed(1)} ms, max ${Math.max(...worst.healthMs).toFixed(1)} ms\n`,
+      );
+    }
+    if (wants("calculate")) {
+      const rows = [await benchCalculateApi(server, DEFAULT_BENCH_INPUT, quick ? 3 : 10)];
+      process.stdout.write(`\nHTTP on the production build, loopback, ${where}: the calculation API\n${formatHttpTable(rows)}\n`);
+    }
+    if (wants("load")) {
+      const clients = 50;
+      const seconds = quick ? 5 : 30;
+      const load = await benchLoadSuite(server, DEFAULT_BENCH_INPUT, clients, seconds);
+      process.stdout.write(`\nLoad: ${clients} concurrent clients, ${seconds} s per endpoint, ${where}\n${formatHttpTable(load)}\n`);
+    }
   } finally {
     await server.stop();
   }
@@ -88,7 +156,7 @@ async function httpSection(quick: boolean): Promise<void> {
 async function main(argv: string[]): Promise<number> {
   const args = parseArgs(argv);
   if (typeof args === "string") {
-    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N] [--no-http] [--quick]\n`);
+    process.stderr.write(`${args}\nusage: npm run bench [-- --json FILE] [--runs N] [--no-http] [--no-browser] [--quick] [--servers 1|2] [--ports A,B] [--balancer-port P] [--only sequential,browser,worst,calculate,load]\n`);
     return 2;
   }
   try {
@@ -97,10 +165,13 @@ async function main(argv: string[]): Promise<number> {
       if (!full) throw new Error("no full-analysis timing");
       process.stdout.write(`${JSON.stringify({ fullAnalysisMs: { median: full.median, min: full.min, max: full.max }, runs: full.runs })}\n`);
     } else {
-      const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
-      process.stdout.write(`${formatTable(description, sections)}\n`);
-      process.stdout.write(`${worstAcceptedLine(args.quick ? 2 : 5)}\n`);
-      if (args.http) await httpSection(args.quick);
+      // --only names HTTP sections: the engine-only table is left out then
+      if (!args.only) {
+        const { description, sections } = benchCalc(DEFAULT_BENCH_INPUT, args.runs);
+        process.stdout.write(`${formatTable(description, sections)}\n`);
+        process.stdout.write(`${worstAcceptedLine(args.quick ? 2 : 5)}\n`);
+      }
+      if (args.http) await httpSection(args);
     }
     return 0;
   } catch (e) {

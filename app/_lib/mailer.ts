@@ -1,6 +1,6 @@
 import nodemailer, { type Transporter } from "nodemailer";
 import { getServerEnv } from "@/modules/platform/env";
-import { enqueueEmail, listQueuedEmails, markEmailAttemptFailed, markEmailSent } from "@/db/queries/mail";
+import { deliverQueuedEmail, enqueueEmail, listQueuedEmails } from "@/db/queries/mail";
 import type { OutgoingEmailRow } from "@/db/schema";
 import { redactOneTimeLinks } from "@/modules/platform/mail-redaction";
 
@@ -22,16 +22,14 @@ function getTransport(): Transporter {
   return holder.__plinthMailer;
 }
 
+/** Sends a queued message unless another server holds or has sent it (deliverQueuedEmail). */
 async function deliver(row: OutgoingEmailRow): Promise<boolean> {
-  try {
-    await getTransport().sendMail({ from: getServerEnv().MAIL_FROM, to: row.to, subject: row.subject, text: row.text });
+  const outcome = await deliverQueuedEmail(row.id, async (locked) => {
+    await getTransport().sendMail({ from: getServerEnv().MAIL_FROM, to: locked.to, subject: locked.subject, text: locked.text });
     // The stored copy loses its one-time link once the mail server has the message.
-    await markEmailSent(row.id, redactOneTimeLinks(row.text));
-    return true;
-  } catch (e) {
-    await markEmailAttemptFailed(row, e instanceof Error ? e.message : String(e));
-    return false;
-  }
+    return redactOneTimeLinks(locked.text);
+  });
+  return outcome === "sent";
 }
 
 export interface EmailMessage {

@@ -8,7 +8,17 @@ import type { ProjectRow } from "@/db/schema";
 import { getRequestPort } from "./next-port";
 import { getUserFromPort } from "./session";
 
+// Once per request each (React's cache lives for one server render): the session cookie is
+// unsealed and its row read once, and the membership row once, however many layouts and
+// pages of the request ask.
 const loadUser = cache(async (): Promise<PublicUser | undefined> => getUserFromPort(await getRequestPort()));
+const loadMembership = cache(async (userId: string, isAdmin: boolean, projectId: string) => getProjectForMember({ userId, isAdmin }, projectId));
+
+/** The project with the caller's role on it, or undefined when not a member (read once per request). */
+export async function getMemberProject(actor: Actor, projectId: string): Promise<Awaited<ReturnType<typeof getProjectForMember>>> {
+  if (!/^[0-9a-f-]{36}$/i.test(projectId)) return undefined;
+  return loadMembership(actor.userId, actor.isAdmin, projectId);
+}
 
 /** The signed-in user for a page; redirects to sign-in unless `optional`. */
 export async function getPageUser(opts: { optional: true }): Promise<PublicUser | undefined>;
@@ -31,7 +41,7 @@ export async function requireProjectPage(
   const user = await getPageUser();
   if (!/^[0-9a-f-]{36}$/i.test(projectId)) notFound();
   const actor = actorOf(user);
-  const project = await getProjectForMember(actor, projectId);
+  const project = await getMemberProject(actor, projectId);
   if (!project || !roleAllows(project.role, permission)) notFound();
   const { role, ...row } = project;
   return { user, actor, project: row, role };

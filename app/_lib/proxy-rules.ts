@@ -21,6 +21,15 @@ export interface ProxyEnv {
 }
 
 /**
+ * Where a page's scripts get their permission: this request's nonce (every page rendered per
+ * request), or, for a page prerendered at build time (app/_lib/static-pages.ts), the SHA-256
+ * of each of its inline scripts. A prerendered page's external scripts are the build's own
+ * chunks under /_next/static: 'self' admits them, since without a nonce 'strict-dynamic'
+ * would refuse them (they carry neither nonce nor integrity). No 'unsafe-inline' either way.
+ */
+export type ScriptSource = { nonce: string } | { hashes: string[] };
+
+/**
  * Scripts run only with this request's nonce; 'strict-dynamic' passes the trust on to the
  * chunks Next's runtime loads, so no host list or 'unsafe-inline' is needed. Styles keep
  * 'unsafe-inline': the charts and the resizable panes set style attributes, which a nonce
@@ -29,10 +38,11 @@ export interface ProxyEnv {
  * /_next/static chunks; without it the worker falls back to script-src, where 'strict-dynamic'
  * ignores 'self' and the worker would be refused. No blob: (Turbopack starts workers from a URL).
  */
-export function contentSecurityPolicy(nonce: string, env: ProxyEnv, https: boolean): string {
+export function contentSecurityPolicy(source: ScriptSource, env: ProxyEnv, https: boolean): string {
+  const scripts = "nonce" in source ? `'self' 'nonce-${source.nonce}' 'strict-dynamic'` : ["'self'", ...source.hashes].join(" ");
   return [
     "default-src 'self'",
-    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${env.dev ? " 'unsafe-eval'" : ""}`,
+    `script-src ${scripts}${env.dev ? " 'unsafe-eval'" : ""}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
     "font-src 'self'",
@@ -60,9 +70,11 @@ function refusal(status: number, code: string, message: string, headers: Record<
   return Response.json({ error: { code, message } }, { status, headers: { ...headers, "cache-control": "no-store" } });
 }
 
-export function decideProxy(request: Request, env: ProxyEnv, nonce: string = newNonce()): ProxyDecision {
+/** `scriptHashes`: the inline-script hashes when the request is for a prerendered page (else a fresh nonce). */
+export function decideProxy(request: Request, env: ProxyEnv, opts: { nonce?: string; scriptHashes?: string[] | null } = {}): ProxyDecision {
   const https = isServedOverHttps(request.headers, env.trustProxy, env.appUrl);
-  const csp = contentSecurityPolicy(nonce, env, https);
+  const source: ScriptSource = opts.scriptHashes ? { hashes: opts.scriptHashes } : { nonce: opts.nonce ?? newNonce() };
+  const csp = contentSecurityPolicy(source, env, https);
   const responseHeaders: Record<string, string> = { "content-security-policy": csp };
   if (https) responseHeaders["strict-transport-security"] = HSTS_VALUE;
 
@@ -90,7 +102,8 @@ export function decideProxy(request: Request, env: ProxyEnv, nonce: string = new
   // Next reads the nonce from the request's policy and puts it on its own scripts.
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("content-security-policy", csp);
-  requestHeaders.set("x-nonce", nonce);
+  if ("nonce" in source) requestHeaders.set("x-nonce", source.nonce);
+  else requestHeaders.delete("x-nonce");
   // Next's own action check always believes X-Forwarded-Host (a spoofed one made a
   // same-origin action answer 500); without a trusted proxy it is the Host, as for the API.
   const host = request.headers.get("host");

@@ -19,20 +19,38 @@ export async function listQueuedEmails(limit = 20, maxAttempts = 20): Promise<Ou
     .limit(limit);
 }
 
-/** Marks a message sent and, when given, replaces its stored text (one-time links removed). */
-export async function markEmailSent(id: string, storedText?: string): Promise<void> {
-  await getDb()
-    .update(outgoingEmails)
-    .set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null, ...(storedText === undefined ? {} : { text: storedText }) })
-    .where(eq(outgoingEmails.id, id));
-}
-
-export async function markEmailAttemptFailed(row: OutgoingEmailRow, error: string, maxAttempts = 20): Promise<void> {
-  const attempts = row.attempts + 1;
-  await getDb()
-    .update(outgoingEmails)
-    .set({ attempts, lastError: error.slice(0, 500), status: attempts >= maxAttempts ? "failed" : "queued", updatedAt: new Date() })
-    .where(eq(outgoingEmails.id, row.id));
+/**
+ * Hands one queued message to `send` while holding its row lock, and writes the outcome in
+ * the same transaction. Several servers share the queue (the 15 s flush of each, and the
+ * request that queued a message sending it at once): the lock is taken with SKIP LOCKED, so a
+ * message another server is sending, or has sent, is skipped here and never sent twice.
+ * `send` resolves with the text to keep (one-time links removed) or throws the failure.
+ */
+export async function deliverQueuedEmail(id: string, send: (row: OutgoingEmailRow) => Promise<string>, maxAttempts = 20): Promise<"sent" | "failed" | "skipped"> {
+  return getDb().transaction(async (tx) => {
+    const row = (
+      await tx
+        .select()
+        .from(outgoingEmails)
+        .where(and(eq(outgoingEmails.id, id), eq(outgoingEmails.status, "queued"), lt(outgoingEmails.attempts, maxAttempts)))
+        .for("update", { skipLocked: true })
+    )[0];
+    if (!row) return "skipped";
+    let storedText: string;
+    try {
+      storedText = await send(row);
+    } catch (e) {
+      const attempts = row.attempts + 1;
+      const error = (e instanceof Error ? e.message : String(e)).slice(0, 500);
+      await tx
+        .update(outgoingEmails)
+        .set({ attempts, lastError: error, status: attempts >= maxAttempts ? "failed" : "queued", updatedAt: new Date() })
+        .where(eq(outgoingEmails.id, row.id));
+      return "failed";
+    }
+    await tx.update(outgoingEmails).set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null, text: storedText }).where(eq(outgoingEmails.id, row.id));
+    return "sent";
+  });
 }
 
 export async function listOutgoingEmails(limit = 100): Promise<OutgoingEmailRow[]> {

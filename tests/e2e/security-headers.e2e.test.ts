@@ -1,5 +1,6 @@
-// Security headers on the production build: a script policy by per-request nonce (no
-// 'unsafe-inline'), applied so that sign-in, the project page and the workspace run without
+// Security headers on the production build: a script policy by per-request nonce, or by the
+// SHA-256 of each inline script on the two prerendered pages (no 'unsafe-inline' either way),
+// applied so that sign-in, forgot password, the project page and the workspace run without
 // a single policy violation; Permissions-Policy; no HSTS over http; private JSON; and a
 // foreign-origin or oversize server action answered 403 / 413 instead of Next's 500.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -28,15 +29,17 @@ describe("security headers", () => {
     }
   });
 
-  it("the script policy has a fresh nonce and 'strict-dynamic', no 'unsafe-inline', and the page's scripts carry the nonce", async () => {
+  it("a page rendered per request: its script policy has a fresh nonce and 'strict-dynamic', no 'unsafe-inline', and every script carries the nonce", async () => {
     const nonces: string[] = [];
-    for (const path of ["/sign-in", "/forgot-password", "/sign-in"]) {
+    // the one-time-link pages render per request without a session (an unknown link shows "no longer works")
+    for (const path of ["/reset/no-such-link-0000000000", "/invite/no-such-link-0000000000", "/reset/no-such-link-0000000000"]) {
       const res = await fetch(`${appUrl}${path}`);
       expect(res.status, path).toBe(200);
       const csp = res.headers.get("content-security-policy") ?? "";
       const scriptSrc = csp.split(/;\s*/).find((d) => d.startsWith("script-src ")) ?? "";
       expect(scriptSrc, path).toMatch(/'strict-dynamic'/);
       expect(scriptSrc, path).not.toContain("unsafe-inline");
+      expect(scriptSrc, path).not.toContain("sha256-");
       const nonce = /'nonce-([^']+)'/.exec(scriptSrc)?.[1];
       expect(nonce, path).toBeTruthy();
       nonces.push(nonce!);
@@ -46,6 +49,30 @@ describe("security headers", () => {
       for (const tag of scripts) expect(tag, path).toContain(`nonce="${nonce}"`);
     }
     expect(new Set(nonces).size).toBe(nonces.length);
+  });
+
+  it("a prerendered page (sign-in, forgot password): its script policy names each inline script by SHA-256, no nonce, no 'unsafe-inline'; external scripts are the build's own chunks", async () => {
+    for (const path of ["/sign-in", "/forgot-password"]) {
+      const res = await fetch(`${appUrl}${path}`);
+      expect(res.status, path).toBe(200);
+      const csp = res.headers.get("content-security-policy") ?? "";
+      const scriptSrc = csp.split(/;\s*/).find((d) => d.startsWith("script-src ")) ?? "";
+      const sources = scriptSrc.split(/\s+/).slice(1);
+      expect(sources[0], path).toBe("'self'");
+      // nothing but 'self' and hashes: no nonce, no 'unsafe-inline', no host, no scheme
+      for (const s of sources.slice(1)) expect(s, path).toMatch(/^'sha256-[A-Za-z0-9+/]{43}='$/);
+      const html = await res.text();
+      const inline = [...html.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/g)].filter((m) => !/\ssrc=/.test(m[1] ?? ""));
+      expect(inline.length, path).toBeGreaterThan(0);
+      // hashed here independently with WebCrypto: each inline script's exact text is listed
+      for (const m of inline) {
+        const digest = Buffer.from(await crypto.subtle.digest("SHA-256", new TextEncoder().encode(m[2] ?? ""))).toString("base64");
+        expect(sources, path).toContain(`'sha256-${digest}'`);
+      }
+      for (const [, src] of html.matchAll(/<script\b[^>]*\ssrc="([^"]+)"/g)) expect(src, path).toMatch(/^\/_next\/static\/chunks\/[A-Za-z0-9_.~-]+\.js$/);
+      // the served HTML is the build's file, not a render: the same bytes twice
+      expect(await (await fetch(`${appUrl}${path}`)).text(), path).toBe(html);
+    }
   });
 
   it("sends a Permissions-Policy that denies devices and sensors, and no HSTS over http", async () => {
@@ -90,6 +117,12 @@ describe("security headers", () => {
     });
     page.on("pageerror", (e) => problems.push(`${page.url()}: ${e.message}`));
     const violations = async (p: Page) => p.evaluate(() => (window as unknown as { __cspViolations: string[] }).__cspViolations);
+    // The prerendered forgot-password page hydrates under its hash policy: its form posts and answers.
+    await page.goto("/forgot-password");
+    await page.getByLabel("E-mail").fill("nobody-csp@plinthwise.test");
+    await page.getByRole("button", { name: "Send the link" }).click();
+    await page.getByRole("status").waitFor();
+    expect(await violations(page)).toEqual([]);
     const s = new SignInPage(page);
     await s.open();
     // Hydrated: the form's client code runs (a blocked script would leave a dead form).

@@ -5,7 +5,7 @@ import { inviteMemberAction, removeMemberAction } from "@/app/(desk)/actions";
 import { hashPassword } from "@/app/_lib/passwords";
 import { closeDb } from "@/db/client";
 import { createUser } from "@/db/queries/accounts";
-import { createProject, getMembership, listMembers } from "@/db/queries/projects";
+import { createProject, getMembership, listMembers, upsertMember } from "@/db/queries/projects";
 import { callAction, callRoute, cookieFor } from "./support/fixture";
 
 afterAll(async () => {
@@ -78,5 +78,26 @@ describe("the last manager keeps the role", () => {
     expect(oks).toBe(1);
     const roles = [await roleOf(first.id), await roleOf(second.id)];
     expect(roles.filter((r) => r === "manager")).toHaveLength(1);
+  });
+});
+
+describe("removal takes effect at once", () => {
+  it("a removed member's next request with the same cookie is refused (membership is read on every request, only the cookie's unsealing is remembered)", async () => {
+    const s2 = `${stamp}-rm`;
+    const mgr = await createUser({ email: `rm-mgr-${s2}@example.test`, name: "Rhea Manager", passwordHash: await hashPassword("a-long-password-1") });
+    const des = await createUser({ email: `rm-des-${s2}@example.test`, name: "Dov Designer", passwordHash: await hashPassword("a-long-password-1") });
+    const project = await createProject({ userId: mgr.id, isAdmin: false }, { code: `RM-${s2}`.slice(0, 24), name: "Removal", client: "", site: "", units: "si" });
+    const memberId = await upsertMember({ projectId: project.id, userId: des.id, role: "designer" });
+    const mgrCookie = await cookieFor(mgr.id);
+    const desCookie = await cookieFor(des.id);
+    // twice, so this server has unsealed and remembered the designer's cookie
+    expect((await callRoute("v1/projects/[projectId]", "GET", { projectId: project.id }, { cookie: desCookie })).status).toBe(200);
+    expect((await callRoute("v1/projects/[projectId]", "GET", { projectId: project.id }, { cookie: desCookie })).status).toBe(200);
+    const removed = await callAction(removeMemberAction, { projectId: project.id, memberId }, mgrCookie);
+    expect(removed.state.ok).toBe(true);
+    expect((await callRoute("v1/projects/[projectId]", "GET", { projectId: project.id }, { cookie: desCookie })).status).toBe(403);
+    expect((await callRoute("v1/projects/[projectId]/foundations", "GET", { projectId: project.id }, { cookie: desCookie })).status).toBe(403);
+    // still signed in: only the project is gone
+    expect((await callRoute("v1/session", "GET", {}, { cookie: desCookie })).status).toBe(200);
   });
 });

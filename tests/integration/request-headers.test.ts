@@ -161,6 +161,25 @@ describe("proxy.ts decisions", () => {
     expect(csp.split("; ")).toContain("worker-src 'self'");
   });
 
+  it("gives a prerendered page a script policy of 'self' and its inline scripts' hashes: no nonce, no 'strict-dynamic', no 'unsafe-inline'", () => {
+    const req = new Request("http://127.0.0.1:3100/sign-in", { headers: { host: "127.0.0.1:3100" } });
+    const hashes = ["'sha256-qznLcsROx4GACP2dm0UCKCzCG+HiZ1guq6ZZDob/Tng='", "'sha256-47DEQpj8HBSa+/TImW+5JCeuQeRkm5NMpJWZG3hSuFU='"];
+    const d = decideProxy(req, plainHttp, { scriptHashes: hashes });
+    if (d.kind !== "pass") throw new Error("expected pass");
+    const csp = d.responseHeaders["content-security-policy"]!;
+    const scriptSrc = csp.split("; ").find((x) => x.startsWith("script-src "));
+    expect(scriptSrc).toBe(`script-src 'self' ${hashes.join(" ")}`);
+    expect(csp).not.toContain("nonce-");
+    expect(scriptSrc).not.toContain("unsafe-inline");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("object-src 'none'");
+    expect(d.requestHeaders.get("x-nonce")).toBeNull();
+    // a page that was not found prerendered (null) gets the nonce policy
+    const n = decideProxy(req, plainHttp, { scriptHashes: null });
+    if (n.kind !== "pass") throw new Error("expected pass");
+    expect(n.responseHeaders["content-security-policy"]).toMatch(/script-src 'self' 'nonce-[^']+' 'strict-dynamic'/);
+  });
+
   it("leaves response compression on (next start gzips route-handler answers, the lean calculate answer relies on it)", async () => {
     // @ts-expect-error -- next.config.js is plain JavaScript without a declaration file
     const config = (await import("../../next.config.js")).default as { compress?: boolean };

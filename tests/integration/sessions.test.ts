@@ -2,12 +2,12 @@
 import { eq } from "drizzle-orm";
 import { sealData } from "iron-session";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { signInAction, signOutAction } from "@/app/(auth)/actions";
-import { readSessionId, SESSION_COOKIE } from "@/app/_lib/session";
+import { resetPasswordAction, signInAction, signOutAction } from "@/app/(auth)/actions";
+import { readSessionId, sealExpiry, SESSION_COOKIE } from "@/app/_lib/session";
 import { portFromRequest } from "@/app/_lib/request-context";
 import { hashPassword } from "@/app/_lib/passwords";
 import { closeDb, getDb } from "@/db/client";
-import { createUser } from "@/db/queries/accounts";
+import { createOneTimeToken, createUser, getUserByEmail, SESSION_TTL_MS } from "@/db/queries/accounts";
 import { sessions } from "@/db/schema";
 import { getServerEnv } from "@/modules/platform/env";
 import { callAction, callRoute, makeRequest, peer, sessionCookieFrom } from "./support/fixture";
@@ -78,6 +78,32 @@ describe("sessions", () => {
     expect(sid).toBeDefined();
     await getDb().update(sessions).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.id, sid!));
     expect((await callRoute("v1/session", "GET", {}, { cookie })).status).toBe(401);
+  });
+
+  it("a password change ends every session of the account at once, also cookies this server has just read", async () => {
+    const a = await signInCookie();
+    const b = await signInCookie();
+    // read twice each: the unsealing of both cookies is now remembered by this process
+    for (const c of [a, b, a, b]) expect((await callRoute("v1/session", "GET", {}, { cookie: c })).status).toBe(200);
+    const user = await getUserByEmail(email);
+    const token = await createOneTimeToken({ purpose: "password-reset", userId: user!.id, ttlMs: 60_000 });
+    const newPassword = "correct horse battery";
+    const reset = await callAction(resetPasswordAction, { token, password: newPassword, confirm: newPassword }, null);
+    expect(reset.state.ok).toBe(true);
+    expect((await callRoute("v1/session", "GET", {}, { cookie: a })).status).toBe(401);
+    expect((await callRoute("v1/session", "GET", {}, { cookie: b })).status).toBe(401);
+    // the reset's own new session works
+    expect((await callRoute("v1/session", "GET", {}, { cookie: sessionCookieFrom(reset.port.setCookieHeaders) })).status).toBe(200);
+  });
+
+  it("the remembered unsealing never outlives the seal: its expiry is read from the cookie", async () => {
+    const cookie = await signInCookie();
+    const raw = decodeURIComponent(cookie.split("=")[1]!);
+    const exp = sealExpiry(raw);
+    expect(exp).toBeDefined();
+    // sealed with the session's lifetime (iron-session writes now + ttl in ms)
+    expect(Math.abs(exp! - (Date.now() + SESSION_TTL_MS))).toBeLessThan(60_000);
+    expect(sealExpiry("Fe26.2**x*y*z*data**s*h~2")).toBeUndefined();
   });
 
   it("a wrong password is refused with a clear message and no cookie", async () => {

@@ -3,6 +3,8 @@ import Link from "next/link";
 import { ForgotPasswordForm } from "./forgot-password-form";
 
 export const metadata: Metadata = { title: "Reset your password" };
+// Prerendered at build time: the page needs no session; its script policy is by hash (proxy.ts).
+export const dynamic = "force-static";
 
 export default function ForgotPasswordPage() {
   return (

@@ -1,11 +1,20 @@
 "use client";
 
-import { useActionState } from "react";
+import { useActionState, useSyncExternalStore } from "react";
 import { FormMessage, SubmitButton, TextField, type FormState } from "../../_components/form-kit";
 import { signInAction } from "../actions";
 
-export function SignInForm({ next }: { next?: string }) {
+const noSubscription = () => () => {};
+
+export function SignInForm() {
   const [state, action] = useActionState(signInAction as unknown as (s: FormState, f: FormData) => Promise<FormState>, null);
+  // The page is prerendered, so `?next=` is read here from the address (the action keeps only a path on this site).
+  // (null while prerendering and hydrating, then the address's value: the address does not change on this page)
+  const next = useSyncExternalStore(
+    noSubscription,
+    () => new URLSearchParams(window.location.search).get("next"),
+    () => null,
+  );
   return (
     <form action={action} className="space-y-4" noValidate>
       {next ? <input type="hidden" name="next" value={next} /> : null}

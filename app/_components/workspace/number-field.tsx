@@ -4,6 +4,7 @@ import { getIn, useFormikContext } from "formik";
 import { useId, useState } from "react";
 import { useUnits, type QuantityKey } from "./units-context";
 import { FieldCommentMarker } from "./review-comments";
+import { markInput } from "./input-timing";
 
 /**
  * A numeric input bound to a formik field that holds the SI value. It shows and
@@ -58,6 +59,7 @@ export function NumberField({
           setFocused(true);
         }}
         onChange={(e) => {
+          markInput(e.timeStamp);
           setText(e.target.value);
           const parsed = units.fromDisplayText(kind, e.target.value);
           void setFieldValue(name, parsed, true);

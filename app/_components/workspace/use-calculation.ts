@@ -1,8 +1,9 @@
 "use client";
 
-import { useEffect, useRef, useState, useSyncExternalStore } from "react";
+import { useEffect, useLayoutEffect, useRef, useState, useSyncExternalStore } from "react";
 import { ENGINE_VERSION, type AnalysisResult } from "@/modules/calc";
 import type { CalcWorkerReply, CalcWorkerRequest } from "./calc.worker";
+import { bindInputs, markCommitted } from "./input-timing";
 
 export interface CalcIssue {
   path: string;
@@ -173,6 +174,14 @@ export function useCalculation(document: unknown, enabled: boolean) {
   const completeSeq = useRef(0);
   const bodies = useRef(new Map<number, string>());
   const lanes = useRef<{ quick: WorkerLane; ramps: WorkerLane } | null>(null);
+  // The newest quick run whose answer is set for display, and the newest one timed (input-timing.ts).
+  const answeredSeq = useRef(0);
+  const timedSeq = useRef(0);
+  useLayoutEffect(() => {
+    if (answeredSeq.current <= timedSeq.current) return;
+    timedSeq.current = answeredSeq.current;
+    markCommitted(answeredSeq.current);
+  });
 
   // The workers, and the one question about the server's engine (again when the page comes back into view).
   useEffect(() => {
@@ -188,6 +197,7 @@ export function useCalculation(document: unknown, enabled: boolean) {
         return;
       }
       latestShownSeq.current = r.seq;
+      answeredSeq.current = r.seq;
       setSettledBody(replyBody);
       if (r.ok && completeSeq.current === r.seq) return; // its ramps run came first and is shown
       if (r.ok) {
@@ -224,6 +234,7 @@ export function useCalculation(document: unknown, enabled: boolean) {
     if (!enabled || !inBrowser || !lanes.current) return;
     const seq = ++seqRef.current;
     bodies.current.set(seq, body);
+    bindInputs(seq);
     const { quick, ramps } = lanes.current;
     ramps.cancel();
     const frame = requestAnimationFrame(() => quick.send({ seq, document: JSON.parse(body) as unknown, ramps: false }));

@@ -3,6 +3,8 @@ import { getLiveToken, getPublicUser } from "@/db/queries/accounts";
 import { PasswordForm } from "../../password-form";
 
 export const metadata: Metadata = { title: "Accept your invitation" };
+// Per request: the link is checked when it is opened, and the page carries the request\'s script nonce.
+export const dynamic = "force-dynamic";
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;

@@ -4,6 +4,8 @@ import { getLiveToken } from "@/db/queries/accounts";
 import { PasswordForm } from "../../password-form";
 
 export const metadata: Metadata = { title: "Choose a new password" };
+// Per request: the link is checked when it is opened, and the page carries the request\'s script nonce.
+export const dynamic = "force-dynamic";
 
 export default async function ResetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;

@@ -1,12 +1,11 @@
 import type { ReactNode } from "react";
 import { notFound } from "next/navigation";
-import { getProjectForMember } from "@/db/queries/projects";
-import { actorOf, getPageUser } from "../../../_lib/page-guard";
+import { actorOf, getMemberProject, getPageUser } from "../../../_lib/page-guard";
 
 // Any page under a project needs membership first; each page then checks its own permission.
 export default async function ProjectLayout({ children, params }: { children: ReactNode; params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const user = await getPageUser();
-  if (!/^[0-9a-f-]{36}$/i.test(projectId) || !(await getProjectForMember(actorOf(user), projectId))) notFound();
+  if (!(await getMemberProject(actorOf(user), projectId))) notFound();
   return <>{children}</>;
 }
