@@ -3,7 +3,10 @@
 // upload a file with a problem and see it by cell, then a good one and see their verdicts
 // (without the design's prediction); the designer opens the record and reads each reading
 // beside the revision's prediction with the ratio, the soil fitted to the resonance the vendor
-// measured (0.4 x the design G, below the band) and the flag on the project table.
+// measured (0.4 x the design G, below the band) and the flag on the project table. A second
+// journey: the designer uploads a run-up trace made from the engine's own response at 1.3 x the
+// design G and reads it plotted over the predicted response, the measured resonance beside the
+// predicted natural frequencies, and the soil fitted back inside the band.
 import { describe, expect, it } from "vitest";
 import { screenshot } from "./support/browser";
 import { projectIdOf } from "./support/desk";
@@ -11,6 +14,7 @@ import { asDemo, sharedBrowser } from "./support/fixtures";
 import { example, seededFoundation } from "./support/workspace";
 import { RequestsPage } from "./support/vendor-data";
 import { Predictor } from "@/modules/commissioning/prediction";
+import { SoilResponse, buildResponseModel, findPoint, modelPoints } from "@/modules/commissioning/response";
 
 const browser = sharedBrowser();
 const B1 = "Motor RWM-101 rotor bearing 1";
@@ -84,6 +88,50 @@ describe("site measurements", () => {
       const tableRow = page.getByTestId("foundation-table").locator("tr", { hasText: ids.tag });
       await tableRow.waitFor();
       expect(await tableRow.innerText()).toMatch(/site-measured soil G .* below the design band/);
+    });
+  });
+
+  it("the designer uploads a run-up trace and reads it over the predicted response, with the resonance and the soil fitted to it", async () => {
+    const input = example("raw-water-pump-train.json");
+    // a synthetic trace: the engine's own response at 1.3 x the design G, 300 to 1800 rpm
+    const model = buildResponseModel(input);
+    const truth = new SoilResponse(model, 1.3);
+    const point = findPoint(modelPoints(model), B1)!;
+    const rows = Array.from({ length: 151 }, (_, i) => 300 + i * 10).map((rpm) => `${B1},horizontal,displacement peak-to-peak,µm,${rpm},${(2 * truth.at(point, 1, rpm).displacementPeak * 1e6).toFixed(4)}`);
+    const file = Buffer.from(["bearing,direction,quantity,unit,speed_rpm,value", ...rows].join("\r\n") + "\r\n", "utf8");
+    const ids = await asDemo(browser(), "designer", async ({ page, context }) => {
+      const projectId = projectIdOf(page.url());
+      const foundation = await seededFoundation(context.request, projectId, "E2E-CM-TRACE", input);
+      const issued = await context.request.post(`/api/v1/projects/${projectId}/foundations/${foundation.id}/revisions`, { data: { note: "Issued for the run-up trace journey." } });
+      expect(issued.status()).toBe(201);
+      return { projectId, foundationId: foundation.id, revisionId: ((await issued.json()) as { revision: { id: string } }).revision.id };
+    });
+    await asDemo(browser(), "checker", async ({ context }) => {
+      const res = await context.request.post(`/api/v1/projects/${ids.projectId}/foundations/${ids.foundationId}/revisions/${ids.revisionId}/decision`, { data: { outcome: "approved", note: "Approved for the trace journey (browser test)." } });
+      expect(res.status()).toBe(201);
+    });
+    await asDemo(browser(), "designer", async ({ page }) => {
+      await page.goto(`/projects/${ids.projectId}/foundations/${ids.foundationId}/revisions/${ids.revisionId}/commissioning`);
+      const form = page.getByTestId("measurement-form");
+      await form.waitFor();
+      await form.getByLabel("Measured by").fill("Site engineer (run-up)");
+      await form.getByLabel("Instrument", { exact: true }).fill("Portable analyser, serial E2E-2");
+      await form.getByLabel("Instrument calibrated on").fill("2026-01-15");
+      await form.getByLabel("Running speed (rpm)").fill("1785");
+      await form.getByLabel("What the file holds").selectOption("run-up");
+      await form.locator('input[type="file"]').setInputFiles({ name: "run-up.csv", mimeType: "text/csv", buffer: file });
+      await form.getByRole("button", { name: "Add the record" }).click();
+      const plot = page.getByTestId("trace-plot");
+      await plot.waitFor({ timeout: 30_000 });
+      // two curves drawn (measured and predicted), with the chart's text alternative
+      await plot.locator("svg path").first().waitFor();
+      expect(await plot.locator('[aria-label="Run-up trace measured, over the predicted frequency response"]').count()).toBe(1);
+      const resonances = await page.getByTestId("trace-resonances").innerText();
+      expect(resonances).toMatch(/^Measured resonance: \d[\d,.]* rpm/);
+      expect(resonances).toMatch(/Predicted natural frequencies: \d/);
+      expect(await page.getByTestId("band-position").innerText()).toBe("inside the design band");
+      expect(await page.getByText("Before you rely on these numbers").count()).toBeGreaterThan(0);
+      await screenshot(page, "commissioning-run-up-trace");
     });
   });
 });
