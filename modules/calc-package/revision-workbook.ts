@@ -719,19 +719,21 @@ function checkRows(checks: CheckResult[], keys: Map<string, string>): Cell[][] {
     c.comparison === "min" ? "at least" : "at most",
     checkUtilisation(c),
     packageVerdict(c),
-    c.acceptance?.justification ?? null,
+    c.acceptance?.justification ?? c.notApplicable?.reason ?? null,
     keys.get(c.source) ?? c.source,
   ]);
 }
 
 /** The verdict with an accepted band failure's justification, for tables without a Justification column. */
 export function verdictWithJustification(c: CheckResult): string {
+  if (c.notApplicable) return `${packageVerdict(c)}: ${c.notApplicable.reason}`;
   return c.acceptance ? `${packageVerdict(c)}: ${c.acceptance.justification}` : packageVerdict(c);
 }
 
 /** The verdict cell: a band failure accepted with a justification still reads as a failure. */
 export function packageVerdict(c: CheckResult): string {
   const v = checkVerdict(c);
+  if (v === "not-applicable") return `${CHECK_VERDICT_LABELS["not-applicable"]} (for information)`;
   return v === "pass" ? "pass" : v === "accepted" ? `FAIL, ${CHECK_VERDICT_LABELS.accepted}` : "FAIL";
 }
 
@@ -770,7 +772,8 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
   w.title("Checks: value, limit, verdict and source");
   w.blank();
   w.pairs("Summary", [
-    { label: "Checks", value: all.length, kind: "count" },
+    { label: "Checks", value: all.filter((c) => !c.notApplicable).length, kind: "count" },
+    { label: "Not applicable to this support (for information)", value: all.filter((c) => c.notApplicable).length, kind: "count" },
     { label: "Failing", value: all.filter((c) => !c.pass).length, kind: "count" },
     { label: "Failing, accepted with justification", value: all.filter((c) => checkVerdict(c) === "accepted").length, kind: "count" },
     { label: "Governing check", value: gov?.label ?? "—", note: gov ? `uses ${(gov.utilisation * 100).toFixed(0)} % of its limit` : undefined },
