@@ -2,6 +2,7 @@
 
 import type { DraftForm } from "@/modules/desk/draft-form";
 import type { MassPropertiesResult } from "@/modules/calc";
+import { springsOf } from "@/modules/desk/spring-layout";
 
 // Plan (x-y) and elevation (x-z) of the block to scale: boxes, voids, machines,
 // bearings, check points and the combined centre of gravity, with overall
@@ -71,25 +72,6 @@ export function pilesOf(form: DraftForm): { heads: { x: number; y: number }[]; d
   if (!p || !ok(p.diameter) || !ok(p.length) || p.diameter <= 0 || p.length <= 0) return null;
   const heads = p.heads.flatMap((h) => (ok(h.x) && ok(h.y) ? [{ x: h.x, y: h.y }] : []));
   return heads.length ? { heads, d: p.diameter, length: p.length } : null;
-}
-
-export interface DrawnSpring {
-  /** 1-based row of the spring table. */
-  n: number;
-  x: number;
-  y: number;
-  kz: number | null;
-  kh: number | null;
-  damper: boolean;
-}
-
-/** The springs of method "springs" whose plan position is complete (rows with a blank x or y are left out). */
-export function springsOf(form: DraftForm): DrawnSpring[] | null {
-  const rows = form.impedance.method === "springs" ? (form.impedance.springs ?? []) : [];
-  const drawn = rows.flatMap((sp, i) =>
-    ok(sp.x) && ok(sp.y) ? [{ n: i + 1, x: sp.x, y: sp.y, kz: ok(sp.kz) ? sp.kz : null, kh: ok(sp.kh) ? sp.kh : null, damper: ok(sp.cz) || ok(sp.ch) }] : [],
-  );
-  return drawn.length ? drawn : null;
 }
 
 /** A coil from (x, top) down to (x, bottom) of half-width w, in screen units. */
