@@ -773,7 +773,7 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
   w.blank();
   w.pairs("Summary", [
     { label: "Checks", value: all.filter((c) => !c.notApplicable).length, kind: "count" },
-    { label: "Not applicable to this support (for information)", value: all.filter((c) => c.notApplicable).length, kind: "count" },
+    { label: "Checks not applicable to this support (for information)", value: all.filter((c) => c.notApplicable).length, kind: "count" },
     { label: "Failing", value: all.filter((c) => !c.pass).length, kind: "count" },
     { label: "Failing, accepted with justification", value: all.filter((c) => checkVerdict(c) === "accepted").length, kind: "count" },
     { label: "Governing check", value: gov?.label ?? "—", note: gov ? `uses ${(gov.utilisation * 100).toFixed(0)} % of its limit` : undefined },
