@@ -339,8 +339,8 @@ export interface AnalysisResult {
 
 /** Results of a block on steel springs (springs-results.ts). */
 export interface SpringsResult {
-  /** Static load in each spring (N, compression positive, input order): rigid block on linear springs under its weight at the cg. */
-  staticLoads: number[];
+  /** Static load in each spring (N, compression positive, input order): rigid block on linear springs under its weight at the cg. Engine 1.7.0 on (absent in older stored results). */
+  staticLoads?: number[];
   /** Static deflection W / sum kz (m). */
   staticDeflection: number;
   sumKz: number;

@@ -318,6 +318,12 @@ function SpringsTable({ springs }: { springs: NonNullable<AnalysisResult["spring
         Static deflection W / Σkz: {u.toResultText("length", springs.staticDeflection)} {u.unitLabel("length")} · vertical isolator frequency {u.toResultText("frequency", springs.verticalFrequencyHz)}{" "}
         {u.unitLabel("frequency")} (ζ {sig(springs.verticalDampingRatio * 100)} %) · highest natural frequency {u.toResultText("frequency", springs.highestNaturalFrequencyHz)} {u.unitLabel("frequency")}
       </p>
+      {springs.staticLoads?.length ? (
+        <p className="text-xs" data-testid="spring-static-loads">
+          Static load per spring (rigid block on the springs, statics):{" "}
+          {springs.staticLoads.map((f, i) => `${i + 1}: ${u.toResultText("force", f)} ${u.unitLabel("force")}`).join(" · ")}
+        </p>
+      ) : null}
       <table>
         <thead>
           <tr>

@@ -66,15 +66,15 @@ describe("static load per spring (statics of a rigid block on linear springs)", 
     const m = result.massProperties.totalMass;
     // hand: block 3 x 2 x 0.6 m of 2400 kg/m3 = 8640 kg, plus the 1500 kg fan
     expect(m).toBeCloseTo(8640 + 1500, 6);
-    for (const load of result.springs!.staticLoads) expect(relClose(load, (m * G) / 4, 1e-12)).toBe(true);
+    for (const load of result.springs!.staticLoads!) expect(relClose(load, (m * G) / 4, 1e-12)).toBe(true);
     // and each spring's load is kz times the static deflection W / sum kz
-    for (const load of result.springs!.staticLoads) expect(relClose(load, 4e5 * result.springs!.staticDeflection, 1e-12)).toBe(true);
+    for (const load of result.springs!.staticLoads!) expect(relClose(load, 4e5 * result.springs!.staticDeflection, 1e-12)).toBe(true);
   });
 
   it("cg off O: the loads carry W and its moments about both axes (equilibrium)", () => {
     const springs = corners(1.3, 0.8, 4e5, 3e5);
     const result = run(doc({ springs, cg: [0.4, -0.2, 1.0] }));
-    const loads = result.springs!.staticLoads;
+    const loads = result.springs!.staticLoads!;
     const w = result.massProperties.totalMass * G;
     const [xc, yc] = result.massProperties.cg;
     const sum = loads.reduce((s, f) => s + f, 0);
@@ -103,7 +103,7 @@ describe("spring-compression: every spring stays in compression (no lift-off, co
       const f = rotor.forceAmplitude * (rpm / 1480) ** 2;
       sdof = Math.max(sdof, (transmissibility(rpm / 60 / fz, zeta) * f) / 4);
     }
-    const staticLoad = result.springs!.staticLoads[0]!;
+    const staticLoad = result.springs!.staticLoads![0]!;
     for (const c of checks) {
       expect(c.limit).toBe(1);
       expect(c.comparison).toBe("min");
@@ -125,7 +125,7 @@ describe("spring-compression: every spring stays in compression (no lift-off, co
     expect(fz * 60).toBeLessThan(130);
     // at resonance TR = sqrt(1 + 4 zeta^2) / (2 zeta) ~ 100: F(fz) TR / 4 against m g / 4
     const atResonance = (5000 * ((fz * 60) / 130) ** 2 * transmissibility(1, 0.005)) / 4;
-    const staticLoad = result.springs!.staticLoads[0]!;
+    const staticLoad = result.springs!.staticLoads![0]!;
     expect(atResonance).toBeGreaterThan(staticLoad);
     const checks = result.checks.filter((c) => c.id === "spring-compression");
     expect(checks).toHaveLength(4);
