@@ -443,6 +443,13 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Speed", kind: "speed" }, { header: "Frequency ratio r", kind: "ratio" }, { header: "Transmissibility TR", kind: "ratio" }, { header: "Isolation efficiency 1 - TR", kind: "ratio" }],
       sr.rotors.flatMap((r) => r.isolation.map((row) => [r.machine, r.rotor, row.speedRpm, row.frequencyRatio, row.transmissibility, row.isolationEfficiency])),
     );
+    if (sr.staticLoads?.length) {
+      w.table(
+        "Static load in each spring (rigid block on the springs, statics)",
+        [{ header: "Spring", kind: "count" }, { header: "Static load", kind: "force" }],
+        sr.staticLoads.map((f, i) => [i + 1, f]),
+      );
+    }
     w.table(
       "Force amplitude in each spring at the rated speed",
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Case" }, { header: "Unbalance" }, { header: "Spring", kind: "count" }, { header: "Force x", kind: "force" }, { header: "Force y", kind: "force" }, { header: "Force z", kind: "force" }],
