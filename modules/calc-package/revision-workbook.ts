@@ -443,6 +443,13 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Speed", kind: "speed" }, { header: "Frequency ratio r", kind: "ratio" }, { header: "Transmissibility TR", kind: "ratio" }, { header: "Isolation efficiency 1 - TR", kind: "ratio" }],
       sr.rotors.flatMap((r) => r.isolation.map((row) => [r.machine, r.rotor, row.speedRpm, row.frequencyRatio, row.transmissibility, row.isolationEfficiency])),
     );
+    if (sr.staticLoads?.length) {
+      w.table(
+        "Static load in each spring (rigid block on the springs, statics)",
+        [{ header: "Spring", kind: "count" }, { header: "Static load", kind: "force" }],
+        sr.staticLoads.map((f, i) => [i + 1, f]),
+      );
+    }
     w.table(
       "Force amplitude in each spring at the rated speed",
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Case" }, { header: "Unbalance" }, { header: "Spring", kind: "count" }, { header: "Force x", kind: "force" }, { header: "Force y", kind: "force" }, { header: "Force z", kind: "force" }],
@@ -719,19 +726,21 @@ function checkRows(checks: CheckResult[], keys: Map<string, string>): Cell[][] {
     c.comparison === "min" ? "at least" : "at most",
     checkUtilisation(c),
     packageVerdict(c),
-    c.acceptance?.justification ?? null,
+    c.acceptance?.justification ?? c.notApplicable?.reason ?? null,
     keys.get(c.source) ?? c.source,
   ]);
 }
 
 /** The verdict with an accepted band failure's justification, for tables without a Justification column. */
 export function verdictWithJustification(c: CheckResult): string {
+  if (c.notApplicable) return `${packageVerdict(c)}: ${c.notApplicable.reason}`;
   return c.acceptance ? `${packageVerdict(c)}: ${c.acceptance.justification}` : packageVerdict(c);
 }
 
 /** The verdict cell: a band failure accepted with a justification still reads as a failure. */
 export function packageVerdict(c: CheckResult): string {
   const v = checkVerdict(c);
+  if (v === "not-applicable") return `${CHECK_VERDICT_LABELS["not-applicable"]} (for information)`;
   return v === "pass" ? "pass" : v === "accepted" ? `FAIL, ${CHECK_VERDICT_LABELS.accepted}` : "FAIL";
 }
 
@@ -770,7 +779,8 @@ function checks(w: SheetWriter, d: RevisionPackageData): void {
   w.title("Checks: value, limit, verdict and source");
   w.blank();
   w.pairs("Summary", [
-    { label: "Checks", value: all.length, kind: "count" },
+    { label: "Checks", value: all.filter((c) => !c.notApplicable).length, kind: "count" },
+    { label: "Checks not applicable to this support (for information)", value: all.filter((c) => c.notApplicable).length, kind: "count" },
     { label: "Failing", value: all.filter((c) => !c.pass).length, kind: "count" },
     { label: "Failing, accepted with justification", value: all.filter((c) => checkVerdict(c) === "accepted").length, kind: "count" },
     { label: "Governing check", value: gov?.label ?? "—", note: gov ? `uses ${(gov.utilisation * 100).toFixed(0)} % of its limit` : undefined },

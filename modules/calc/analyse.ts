@@ -3,7 +3,7 @@
 // contract's result.
 import { analysisWarnings } from "./analysis-warnings";
 import { applyAcceptances, boundChecks } from "./band-checks";
-import { buildChecks, resolveCriteria } from "./checks";
+import { buildChecks, markNotApplicable, resolveCriteria } from "./checks";
 import { buildCrossCheck } from "./closed-form";
 import { assertFinite } from "./finite";
 import { buildModel } from "./model";
@@ -16,7 +16,7 @@ import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
-export const ENGINE_VERSION = "1.6.0";
+export const ENGINE_VERSION = "1.7.0";
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
@@ -38,12 +38,12 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
   const accepted = applyAcceptances(
     [
-      ...buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined),
+      ...markNotApplicable(buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined), input.impedance.method),
       ...(band ? [...boundChecks(criteria, "lower", band.cases.lower, band.source, userSprings), ...boundChecks(criteria, "upper", band.cases.upper, band.source, userSprings)] : []),
     ],
     input.acceptances,
   );
-  const springs = springsResults(model, nominal);
+  const springs = springsResults(model, nominal, band ? [band.cases.lower, band.cases.upper] : []);
   const checks = [...accepted.checks, ...(springs?.checks ?? [])];
   // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
   const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;

@@ -96,10 +96,11 @@ export function applyAcceptances(checks: CheckResult[], acceptances: readonly Ac
   return { checks: out, warnings };
 }
 
-export type CheckVerdict = "pass" | "fail" | "accepted";
+export type CheckVerdict = "pass" | "fail" | "accepted" | "not-applicable";
 
-/** pass, fail, or failed and accepted with a written justification (band checks only). */
-export function checkVerdict(c: Pick<CheckResult, "pass" | "acceptance">): CheckVerdict {
+/** pass, fail, failed and accepted with a written justification (band checks only), or not applicable (kept for information). */
+export function checkVerdict(c: Pick<CheckResult, "pass" | "acceptance" | "notApplicable">): CheckVerdict {
+  if (c.notApplicable) return "not-applicable";
   if (c.pass) return "pass";
   return c.acceptance ? "accepted" : "fail";
 }
@@ -108,4 +109,5 @@ export const CHECK_VERDICT_LABELS: Record<CheckVerdict, string> = {
   pass: "pass",
   fail: "fail",
   accepted: "accepted with justification",
+  "not-applicable": "not applicable",
 };

@@ -201,3 +201,20 @@ export function buildChecks(
   );
   return checks;
 }
+
+/** Why the soil bearing-pressure check does not apply, for the supports that carry the load themselves. */
+export const BEARING_NOT_APPLICABLE: Partial<Record<AnalysisInput["impedance"]["method"], string>> = {
+  springs: "the block's weight goes through the springs into the supporting structure, not by contact pressure on soil",
+  piles: "the cap's weight goes through the piles (the cap-soil contact is ignored), not by contact pressure on soil",
+};
+
+/**
+ * Under springs and piles the static bearing pressure (kept in `massProperties`) is not the load
+ * path: the `bearing-pressure` check stays in the list with its value for information, marked
+ * not applicable with the reason, and does not decide the verdict. Soil methods: unchanged.
+ */
+export function markNotApplicable(checks: CheckResult[], method: AnalysisInput["impedance"]["method"]): CheckResult[] {
+  const reason = BEARING_NOT_APPLICABLE[method];
+  if (!reason) return checks;
+  return checks.map((c) => (c.id === "bearing-pressure" ? { ...c, pass: true, notApplicable: { reason } } : c));
+}

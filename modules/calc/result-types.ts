@@ -172,6 +172,12 @@ export interface CheckResult {
    * `acceptances`). `pass` stays false; the verdict reads "accepted with justification".
    */
   acceptance?: { justification: string };
+  /**
+   * A check kept in the list for information that does not apply to this support (the soil
+   * bearing pressure under springs or piles), with the reason. It does not decide the verdict:
+   * `pass` is true and the verdict reads "not applicable".
+   */
+  notApplicable?: { reason: string };
 }
 
 export interface SweepSeries {
@@ -333,6 +339,8 @@ export interface AnalysisResult {
 
 /** Results of a block on steel springs (springs-results.ts). */
 export interface SpringsResult {
+  /** Static load in each spring (N, compression positive, input order): rigid block on linear springs under its weight at the cg. Engine 1.7.0 on (absent in older stored results). */
+  staticLoads?: number[];
   /** Static deflection W / sum kz (m). */
   staticDeflection: number;
   sumKz: number;

@@ -2,13 +2,18 @@
 // vertical mode as an SDOF isolator and its transmissibility per operating speed, the force in
 // each spring from the harmonic steady state, and the isolator frequency-ratio check.
 import { STANDARD_GRAVITY } from "./criteria-defaults";
-import { responseSet } from "./harmonic";
+import { forceAt, responseSet } from "./harmonic";
 import { ISOLATION_MIN_RATIO, ISOLATION_RATIO_SOURCE, TRANSMISSIBILITY_SOURCE, transmissibility } from "./impedance-springs";
 import type { Model } from "./model";
 import type { CheckResult, SpringsResult } from "./result-types";
 import type { SoilCase } from "./soil-case";
+import { speedGridRpm } from "./sweep-grid";
+import { rpmToRadPerSec } from "./unbalance";
 
-export function springsResults(model: Model, nominal: SoilCase): { result: SpringsResult; checks: CheckResult[] } | null {
+export const SPRING_COMPRESSION_SOURCE =
+  "common practice (no lift-off): every spring stays in compression, its static load (rigid block on linear springs, static equilibrium) greater than the amplitude of its dynamic vertical force F = (k + i w c) u_z (harmonic steady state)";
+
+export function springsResults(model: Model, nominal: SoilCase, bandCases: SoilCase[] = []): { result: SpringsResult; checks: CheckResult[] } | null {
   const imp = model.input.impedance;
   if (imp.method !== "springs") return null;
   const mass = model.massProperties.totalMass;
@@ -50,8 +55,12 @@ export function springsResults(model: Model, nominal: SoilCase): { result: Sprin
     };
   });
 
+  const staticLoads = springStaticLoads(model);
+  checks.push(...springCompressionChecks(model, staticLoads, [nominal, ...bandCases]));
+
   return {
     result: {
+      staticLoads,
       staticDeflection,
       sumKz,
       sumKh,
@@ -109,3 +118,137 @@ function springForces(model: Model, nominal: SoilCase, omega: number, rotorIndex
 }
 
 
+
+/**
+ * Static load in each spring (N, compression positive, input order): the rigid block on linear
+ * springs under its weight W at the combined cg (x_c, y_c) from O. With the stiffness centre at
+ * O (sum kz x = sum kz y = sum kz x y = 0, required by the input rules), equilibrium of force and
+ * of the moments about the axes through O gives the deflection d_i = W / sum kz + W y_c y_i /
+ * sum kz y^2 + W x_c x_i / sum kz x^2 and the load kz_i d_i (statics; the loads add up to W). A
+ * symmetric block of four equal springs with the cg above O: m g / 4 each.
+ */
+export function springStaticLoads(model: Model): number[] {
+  const imp = model.input.impedance;
+  if (imp.method !== "springs") return [];
+  const weight = model.massProperties.totalMass * STANDARD_GRAVITY;
+  const xc = model.massProperties.cg[0] - model.origin[0];
+  const yc = model.massProperties.cg[1] - model.origin[1];
+  const pos = imp.springs.map((s) => [s.x - model.origin[0], s.y - model.origin[1]] as const);
+  let sumKz = 0;
+  let sumKzXX = 0;
+  let sumKzYY = 0;
+  imp.springs.forEach((s, i) => {
+    const [x, y] = pos[i] as readonly [number, number];
+    sumKz += s.kz;
+    sumKzXX += s.kz * x * x;
+    sumKzYY += s.kz * y * y;
+  });
+  return imp.springs.map((s, i) => {
+    const [x, y] = pos[i] as readonly [number, number];
+    const d = weight / sumKz + (sumKzYY > 0 ? (weight * yc * y) / sumKzYY : 0) + (sumKzXX > 0 ? (weight * xc * x) / sumKzXX : 0);
+    return s.kz * d;
+  });
+}
+
+/** Amplitude of the dynamic vertical force in each spring, for each load of the rotor, at omega with unbalance force f. */
+function verticalSpringForces(model: Model, sc: SoilCase, rotorIndex: number, omega: number, f: number): number[][] {
+  const imp = model.input.impedance;
+  const rotor = model.rotors[rotorIndex];
+  if (imp.method !== "springs" || !rotor) return [];
+  const u = responseSet(rotor.loads.length);
+  sc.solver.setFrequency(omega);
+  sc.solver.solveAll(rotor.loads, u);
+  const dampers = imp.springs.some((s) => s.cz !== undefined || s.ch !== undefined);
+  const kz = sc.stiffnessUsed[2] as number;
+  const cz = sc.dashpotUsed[2] as number;
+  return rotor.loads.map((_, l) => {
+    const o = 6 * l;
+    const re = (j: number) => (u.re[o + j] as number) * f;
+    const im = (j: number) => (u.im[o + j] as number) * f;
+    return imp.springs.map((s) => {
+      const x = s.x - model.origin[0];
+      const y = s.y - model.origin[1];
+      const kzi = s.kz * sc.factor;
+      const czi = dampers ? (s.cz ?? 0) : (cz * kzi) / kz;
+      return Math.hypot(kzi, omega * czi) * Math.hypot(re(2) + re(3) * y - re(4) * x, im(2) + im(3) * y - im(4) * x);
+    });
+  });
+}
+
+interface SpringPeak {
+  force: number;
+  speedRpm: number;
+  soilCase: SoilCase;
+}
+
+/**
+ * Check `spring-compression` (no lift-off, common practice): per rotor and spring, the static load
+ * over the largest dynamic vertical force amplitude in that spring over the rotor's operating
+ * speeds (the envelope grid of the rotor responses: 101 speeds, the rated speed and every natural
+ * frequency in the range), every load case, at nominal stiffness and at both ends of the band;
+ * at least 1. With two or more rotors also `spring-compression-combined` per spring: the sum of
+ * every rotor's largest amplitude (the rotors' phases and speeds are unknown: the absolute sum is
+ * an upper bound, the safe side).
+ */
+function springCompressionChecks(model: Model, staticLoads: number[], cases: SoilCase[]): CheckResult[] {
+  const imp = model.input.impedance;
+  if (imp.method !== "springs") return [];
+  const modesHz = cases[0]?.modes.map((m) => m.frequencyHz) ?? [];
+  const peaks: SpringPeak[][] = model.rotors.map((rotor, r) => {
+    const best: SpringPeak[] = imp.springs.map(() => ({ force: 0, speedRpm: rotor.speedRpm, soilCase: cases[0] as SoilCase }));
+    for (const sc of cases) {
+      for (const rpm of speedGridRpm(rotor.rangeRpm, rotor.speedRpm, modesHz)) {
+        const omega = rpmToRadPerSec(rpm);
+        const forces = verticalSpringForces(model, sc, r, omega, forceAt(rotor.forceAtRated, rotor.omegaRated, omega));
+        for (const perLoad of forces) {
+          perLoad.forEach((fz, i) => {
+            const b = best[i] as SpringPeak;
+            if (fz > b.force) best[i] = { force: fz, speedRpm: rpm, soilCase: sc };
+          });
+        }
+      }
+    }
+    return best;
+  });
+  const where = (sc: SoilCase) => (sc.factor === 1 ? "nominal stiffness" : `stiffness x ${Number(sc.factor.toPrecision(3))}`);
+  const ratio = (staticLoad: number, dynamic: number) => (dynamic > 0 ? staticLoad / dynamic : Number.MAX_VALUE);
+  const checks: CheckResult[] = [];
+  model.rotors.forEach((rotor, r) => {
+    imp.springs.forEach((_, i) => {
+      const p = (peaks[r] as SpringPeak[])[i] as SpringPeak;
+      const staticLoad = staticLoads[i] as number;
+      const value = ratio(staticLoad, p.force);
+      checks.push({
+        id: "spring-compression",
+        key: `spring-compression/${rotor.machine}/${rotor.rotor}/spring-${i + 1}`,
+        label: `Spring ${i + 1} stays in compression (no lift-off) under ${rotor.machine} ${rotor.rotor}: static load over the largest dynamic vertical force (at ${Number(p.speedRpm.toPrecision(6))} rpm, ${where(p.soilCase)})`,
+        value,
+        limit: 1,
+        comparison: "min",
+        unit: "-",
+        source: SPRING_COMPRESSION_SOURCE,
+        machine: rotor.machine,
+        rotor: rotor.rotor,
+        pass: value >= 1,
+      });
+    });
+  });
+  if (model.rotors.length >= 2) {
+    imp.springs.forEach((_, i) => {
+      const dynamic = peaks.reduce((sum, best) => sum + (best[i] as SpringPeak).force, 0);
+      const value = ratio(staticLoads[i] as number, dynamic);
+      checks.push({
+        id: "spring-compression-combined",
+        key: `spring-compression-combined/spring-${i + 1}`,
+        label: `Spring ${i + 1} stays in compression (no lift-off) under every rotor together: static load over the sum of each rotor's largest dynamic vertical force`,
+        value,
+        limit: 1,
+        comparison: "min",
+        unit: "-",
+        source: `${SPRING_COMPRESSION_SOURCE}; rotors together by the absolute sum of their peaks (upper bound)`,
+        pass: value >= 1,
+      });
+    });
+  }
+  return checks;
+}

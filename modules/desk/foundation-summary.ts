@@ -11,7 +11,8 @@ export function checkUtilisation(c: CheckResult): number {
 
 // Open failures first, then failures accepted with a justification (still failures: they stay
 // ahead of every pass), then passes; within each, by how close each is to its limit.
-const VERDICT_ORDER: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2 };
+// Checks kept for information only (not applicable to the support) come last and never govern.
+const VERDICT_ORDER: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2, "not-applicable": 3 };
 
 /** Failing checks first (open ones before accepted ones), then by how close each is to its limit. */
 export function sortChecksGoverningFirst(checks: readonly CheckResult[]): CheckResult[] {
@@ -39,7 +40,7 @@ export interface GoverningSummary {
 export type GoverningSource = Pick<AnalysisResult, "checks"> & { impedance: Pick<AnalysisResult["impedance"], "method"> };
 
 export function governingCheck(result: GoverningSource): GoverningSummary | null {
-  const first = sortChecksGoverningFirst(result.checks)[0];
+  const first = sortChecksGoverningFirst(result.checks.filter((c) => !c.notApplicable))[0];
   if (!first) return null;
   return {
     label: first.label,
@@ -50,6 +51,6 @@ export function governingCheck(result: GoverningSource): GoverningSummary | null
     utilisation: checkUtilisation(first),
     failing: result.checks.filter((c) => !c.pass).length,
     accepted: result.checks.filter((c) => checkVerdict(c) === "accepted").length,
-    total: result.checks.length,
+    total: result.checks.filter((c) => !c.notApplicable).length,
   };
 }

@@ -54,7 +54,7 @@ export function summariseResults(result: AnalysisResult): ResultsSummary {
   return {
     governing: governingCheck(result),
     failing: result.checks.filter((c) => !c.pass).length,
-    total: result.checks.length,
+    total: result.checks.filter((c) => !c.notApplicable).length,
     frequenciesHz: result.modes.map((m) => m.frequencyHz),
     rotors,
     soilBand: result.bounds

@@ -258,7 +258,7 @@ export function flippedChecks(oldChecks: readonly CheckResult[], newChecks: read
       newLimit: n.limit,
     });
   }
-  const order: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2 };
+  const order: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2, "not-applicable": 3 };
   return flips.sort((x, y) => order[x.newVerdict] - order[y.newVerdict] || x.label.localeCompare(y.label));
 }
 

@@ -106,6 +106,9 @@ const checkWords: Record<string, string> = {
   "mass-ratio": "mass ratio",
   eccentricity: "eccentricity",
   "bearing-pressure": "bearing pressure",
+  "isolator-frequency-ratio": "isolator frequency ratio",
+  "spring-compression": "spring in compression (no lift-off)",
+  "spring-compression-combined": "spring in compression (no lift-off), rotors together",
 };
 
 const soilCaseWords: Record<string, string> = { "soil-lower": "at the lower soil bound", "soil-upper": "at the upper soil bound" };

@@ -369,7 +369,7 @@ export function displayUnit(kind: PackageKind | undefined, system: UnitSystemKey
 
 // ---------------------------------------------------------------- verdicts
 
-const verdictRank: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2 };
+const verdictRank: Record<CheckVerdict, number> = { fail: 0, accepted: 1, pass: 2, "not-applicable": 3 };
 
 function checkKey(c: CheckResult): string {
   return c.key ?? `${c.id}/${c.label}`;

@@ -38,6 +38,8 @@ const MARGIN_TOLERANCE = 1e-9;
 
 /** The check passes and keeps the required margin inside its limit. */
 export function clearsWithMargin(c: CheckResult, margin: number): boolean {
+  // a check kept for information only (not applicable to the support) never holds a size back
+  if (c.notApplicable) return true;
   return c.pass && (margin <= 0 || checkMargin(c) >= margin - MARGIN_TOLERANCE);
 }
 

@@ -220,7 +220,9 @@ function closedFormFailures(input: AnalysisInput, mat: BaseMat, c: Candidate, ma
   if (blockMass / mat.machineMass < minMassRatio * minFactor * (1 - PRUNE_TOLERANCE)) out.push("mass-ratio");
   const maxBearingRatio = input.criteria?.maxBearingRatio ?? CRITERIA_DEFAULTS.maxBearingRatio.value;
   const pressure = ((blockMass + mat.machineMass) * STANDARD_GRAVITY) / (c.dimensions.length * c.dimensions.width);
-  if (pressure / input.soil.allowableBearingPressure > maxBearingRatio * maxFactor * (1 + PRUNE_TOLERANCE)) out.push("bearing-pressure");
+  // under springs and piles the bearing-pressure check is not applicable (checks.ts markNotApplicable): no pruning on it
+  const bearingApplies = input.impedance.method !== "springs" && input.impedance.method !== "piles";
+  if (bearingApplies && pressure / input.soil.allowableBearingPressure > maxBearingRatio * maxFactor * (1 + PRUNE_TOLERANCE)) out.push("bearing-pressure");
   return out;
 }
 

@@ -2,12 +2,17 @@
 
 import type { DraftForm } from "@/modules/desk/draft-form";
 import type { MassPropertiesResult } from "@/modules/calc";
+import { springsOf } from "@/modules/desk/spring-layout";
 
 // Plan (x-y) and elevation (x-z) of the block to scale: boxes, voids, machines,
 // bearings, check points and the combined centre of gravity, with overall
 // dimensions, so that a wrong coordinate is seen at once. Method "piles": the piles
 // under the cap to the same scale (plan: dashed circles of the diameter, hidden under
 // the cap; elevation: the shafts down to their length), with a text list beside.
+// Method "springs": each spring at its plan position to scale (the input gives no spring size, so
+// the symbol's size is schematic and said so): plan, a circle with a cross, a square inside
+// when the spring has a damper; elevation, a coil between the underside (z = 0) and the
+// supporting floor, with a dashpot beside it when there is a damper; a text list beside.
 
 type View = "plan" | "elevation";
 
@@ -45,13 +50,20 @@ function extents(form: DraftForm, view: View) {
     if (ok(c.position[0]) && ok(bb)) points.push({ a: c.position[0], b: bb, kind: "check", label: c.name });
   }
   const piles = pilesOf(form);
+  const springs = springsOf(form);
   const solids = rects.filter((r) => !r.isVoid);
   // plan: circles about (x, y); elevation: shafts from z = 0 down to -L
   const pileA = piles ? piles.heads.flatMap((h) => [h.x - piles.d / 2, h.x + piles.d / 2]) : [];
   const pileB = piles ? (view === "plan" ? piles.heads.flatMap((h) => [h.y - piles.d / 2, h.y + piles.d / 2]) : [-piles.length]) : [];
-  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a), ...pileA];
-  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b), ...pileB];
-  return { rects, points, solids, piles, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
+  // springs: a schematic symbol (radius and height from the block's size, the input has none)
+  const plainA = solids.flatMap((r) => [r.a0, r.a1]);
+  const spanOfBlock = plainA.length ? Math.max(...plainA) - Math.min(...plainA) : 1;
+  const springSymbol = { r: Math.max(spanOfBlock * 0.035, 1e-3), h: Math.max(spanOfBlock * 0.12, 1e-3) };
+  const springA = springs ? springs.flatMap((sp) => [sp.x - springSymbol.r, sp.x + springSymbol.r]) : [];
+  const springB = springs ? (view === "plan" ? springs.flatMap((sp) => [sp.y - springSymbol.r, sp.y + springSymbol.r]) : [-springSymbol.h]) : [];
+  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a), ...pileA, ...springA];
+  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b), ...pileB, ...springB];
+  return { rects, points, solids, piles, springs, springSymbol, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
 }
 
 /** The piles of method "piles" with every number present (heads with a blank coordinate are left out). */
@@ -60,6 +72,16 @@ export function pilesOf(form: DraftForm): { heads: { x: number; y: number }[]; d
   if (!p || !ok(p.diameter) || !ok(p.length) || p.diameter <= 0 || p.length <= 0) return null;
   const heads = p.heads.flatMap((h) => (ok(h.x) && ok(h.y) ? [{ x: h.x, y: h.y }] : []));
   return heads.length ? { heads, d: p.diameter, length: p.length } : null;
+}
+
+/** A coil from (x, top) down to (x, bottom) of half-width w, in screen units. */
+function coilPath(x: number, top: number, bottom: number, w: number): string {
+  const turns = 5;
+  const lead = (bottom - top) * 0.12;
+  const step = (bottom - top - 2 * lead) / (2 * turns);
+  let d = `M ${x} ${top} L ${x} ${top + lead}`;
+  for (let i = 0; i < 2 * turns; i++) d += ` L ${x + (i % 2 === 0 ? w : -w)} ${top + lead + (i + 0.5) * step}`;
+  return `${d} L ${x} ${bottom - lead} L ${x} ${bottom}`;
 }
 
 function fmtLen(m: number, toDisplay: (m: number) => string): string {
@@ -109,6 +131,40 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
                   <title>{`pile shaft at x = ${formatLength(x)}`}</title>
                 </rect>
               ))}
+        </g>
+      ) : null}
+      {e.springs ? (
+        <g data-testid={`springs-${view}`} stroke="#3a4d57" strokeWidth={1} fill="none">
+          {view === "plan"
+            ? e.springs.map((sp) => {
+                const r = e.springSymbol.r * s;
+                return (
+                  <g key={sp.n} data-spring={sp.n}>
+                    <circle cx={X(sp.x)} cy={Y(sp.y)} r={r} strokeDasharray="3 2" />
+                    <line x1={X(sp.x) - r} x2={X(sp.x) + r} y1={Y(sp.y)} y2={Y(sp.y)} />
+                    <line x1={X(sp.x)} x2={X(sp.x)} y1={Y(sp.y) - r} y2={Y(sp.y) + r} />
+                    {sp.damper ? <rect x={X(sp.x) - r / 2} y={Y(sp.y) - r / 2} width={r} height={r} data-damper={sp.n} /> : null}
+                    <title>{`spring ${sp.n}${sp.damper ? " with damper" : ""}`}</title>
+                  </g>
+                );
+              })
+            : [...new Map(e.springs.map((sp) => [sp.x, sp])).values()].map((sp) => {
+                const w = e.springSymbol.r * s;
+                const damper = e.springs!.some((o) => o.x === sp.x && o.damper);
+                return (
+                  <g key={sp.x} data-spring={sp.n}>
+                    <path d={coilPath(X(sp.x), Y(0), Y(-e.springSymbol.h), w)} />
+                    {damper ? (
+                      <g data-damper={sp.n}>
+                        <rect x={X(sp.x) + 1.4 * w} y={Y(0) + (Y(-e.springSymbol.h) - Y(0)) * 0.45} width={0.8 * w} height={(Y(-e.springSymbol.h) - Y(0)) * 0.55} />
+                        <line x1={X(sp.x) + 1.8 * w} x2={X(sp.x) + 1.8 * w} y1={Y(0)} y2={Y(0) + (Y(-e.springSymbol.h) - Y(0)) * 0.6} />
+                      </g>
+                    ) : null}
+                    <title>{`spring at x = ${formatLength(sp.x)}${damper ? " with damper" : ""}`}</title>
+                  </g>
+                );
+              })}
+          {view === "elevation" ? <line x1={X(e.aMin)} x2={X(e.aMax)} y1={Y(-e.springSymbol.h)} y2={Y(-e.springSymbol.h)} strokeWidth={1.5} /> : null}
         </g>
       ) : null}
       {e.rects.map((r, i) => (
@@ -175,6 +231,7 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
 
 export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; mass?: MassPropertiesResult; formatLength: (m: number) => string }) {
   const piles = pilesOf(form);
+  const springs = springsOf(form);
   return (
     <div className="grid grid-cols-1 gap-3 xl:grid-cols-2">
       <figure>
@@ -185,6 +242,7 @@ export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; ma
         <OneView form={form} view="elevation" cg={mass?.cg as [number, number, number] | undefined} formatLength={formatLength} />
         <figcaption className="mt-1 text-2xs text-basalt-400">
           Elevation, looking along +y. Dashed line: underside of the base (z = 0).{piles ? " Shaded below it: the pile shafts to their length (piles behind one another drawn once)." : ""}
+          {springs ? " Below it: the springs (coils; a dashpot beside where there is a damper) down to the supporting floor (heavy line); springs behind one another drawn once; their height is schematic." : ""}
         </figcaption>
       </figure>
       {piles ? (
@@ -195,6 +253,19 @@ export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; ma
           <ul className="sr-only">
             {piles.heads.map((h, i) => (
               <li key={i}>{`Pile ${i + 1} at x ${formatLength(h.x)}, y ${formatLength(h.y)}`}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {springs ? (
+        <div className="text-2xs text-basalt-400 xl:col-span-2" data-testid="springs-text">
+          <p>
+            Springs (circles with a cross in plan, under the block; a square inside: with a damper): {springs.length} at their positions to scale; the symbols&apos; size is schematic (the spring table gives no
+            spring size).
+          </p>
+          <ul className="sr-only" data-testid="springs-list">
+            {springs.map((sp) => (
+              <li key={sp.n}>{`Spring ${sp.n} at x ${formatLength(sp.x)}, y ${formatLength(sp.y)}${sp.damper ? ", with damper" : ""}`}</li>
             ))}
           </ul>
         </div>

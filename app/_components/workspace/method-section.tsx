@@ -100,11 +100,11 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
               {(values.impedance.springs ?? []).map((_, i) => (
                 <div key={i} className="grid grid-cols-2 items-end gap-2 md:grid-cols-7">
                   <NumberField name={`impedance.springs.${i}.x`} label={`Spring ${i + 1} x`} kind="length" readOnly={readOnly} compact />
-                  <NumberField name={`impedance.springs.${i}.y`} label="y" kind="length" readOnly={readOnly} compact />
-                  <NumberField name={`impedance.springs.${i}.kz`} label="kz" kind="stiffness" readOnly={readOnly} compact />
-                  <NumberField name={`impedance.springs.${i}.kh`} label="kh" kind="stiffness" readOnly={readOnly} compact />
-                  <NumberField name={`impedance.springs.${i}.cz`} label="damper cz" kind="dashpot" readOnly={readOnly} compact />
-                  <NumberField name={`impedance.springs.${i}.ch`} label="damper ch" kind="dashpot" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.y`} label={`Spring ${i + 1} y`} kind="length" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.kz`} label={`Spring ${i + 1} kz`} kind="stiffness" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.kh`} label={`Spring ${i + 1} kh`} kind="stiffness" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.cz`} label={`Spring ${i + 1} damper cz`} kind="dashpot" readOnly={readOnly} compact />
+                  <NumberField name={`impedance.springs.${i}.ch`} label={`Spring ${i + 1} damper ch`} kind="dashpot" readOnly={readOnly} compact />
                   {readOnly ? null : (
                     <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs" disabled={(values.impedance.springs ?? []).length <= 3} onClick={() => arr.remove(i)} aria-label={`Remove spring ${i + 1}`}>
                       Remove

@@ -8,6 +8,7 @@ const verdictTag: Record<CheckVerdict, string> = {
   pass: "bg-moss-100 text-moss-700",
   fail: "bg-brick-100 text-brick-700",
   accepted: "bg-ochre-100 text-ochre-700",
+  "not-applicable": "bg-grout-100 text-basalt-600",
 };
 
 /**

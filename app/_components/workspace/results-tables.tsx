@@ -16,6 +16,7 @@ const verdictTag: Record<ReturnType<typeof checkVerdict>, string> = {
   pass: "bg-moss-100 text-moss-700",
   fail: "bg-brick-100 text-brick-700",
   accepted: "bg-ochre-100 text-ochre-700",
+  "not-applicable": "bg-grout-100 text-basalt-600",
 };
 
 /**
@@ -28,14 +29,20 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
   const sorted = sortChecksGoverningFirst(result.checks);
   const failing = sorted.filter((c) => !c.pass).length;
   const accepted = sorted.filter((c) => checkVerdict(c) === "accepted").length;
+  const notApplicable = sorted.filter((c) => c.notApplicable).length;
+  const applicable = sorted.length - notApplicable;
+  const naText = notApplicable ? `; ${notApplicable} not applicable to this support, shown for information` : "";
   return (
     <div>
       <p className="mb-2 text-sm" data-testid="checks-summary">
         {failing === 0 ? (
-          <span className="tag bg-moss-100 text-moss-700">all {sorted.length} checks pass</span>
+          <span className="tag bg-moss-100 text-moss-700">
+            all {applicable} checks pass{naText}
+          </span>
         ) : (
           <span className="tag bg-brick-100 text-brick-700">
-            {failing} of {sorted.length} checks fail{accepted ? `, ${accepted} of them accepted with justification` : ""}
+            {failing} of {applicable} checks fail{accepted ? `, ${accepted} of them accepted with justification` : ""}
+            {naText}
           </span>
         )}
       </p>
@@ -69,6 +76,11 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
                     {c.acceptance ? (
                       <p className="mt-1 max-w-xs text-2xs text-ochre-700" data-testid="acceptance-text">
                         {c.acceptance.justification}
+                      </p>
+                    ) : null}
+                    {c.notApplicable ? (
+                      <p className="mt-1 max-w-xs text-2xs text-basalt-600" data-testid="not-applicable-reason">
+                        {c.notApplicable.reason}
                       </p>
                     ) : null}
                     {acceptanceEditor ? acceptanceEditor(c) : null}
@@ -306,6 +318,12 @@ function SpringsTable({ springs }: { springs: NonNullable<AnalysisResult["spring
         Static deflection W / Σkz: {u.toResultText("length", springs.staticDeflection)} {u.unitLabel("length")} · vertical isolator frequency {u.toResultText("frequency", springs.verticalFrequencyHz)}{" "}
         {u.unitLabel("frequency")} (ζ {sig(springs.verticalDampingRatio * 100)} %) · highest natural frequency {u.toResultText("frequency", springs.highestNaturalFrequencyHz)} {u.unitLabel("frequency")}
       </p>
+      {springs.staticLoads?.length ? (
+        <p className="text-xs" data-testid="spring-static-loads">
+          Static load per spring (rigid block on the springs, statics):{" "}
+          {springs.staticLoads.map((f, i) => `${i + 1}: ${u.toResultText("force", f)} ${u.unitLabel("force")}`).join(" · ")}
+        </p>
+      ) : null}
       <table>
         <thead>
           <tr>

@@ -297,8 +297,9 @@ export function expectRevisionNumbers(wb: ExcelJS.Workbook, input: AnalysisInput
       expectNumber(t, i, "Value", c.value, c.key ?? c.label);
       expectNumber(t, i, "Limit", c.limit, c.key ?? c.label);
       // a band failure accepted with a justification still reads as a failure, with the text beside it
-      expect(cellOf(t, i, "Verdict")).toBe(c.pass ? "pass" : c.acceptance ? "FAIL, accepted with justification" : "FAIL");
-      expect(cellOf(t, i, "Justification") ?? null).toBe(c.acceptance?.justification ?? null);
+      // a check not applicable to the support (bearing pressure under springs or piles) says so, with its reason
+      expect(cellOf(t, i, "Verdict")).toBe(c.notApplicable ? "not applicable (for information)" : c.pass ? "pass" : c.acceptance ? "FAIL, accepted with justification" : "FAIL");
+      expect(cellOf(t, i, "Justification") ?? null).toBe(c.acceptance?.justification ?? c.notApplicable?.reason ?? null);
       // the row names its source by key; the sources table quotes it once
       const key = cellOf(t, i, "Source");
       const quoted = sources.rows.find((r) => r[0] === key)?.[1];

@@ -6,6 +6,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
 import { formFromDraftDocument, formFromInput, toInputDocument } from "@/modules/desk/draft-form";
+import { springsOf } from "@/modules/desk/spring-layout";
 
 const read = (name: string) => JSON.parse(readFileSync(path.join(process.cwd(), "examples", `${name}.json`), "utf8")) as AnalysisInputDocument;
 
@@ -35,5 +36,23 @@ describe("the design form keeps the springs", () => {
     const b = parsed(withDampers);
     expect(parsed(toInputDocument(formFromInput(b)))).toEqual(b);
     expect(parsed(toInputDocument(formFromDraftDocument(JSON.parse(JSON.stringify(withDampers)))))).toEqual(b);
+  });
+});
+
+describe("the springs the drawing shows (modules/desk/spring-layout.ts)", () => {
+  it("every spring with a complete position, numbered by its table row, with its damper; blank rows left out", () => {
+    const form = formFromInput(parsed(read("fan-on-springs")));
+    const rows = form.impedance.springs!;
+    rows[1] = { ...rows[1]!, cz: 2000 };
+    rows[2] = { ...rows[2]!, x: null };
+    const drawn = springsOf(form)!;
+    expect(drawn.map((s) => s.n)).toEqual([1, 2, 4]);
+    expect(drawn.map((s) => s.damper)).toEqual([false, true, false]);
+    expect(drawn[2]).toMatchObject({ x: 1.3, y: 0.8, kz: 4e5, kh: 3e5 });
+  });
+  it("nothing to draw for another method or an empty table", () => {
+    const form = formFromInput(parsed(read("fan-on-springs")));
+    expect(springsOf({ ...form, impedance: { ...form.impedance, method: "gazetas" } })).toBeNull();
+    expect(springsOf({ ...form, impedance: { ...form.impedance, springs: [] } })).toBeNull();
   });
 });
