@@ -240,7 +240,8 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
               </ul>
             </div>
           ) : null}
-          {result ? <Results result={result} stale={stale} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
+          {result && stale ? <StaleNote /> : null}
+          {result ? <Results result={result} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
         </div>
       </div>
     </div>
@@ -257,6 +258,15 @@ function EngineNotice() {
   ) : null;
 }
 
+/** Outside the memoised results, so a keystroke that makes them stale does not re-render them. */
+function StaleNote() {
+  return (
+    <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="stale-note">
+      These results belong to earlier inputs; new ones are on the way or the inputs are incomplete.
+    </p>
+  );
+}
+
 /**
  * The results column. Memoised: a keystroke's own render (the form) leaves it alone, and only
  * the run's answer re-renders it. The frequency plots follow one deferred render later
@@ -264,16 +274,11 @@ function EngineNotice() {
  * scales, paths and the hover mesh over every sweep point) are drawn in an interruptible render
  * after them, so the typing measure (input-timing.ts) ends when the tables are painted.
  */
-const Results = memo(function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: boolean; readOnly: boolean }) {
+const Results = memo(function Results({ result, readOnly }: { result: AnalysisResult; readOnly: boolean }) {
   const plotted = useDeferredValue(result);
   const acceptanceEditor = useCallback((c: CheckResult) => <AcceptanceEditor check={c} />, []);
   return (
     <>
-      {stale ? (
-        <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="stale-note">
-          These results belong to earlier inputs; new ones are on the way or the inputs are incomplete.
-        </p>
-      ) : null}
       <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
         <ChecksTable result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
       </Panel>
