@@ -62,6 +62,14 @@ const MethodSectionM = memo(MethodSection);
 const MatSizingSectionM = memo(MatSizingSection);
 const SpeedRampsSectionM = memo(SpeedRampsSection);
 const BlockDrawingM = memo(BlockDrawing);
+// and the result tables out of the deferred render that brings the plots up to date
+const ChecksTableM = memo(ChecksTable);
+const ModesTableM = memo(ModesTable);
+const ResponseTableM = memo(ResponseTable);
+const CombinedResponseTableM = memo(CombinedResponseTable);
+const MassTableM = memo(MassTable);
+const ImpedanceTableM = memo(ImpedanceTable);
+const CrossCheckTableM = memo(CrossCheckTable);
 
 function issuesByField(issues: CalcIssue[], method: DraftForm["impedance"]["method"]): Record<string, string> {
   const out: Record<string, string> = {};
@@ -91,6 +99,10 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   // Datums on the block and the vendor's figures: saved beside the input, never in it.
   const placements = useMemo(() => placementsFromForm(values), [values]);
   const { result, error, stale, pending } = useCalculation(document, true);
+  // The plots' (and speed ramps') copy of the result: one interruptible render behind the tables
+  // (see Results). Until it catches up the badge says "recalculating…", not "results current".
+  const plotted = useDeferredValue(result);
+  const plotsBehind = plotted !== result;
   const formatLength = useCallback((m: number) => `${units.toDisplayText("length", m)} ${units.unitLabel("length")}`, [units]);
   const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues, values.impedance.method) }), [setStatus, values.impedance.method]);
   const saver = useDraftSave({
@@ -131,7 +143,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     saver.acceptStored(storedBody);
   };
 
-  const calcState = error && !pending ? "error" : stale ? "stale" : "fresh";
+  const calcState = error && !pending ? "error" : stale || plotsBehind ? "stale" : "fresh";
 
   return (
     <div className="space-y-4" ref={rootRef}>
@@ -146,7 +158,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           data-testid="calc-state"
           data-state={calcState}
         >
-          {calcState === "fresh" ? "results current" : calcState === "stale" ? (pending ? "recalculating…" : "results out of date") : "inputs incomplete"}
+          {calcState === "fresh" ? "results current" : calcState === "stale" ? (pending || plotsBehind ? "recalculating…" : "results out of date") : "inputs incomplete"}
         </span>
         {props.readOnly ? null : (
           <>
@@ -221,7 +233,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           <Panel title="Size the base mat" id="sizing" aside={<span className="text-2xs text-basalt-400">smallest passing block first</span>}>
             <MatSizingSectionM readOnly={props.readOnly} document={document} toDocument={toDocument} />
           </Panel>
-          <SpeedRampsSectionM readOnly={props.readOnly} result={result} stale={stale} />
+          <SpeedRampsSectionM readOnly={props.readOnly} result={plotted} stale={stale} />
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
           <Cautions />
@@ -241,7 +253,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
             </div>
           ) : null}
           {result && stale ? <StaleNote /> : null}
-          {result ? <Results result={result} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
+          {result ? <Results result={result} plotted={plotted ?? result} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
         </div>
       </div>
     </div>
@@ -269,18 +281,17 @@ function StaleNote() {
 
 /**
  * The results column. Memoised: a keystroke's own render (the form) leaves it alone, and only
- * the run's answer re-renders it. The frequency plots follow one deferred render later
+ * the run's answer re-renders it. The frequency plots get `plotted`, the Desk's deferred copy
  * (useDeferredValue): the verdicts, tables and the summary paint first, and the charts (nivo:
  * scales, paths and the hover mesh over every sweep point) are drawn in an interruptible render
  * after them, so the typing measure (input-timing.ts) ends when the tables are painted.
  */
-const Results = memo(function Results({ result, readOnly }: { result: AnalysisResult; readOnly: boolean }) {
-  const plotted = useDeferredValue(result);
+const Results = memo(function Results({ result, plotted, readOnly }: { result: AnalysisResult; plotted: AnalysisResult; readOnly: boolean }) {
   const acceptanceEditor = useCallback((c: CheckResult) => <AcceptanceEditor check={c} />, []);
   return (
     <>
       <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
-        <ChecksTable result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
+        <ChecksTableM result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
       </Panel>
       {result.warnings.length ? (
         <Panel title="Method warnings" id="warnings">
@@ -292,23 +303,23 @@ const Results = memo(function Results({ result, readOnly }: { result: AnalysisRe
         </Panel>
       ) : null}
       <Panel title="Natural frequencies and frequency ratios" id="modes">
-        <ModesTable result={result} />
+        <ModesTableM result={result} />
       </Panel>
       <Panel title="Response against frequency" id="plots">
         <ResponsePlots result={plotted} />
       </Panel>
       <Panel title="Amplitudes at rated speed" id="response">
-        <ResponseTable result={result} />
-        <CombinedResponseTable result={result} />
+        <ResponseTableM result={result} />
+        <CombinedResponseTableM result={result} />
       </Panel>
       <Panel title="Mass and block rules" id="mass">
-        <MassTable result={result} />
+        <MassTableM result={result} />
       </Panel>
       <Panel title="Soil springs and damping" id="impedance">
-        <ImpedanceTable result={result} />
+        <ImpedanceTableM result={result} />
       </Panel>
       <Panel title="Closed-form cross-check" id="crosscheck">
-        <CrossCheckTable result={result} />
+        <CrossCheckTableM result={result} />
       </Panel>
       <p className="text-right text-2xs text-basalt-400">engine {result.engineVersion} · contract v{result.schemaVersion}</p>
     </>
