@@ -45,9 +45,23 @@ export function formatSignificant(value: number, options: SignificantOptions = {
     const [mantissa = "", exponent = "0"] = value.toExponential(digits - 1).split("e");
     return `${mantissa}e${Number(exponent)}`;
   }
-  const decimals = significantDecimals(value, digits);
-  const text = value.toLocaleString("en-US", { minimumFractionDigits: decimals, maximumFractionDigits: decimals, useGrouping: options.grouping ?? true });
-  return text;
+  return fixedFormatter(significantDecimals(value, digits), options.grouping ?? true).format(value);
+}
+
+// ECMA-402 defines Number.prototype.toLocaleString(locales, options) as formatting with a new
+// Intl.NumberFormat(locales, options): the same text, but building the formatter on every call
+// cost ~0.1 ms each, a workspace keystroke formats thousands of figures (issue 15), so one
+// formatter per (decimals, grouping) is kept.
+const fixedFormatters = new Map<string, Intl.NumberFormat>();
+/** The en-US formatter with exactly `decimals` fraction digits (shared, built once per kind). */
+export function fixedFormatter(decimals: number, grouping: boolean): Intl.NumberFormat {
+  const key = `${decimals}:${grouping ? 1 : 0}`;
+  let f = fixedFormatters.get(key);
+  if (!f) {
+    f = new Intl.NumberFormat("en-US", { minimumFractionDigits: decimals, maximumFractionDigits: decimals, useGrouping: grouping });
+    fixedFormatters.set(key, f);
+  }
+  return f;
 }
 
 /**

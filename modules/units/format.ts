@@ -2,6 +2,7 @@
 // (a number, optionally followed by any unit the kind accepts, or feet and inches).
 import { convertValue, fromDisplay, toDisplay } from "./convert";
 import { quantityKinds, type QuantityKindKey, type UnitSystemKey } from "./quantity-kinds";
+import { fixedFormatter } from "./format-number";
 import { foot, inch } from "./unit-definitions";
 
 export interface FormatOptions {
@@ -20,7 +21,7 @@ export function formatNumber(value: number, decimals: number, grouping = true): 
   const rounded = tiny ? Number(value.toPrecision(3)) : value;
   const digits = tiny ? Math.max(decimals, 3 - 1 - Math.floor(Math.log10(Math.abs(value)))) : decimals;
   // "en-US" pins the decimal point, so what is shown can be typed back in.
-  const text = rounded.toLocaleString("en-US", { minimumFractionDigits: digits, maximumFractionDigits: digits, useGrouping: grouping });
+  const text = fixedFormatter(digits, grouping).format(rounded);
   return text === "-0" || /^-0\.0*$/.test(text) ? text.slice(1) : text;
 }
 

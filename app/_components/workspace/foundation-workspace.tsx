@@ -1,8 +1,8 @@
 "use client";
 
 import { Formik, useFormikContext } from "formik";
-import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
-import type { AnalysisResult } from "@/modules/calc";
+import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
+import type { AnalysisResult, CheckResult } from "@/modules/calc";
 import { draftFormSchema, formCompleteness, formFieldOfIssue, formFromDraftDocument, placementsFromForm, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
 import { withProjectDefaults, type ProjectSettings } from "@/modules/desk/project-settings";
@@ -53,6 +53,24 @@ function Panel({ title, id, children, aside }: { title: string; id: string; chil
   );
 }
 
+// Typing cost (issue 15 item 2): the form sections read formik's context, so they re-render on
+// each change of the form anyway; memo keeps them out of the render that only brings new results.
+const BlockSectionM = memo(BlockSection);
+const SoilSectionM = memo(SoilSection);
+const MachinesSectionM = memo(MachinesSection);
+const MethodSectionM = memo(MethodSection);
+const MatSizingSectionM = memo(MatSizingSection);
+const SpeedRampsSectionM = memo(SpeedRampsSection);
+const BlockDrawingM = memo(BlockDrawing);
+// and the result tables out of the deferred render that brings the plots up to date
+const ChecksTableM = memo(ChecksTable);
+const ModesTableM = memo(ModesTable);
+const ResponseTableM = memo(ResponseTable);
+const CombinedResponseTableM = memo(CombinedResponseTable);
+const MassTableM = memo(MassTable);
+const ImpedanceTableM = memo(ImpedanceTable);
+const CrossCheckTableM = memo(CrossCheckTable);
+
 function issuesByField(issues: CalcIssue[], method: DraftForm["impedance"]["method"]): Record<string, string> {
   const out: Record<string, string> = {};
   for (const i of issues) out[formFieldOfIssue(i.path, method)] ??= i.message;
@@ -81,6 +99,11 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   // Datums on the block and the vendor's figures: saved beside the input, never in it.
   const placements = useMemo(() => placementsFromForm(values), [values]);
   const { result, error, stale, pending } = useCalculation(document, true);
+  // The plots' (and speed ramps') copy of the result: one interruptible render behind the tables
+  // (see Results). Until it catches up the badge says "recalculating…", not "results current".
+  const plotted = useDeferredValue(result);
+  const plotsBehind = plotted !== result;
+  const formatLength = useCallback((m: number) => `${units.toDisplayText("length", m)} ${units.unitLabel("length")}`, [units]);
   const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues, values.impedance.method) }), [setStatus, values.impedance.method]);
   const saver = useDraftSave({
     url: `/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`,
@@ -120,7 +143,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
     saver.acceptStored(storedBody);
   };
 
-  const calcState = error && !pending ? "error" : stale ? "stale" : "fresh";
+  const calcState = error && !pending ? "error" : stale || plotsBehind ? "stale" : "fresh";
 
   return (
     <div className="space-y-4" ref={rootRef}>
@@ -135,7 +158,7 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
           data-testid="calc-state"
           data-state={calcState}
         >
-          {calcState === "fresh" ? "results current" : calcState === "stale" ? (pending ? "recalculating…" : "results out of date") : "inputs incomplete"}
+          {calcState === "fresh" ? "results current" : calcState === "stale" ? (pending || plotsBehind ? "recalculating…" : "results out of date") : "inputs incomplete"}
         </span>
         {props.readOnly ? null : (
           <>
@@ -193,24 +216,24 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
       <div className="grid grid-cols-1 gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
         <div className="space-y-4">
           <Panel title="Block: boxes and voids" id="block">
-            <BlockSection readOnly={props.readOnly} />
+            <BlockSectionM readOnly={props.readOnly} />
             <div className="mt-4">
-              <BlockDrawing form={values} mass={result?.massProperties} formatLength={(m) => `${units.toDisplayText("length", m)} ${units.unitLabel("length")}`} />
+              <BlockDrawingM form={values} mass={result?.massProperties} formatLength={formatLength} />
             </div>
           </Panel>
           <Panel title="Ground: soil from the geotechnical report" id="soil">
-            <SoilSection readOnly={props.readOnly} />
+            <SoilSectionM readOnly={props.readOnly} />
           </Panel>
           <Panel title="Machines, rotors and bearings" id="machines">
-            <MachinesSection readOnly={props.readOnly} />
+            <MachinesSectionM readOnly={props.readOnly} />
           </Panel>
           <Panel title="Method and acceptance limits" id="method">
-            <MethodSection readOnly={props.readOnly} projectCriteria={props.projectDefaults.criteriaDefaults} />
+            <MethodSectionM readOnly={props.readOnly} projectCriteria={props.projectDefaults.criteriaDefaults} />
           </Panel>
           <Panel title="Size the base mat" id="sizing" aside={<span className="text-2xs text-basalt-400">smallest passing block first</span>}>
-            <MatSizingSection readOnly={props.readOnly} document={document} toDocument={toDocument} />
+            <MatSizingSectionM readOnly={props.readOnly} document={document} toDocument={toDocument} />
           </Panel>
-          <SpeedRampsSection readOnly={props.readOnly} result={result} stale={stale} />
+          <SpeedRampsSectionM readOnly={props.readOnly} result={plotted} stale={stale} />
         </div>
         <div className={`space-y-4 ${stale ? "opacity-80" : ""}`} aria-busy={pending} data-testid="results">
           <Cautions />
@@ -229,7 +252,8 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
               </ul>
             </div>
           ) : null}
-          {result ? <Results result={result} stale={stale} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
+          {result && stale ? <StaleNote /> : null}
+          {result ? <Results result={result} plotted={plotted ?? result} readOnly={props.readOnly} /> : !error ? <p className="text-sm text-basalt-400">Calculating…</p> : null}
         </div>
       </div>
     </div>
@@ -246,16 +270,28 @@ function EngineNotice() {
   ) : null;
 }
 
-function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: boolean; readOnly: boolean }) {
+/** Outside the memoised results, so a keystroke that makes them stale does not re-render them. */
+function StaleNote() {
+  return (
+    <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="stale-note">
+      These results belong to earlier inputs; new ones are on the way or the inputs are incomplete.
+    </p>
+  );
+}
+
+/**
+ * The results column. Memoised: a keystroke's own render (the form) leaves it alone, and only
+ * the run's answer re-renders it. The frequency plots get `plotted`, the Desk's deferred copy
+ * (useDeferredValue): the verdicts, tables and the summary paint first, and the charts (nivo:
+ * scales, paths and the hover mesh over every sweep point) are drawn in an interruptible render
+ * after them, so the typing measure (input-timing.ts) ends when the tables are painted.
+ */
+const Results = memo(function Results({ result, plotted, readOnly }: { result: AnalysisResult; plotted: AnalysisResult; readOnly: boolean }) {
+  const acceptanceEditor = useCallback((c: CheckResult) => <AcceptanceEditor check={c} />, []);
   return (
     <>
-      {stale ? (
-        <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="stale-note">
-          These results belong to earlier inputs; new ones are on the way or the inputs are incomplete.
-        </p>
-      ) : null}
       <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
-        <ChecksTable result={result} acceptanceEditor={readOnly ? undefined : (c) => <AcceptanceEditor check={c} />} />
+        <ChecksTableM result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
       </Panel>
       {result.warnings.length ? (
         <Panel title="Method warnings" id="warnings">
@@ -267,28 +303,28 @@ function Results({ result, stale, readOnly }: { result: AnalysisResult; stale: b
         </Panel>
       ) : null}
       <Panel title="Natural frequencies and frequency ratios" id="modes">
-        <ModesTable result={result} />
+        <ModesTableM result={result} />
       </Panel>
       <Panel title="Response against frequency" id="plots">
-        <ResponsePlots result={result} />
+        <ResponsePlots result={plotted} />
       </Panel>
       <Panel title="Amplitudes at rated speed" id="response">
-        <ResponseTable result={result} />
-        <CombinedResponseTable result={result} />
+        <ResponseTableM result={result} />
+        <CombinedResponseTableM result={result} />
       </Panel>
       <Panel title="Mass and block rules" id="mass">
-        <MassTable result={result} />
+        <MassTableM result={result} />
       </Panel>
       <Panel title="Soil springs and damping" id="impedance">
-        <ImpedanceTable result={result} />
+        <ImpedanceTableM result={result} />
       </Panel>
       <Panel title="Closed-form cross-check" id="crosscheck">
-        <CrossCheckTable result={result} />
+        <CrossCheckTableM result={result} />
       </Panel>
       <p className="text-right text-2xs text-basalt-400">engine {result.engineVersion} · contract v{result.schemaVersion}</p>
     </>
   );
-}
+});
 
 export function FoundationWorkspace(props: WorkspaceProps) {
   const [version, setVersion] = useState(props.initialVersion);

@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { memo, useMemo, useState } from "react";
 import type { AnalysisResult } from "@/modules/calc";
 import { cutoffMarkers } from "@/modules/desk/soil-factors";
 import { Explain } from "./explain";
@@ -64,7 +64,8 @@ function Plot({ series, bands, yLabel, testId }: { series: Series[]; bands: Band
 
 const dofWords: Record<string, string> = { x: "sliding along x", y: "sliding along y", z: "vertical", rx: "rocking about x", ry: "rocking about y", rz: "torsion about z" };
 
-export function ResponsePlots({ result }: { result: AnalysisResult }) {
+/** Memoised: it re-renders only for a new result (the workspace hands it a deferred one, see foundation-workspace.tsx). */
+export const ResponsePlots = memo(function ResponsePlots({ result }: { result: AnalysisResult }) {
   const u = useUnits();
   const sw = result.sweep;
   const options = useMemo(() => {
@@ -142,4 +143,4 @@ export function ResponsePlots({ result }: { result: AnalysisResult }) {
       />
     </div>
   );
-}
+});

@@ -1,5 +1,6 @@
 "use client";
 
+import { memo } from "react";
 import { CHECK_VERDICT_LABELS, type AnalysisResult, type CheckVerdict } from "@/modules/calc";
 import { summariseResults } from "@/modules/desk/results-summary";
 import { formatSignificant as sig } from "@/modules/units";
@@ -16,7 +17,7 @@ const verdictTag: Record<CheckVerdict, string> = {
  * on a phone): governing check and verdict, frequencies and ratios, the soil band, and whether
  * the figures belong to the inputs as they stand. Each part links to its full section.
  */
-export function ResultsSummaryBar({ result, stale, pending, hasError }: { result: AnalysisResult | null; stale: boolean; pending: boolean; hasError: boolean }) {
+export const ResultsSummaryBar = memo(function ResultsSummaryBar({ result, stale, pending, hasError }: { result: AnalysisResult | null; stale: boolean; pending: boolean; hasError: boolean }) {
   const s = result ? summariseResults(result) : null;
   const state = !result ? (hasError ? "incomplete" : "calculating") : stale ? "stale" : "current";
   const stateText = { current: "current: follows the inputs", stale: pending ? "stale: recalculating" : "stale: earlier inputs", calculating: "calculating…", incomplete: "no results: inputs incomplete" }[state];
@@ -69,4 +70,4 @@ export function ResultsSummaryBar({ result, stale, pending, hasError }: { result
       ) : null}
     </section>
   );
-}
+});

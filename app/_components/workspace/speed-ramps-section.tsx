@@ -2,7 +2,7 @@
 
 import { ResponsiveLine, type LineCustomSvgLayerProps, type LineSeries, type PointTooltipProps } from "@nivo/line";
 import { FieldArray, getIn, useFormikContext } from "formik";
-import { useId, useMemo, useState } from "react";
+import { memo, useId, useMemo, useState } from "react";
 import { TRANSIENT_LIMITS, type AnalysisResult, type TransientResult } from "@/modules/calc";
 import { newTransientRun, placementsFromForm, runRotorChoices, type DraftForm, type RunRotorChoice, type TransientRunForm } from "@/modules/desk/draft-form";
 import { rampDurationFor, runDurationSource } from "@/modules/desk/machine-placements";
@@ -563,9 +563,14 @@ export function SpeedRampResults({ result }: { result: AnalysisResult }) {
   );
 }
 
+const SpeedRampResultsM = memo(SpeedRampResults);
+
 /**
  * The workspace's speed-ramp section: the designer defines start-up and coast-down runs per
- * rotor; the runs' results follow. Read-only members see the runs and their results.
+ * rotor; the runs' results follow. Read-only members see the runs and their results. The
+ * workspace passes its deferred copy of the result (foundation-workspace.tsx): while typing,
+ * each keystroke's result carries the last runs (stale until typing pauses), and their plots
+ * (thousands of Newmark points each) are redrawn after the results column has painted.
  */
 export function SpeedRampsSection({ readOnly, result, stale }: { readOnly: boolean; result: AnalysisResult | undefined; stale: boolean }) {
   const { values } = useFormikContext<DraftForm>();
@@ -588,7 +593,7 @@ export function SpeedRampsSection({ readOnly, result, stale }: { readOnly: boole
       {asked > 0 ? (
         <div className={`mt-4 space-y-3 ${stale ? "opacity-80" : ""}`}>
           {stale && result ? <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700">These runs belong to earlier inputs; new ones are on the way or the inputs are incomplete.</p> : null}
-          {result?.transient?.length ? <SpeedRampResults result={result} /> : <p className="text-sm text-basalt-400">The runs are computed once the inputs can be analysed.</p>}
+          {result?.transient?.length ? <SpeedRampResultsM result={result} /> : <p className="text-sm text-basalt-400">The runs are computed once the inputs can be analysed.</p>}
         </div>
       ) : null}
     </section>

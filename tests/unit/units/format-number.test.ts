@@ -1,7 +1,7 @@
 // The one number formatter (issue 14 item 2): engineering significant figures on known values,
 // and the Excel format that shows the same figures in a workbook cell.
 import { describe, expect, it } from "vitest";
-import { formatSignificant, significantExcelFormat } from "@/modules/units";
+import { formatSignificant, significantDecimals, significantExcelFormat } from "@/modules/units";
 
 describe("formatSignificant", () => {
   it.each([
@@ -42,5 +42,21 @@ describe("significantExcelFormat", () => {
     expect(significantExcelFormat(12345.6)).toBe("#,##0");
     expect(significantExcelFormat(8.49675e-7)).toBe("0.00E+00");
     expect(significantExcelFormat(0)).toBe("0");
+  });
+});
+
+describe("formatSignificant with kept formatters (issue 15)", () => {
+  it("reads exactly as Number.prototype.toLocaleString with the same options", () => {
+    // ECMA-402: toLocaleString(locales, options) formats with a new Intl.NumberFormat(locales, options).
+    const values = [0.001, 0.00423, 0.0999, 0.1, 1, 3.5, 9.995, 12.3456, 999.5, 12345.6, 999_499, -0.0421, -87.65, 2.675, 1.005];
+    for (const v of values) {
+      for (const digits of [3, 4] as const) {
+        const decimals = significantDecimals(v, digits);
+        for (const grouping of [true, false]) {
+          const direct = v.toLocaleString("en-US", { minimumFractionDigits: decimals, maximumFractionDigits: decimals, useGrouping: grouping });
+          expect(formatSignificant(v, { digits, grouping })).toBe(direct);
+        }
+      }
+    }
   });
 });
