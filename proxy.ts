@@ -18,6 +18,11 @@ export function proxy(request: NextRequest): Response {
     { scriptHashes: prerendered ? prerenderedScriptHashes(prerendered) : null },
   );
   if (decision.kind === "refuse") return decision.response;
+  // The rewrite stays inside the server only when the server was started with -H localhost (or
+  // no -H): Next turns a loopback address in a proxy's URL into "localhost" but resolves
+  // rewrites against the -H address as given, so under -H 127.0.0.1 this rewrite became an HTTP
+  // proxy to the server itself (now and then "socket hang up"; a 500 behind TLS with
+  // X-Forwarded-Proto: https). The project's scripts start it with -H localhost.
   const response =
     prerendered && prerendered !== pathname
       ? NextResponse.rewrite(new URL(prerendered, request.url), { request: { headers: decision.requestHeaders } })

@@ -115,7 +115,7 @@ export interface BenchServer {
 }
 
 function spawnNextStart(root: string, port: number, env: NodeJS.ProcessEnv): ChildProcess {
-  return spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "127.0.0.1", "-p", String(port)], { env, stdio: "ignore", detached: true });
+  return spawn(path.join(root, "node_modules/.bin/next"), ["start", "-H", "localhost", "-p", String(port)], { env, stdio: "ignore", detached: true });
 }
 
 export interface BenchServerOptions {

@@ -30,4 +30,4 @@ node_modules/.bin/tsx scripts/db-seed.mts
 log "building the production bundle"
 node_modules/.bin/next build >.local/build.log 2>&1 || { cat .local/build.log >&2; exit 1; }
 log "Plinthwise is served on http://localhost:$PORT  (demo accounts are listed in README.md and on the sign-in page)"
-node_modules/.bin/next start -H 127.0.0.1 -p "$PORT"
+node_modules/.bin/next start -H localhost -p "$PORT"

@@ -101,9 +101,9 @@ kill "$FAKE_SMTP_PID" 2>/dev/null; wait "$FAKE_SMTP_PID" 2>/dev/null || true
 fresh_database plinthwise_e2e
 start_fake_smtp "$SMTP_PORT" "$ART/fake-smtp-e2e.log"
 if node_modules/.bin/next build >"$ART/build.log" 2>&1; then
-  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT" >"$ART/server.log" 2>&1 &
+  node_modules/.bin/next start -H localhost -p "$APP_PORT" >"$ART/server.log" 2>&1 &
   SERVER_PID=$!
-  node_modules/.bin/next start -H 127.0.0.1 -p "$APP_PORT_2" >"$ART/server-2.log" 2>&1 &
+  node_modules/.bin/next start -H localhost -p "$APP_PORT_2" >"$ART/server-2.log" 2>&1 &
   SERVER_2_PID=$!
   if wait_for_port 127.0.0.1 "$APP_PORT" 60 && wait_for_port 127.0.0.1 "$APP_PORT_2" 60; then
     start_balancer
