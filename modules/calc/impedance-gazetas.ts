@@ -136,6 +136,20 @@ export function gazetasDynamicMultipliers(a0: number, aspect = 1, nu = 0.3, vari
 }
 
 /**
+ * Vertical dynamic stiffness multiplier of the embedded base over the surface base's k_z(a0),
+ * Gazetas (1991) Table 2 (recalled; the same forms are stated by eng-tools/geofound,
+ * calc_vert_via_gazetas_1991): fully embedded (sidewall contact over the whole depth)
+ * 1 - 0.09 (D/B)^(3/4) a0^2, in a trench (no sidewall contact) 1 + 0.09 (D/B)^(3/4) a0^2, linear
+ * in d/D between (as geofound interpolates). B is the half-width. 1 at the surface (D = 0).
+ */
+export function gazetasEmbeddedVerticalFactor(a0: number, D: number, B: number, d: number): number {
+  if (!(D > 0)) return 1;
+  const t = 0.09 * (D / B) ** 0.75 * a0 * a0;
+  const contact = Math.min(Math.max(d / D, 0), 1);
+  return 1 + t - 2 * t * contact;
+}
+
+/**
  * Radiation dashpot coefficients c(a0) of the surface base, C = rho V A c.
  * "published" (default): c_z, c_y, c_rx, c_ry, c_t read from Gazetas' (1991) Table 1 graphs
  * (gazetas-charts.ts; c_z between its nu <= 0.4 and nu -> 0.5 graphs), c_x = 1 (Gazetas gives
@@ -294,7 +308,7 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
   if (D > 0) {
     warnings.push(
       variant !== "simplified"
-        ? "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory) and adds the sidewall dashpots of Table 2 for x, y, z, rx, ry (no torsion wall term; the embedded dynamic multipliers are those of the surface base)."
+        ? "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory) and adds the sidewall dashpots of Table 2 for x, y, z, rx, ry (no torsion wall term); the vertical dynamic multiplier is the surface k_z times Table 2's embedded factor 1 - 0.09 (D/B)^(3/4) a0^2 with the sidewall in contact, 1 + 0.09 (D/B)^(3/4) a0^2 in a trench, linear in d/D between; the other multipliers are those of the surface base."
         : "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory); the dashpots are taken as those of the surface base (sidewall radiation ignored).",
     );
   }
@@ -328,6 +342,8 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
     evaluate(omega, k, c) {
       const a0 = (omega * base.B) / Vs;
       const mult = gazetasDynamicMultipliers(a0, aspect, nu, variant);
+      // embedded base: Gazetas' Table 2 vertical factor on the surface k_z (floored like the others)
+      if (D > 0 && variant !== "simplified") mult.z = Math.max(mult.z * gazetasEmbeddedVerticalFactor(a0, D, base.B, d), GAZETAS_MULTIPLIER_FLOOR);
       const coef = gazetasRadiationCoefficients(a0, aspect, variant, nu);
       const wall = variant !== "simplified" ? gazetasSidewallDashpots(rho, Vs, nu, base, D, d, a0) : undefined;
       const hz = omega / (2 * Math.PI);

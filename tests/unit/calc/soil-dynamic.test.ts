@@ -5,6 +5,7 @@ import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput } from "@/modules/calc";
 import {
   gazetasDynamicMultipliers,
+  gazetasEmbeddedVerticalFactor,
   gazetasEmbedmentFactors,
   gazetasRadiationCoefficients,
   gazetasRyEmbedmentAlternatives,
@@ -132,6 +133,25 @@ describe("published coefficients in the analysis", () => {
     expect(relClose(emb.impedance.dashpot!.z - surf.impedance.dashpot!.z, wall, 1e-9)).toBe(true);
     expect(emb.impedance.dashpot!.rx).toBeGreaterThan(surf.impedance.dashpot!.rx);
     expect(emb.impedance.dashpot!.x).toBeGreaterThan(surf.impedance.dashpot!.x);
+  });
+
+  it("an embedded base's vertical dynamic multiplier is the surface k_z times Gazetas (1991) Table 2's 1 - 0.09 (D/B)^(3/4) a0^2 (sidewall in contact), 1 + 0.09 (D/B)^(3/4) a0^2 (trench), linear in d/D between", () => {
+    // hand values of the Table 2 forms (recalled; the same forms in geofound calc_vert_via_gazetas_1991)
+    expect(gazetasEmbeddedVerticalFactor(1, 1.5, 1.5, 1.5)).toBeCloseTo(0.91, 12);
+    expect(gazetasEmbeddedVerticalFactor(1, 1.5, 1.5, 0)).toBeCloseTo(1.09, 12);
+    expect(gazetasEmbeddedVerticalFactor(0.5, 1, 1.5, 0.5)).toBeCloseTo(1, 12);
+    expect(gazetasEmbeddedVerticalFactor(2, 0, 1.5, 0)).toBe(1);
+    // in the analysis: K_z(w1) / K_z(0) of the embedded base over that of the surface base
+    const surf = run(base);
+    const D = 1;
+    const d = 0.8;
+    const emb = run(withSoil(base, { embedmentDepth: D, sidewallContactHeight: d }));
+    const a0 = (2 * Math.PI * (1500 / 60) * 1.5) / VS;
+    const factor = 1 + 0.09 * (D / 1.5) ** 0.75 * a0 * a0 * (1 - 2 * (d / D));
+    const ratioSurf = surf.impedance.stiffness.z / surf.impedance.staticStiffness.z;
+    const ratioEmb = emb.impedance.stiffness.z / emb.impedance.staticStiffness.z;
+    expect(relClose(ratioEmb / ratioSurf, factor, 1e-9)).toBe(true);
+    expect(factor).toBeLessThan(1);
   });
 
   it("sidewall dashpots: compression walls at V_La, shear walls at Vs, rocking c1 = 0.25 + 0.65 sqrt(a0) (d/D)^(-a0/2) (D/B)^(-1/4)", () => {
