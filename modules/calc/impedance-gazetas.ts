@@ -141,10 +141,13 @@ export function gazetasDynamicMultipliers(a0: number, aspect = 1, nu = 0.3, vari
  * calc_vert_via_gazetas_1991): fully embedded (sidewall contact over the whole depth)
  * 1 - 0.09 (D/B)^(3/4) a0^2, in a trench (no sidewall contact) 1 + 0.09 (D/B)^(3/4) a0^2, linear
  * in d/D between (as geofound interpolates). B is the half-width. 1 at the surface (D = 0).
+ * Held at a0 = 2 beyond (CHART_A0_MAX, where the charts are held too): the quadratic fit is not
+ * extrapolated past the range it was drawn for.
  */
 export function gazetasEmbeddedVerticalFactor(a0: number, D: number, B: number, d: number): number {
   if (!(D > 0)) return 1;
-  const t = 0.09 * (D / B) ** 0.75 * a0 * a0;
+  const a = Math.min(a0, CHART_A0_MAX);
+  const t = 0.09 * (D / B) ** 0.75 * a * a;
   const contact = Math.min(Math.max(d / D, 0), 1);
   return 1 + t - 2 * t * contact;
 }
@@ -207,21 +210,24 @@ export function gazetasDashpots(rho: number, Vs: number, nu: number, b: GazetasB
  *   walls, parallel to the motion) and the compression walls A_wc = 4 L d; along x the other way;
  * - rocking about x: rho V_La I_wce c1, I_wce = 4 L d^3 / 3 (the two long walls, 2L wide, about
  *   the base axis), c1 = 0.25 + 0.65 sqrt(a0) (d/D)^(-a0/2) (D/B)^(-1/4); about y: I_wce =
- *   4 B d^3 / 3 and (D/L)^(-1/4). The shear walls' rocking term and a torsion wall term are NOT
+ *   4 B d^3 / 3 and (D/L)^(-1/4); c1 held at a0 = 2 beyond (the charts' range). The shear walls' rocking term and a torsion wall term are NOT
  *   added (less damping than the paper: the safe side; stated in CONVENTIONS.md).
  */
 export function gazetasSidewallDashpots(rho: number, Vs: number, nu: number, b: GazetasBase, D: number, d: number, a0: number): GazetasStiffness {
   if (!(d > 0 && D > 0)) return { x: 0, y: 0, z: 0, rx: 0, ry: 0, t: 0 };
   const { L, B } = b;
   const vla = lysmerAnalogVelocity(Vs, nu);
-  // I_wce c1 in log form: (d/D)^(-a0/2) alone overflows for a thin wall at high a0, while the
-  // product with I_wce ~ d^3 stays small.
-  // For a wall far thinner than the embedment the factor (d/D)^(-a0/2) grows without bound at
-  // high a0 (outside the charts' range) and can overflow; an overflowing frequency term is
-  // dropped, leaving 0.25 I (less damping: the safe side), so the solver never sees Infinity.
+  // c1 is held at its value at the charts' largest a0 (CHART_A0_MAX = 2) beyond it, as the
+  // charts' coefficients are (engine 1.9.0): for a wall far thinner than the embedment
+  // I_wce (d/D)^(-a0/2) ~ d^(3 - a0/2) grows without bound once a0 passes 6, which gave
+  // dashpots of 1e288 and a singular solve (found by the property test); held, it is at most
+  // ~ d^2 D, and the damping beyond a0 = 2 is never more than the paper's (the safe side).
+  // I_wce c1 in log form: (d/D)^(-a/2) alone can overflow while the product with I_wce stays
+  // small; a term that still overflows is dropped, leaving 0.25 I (less damping).
+  const a = Math.min(a0, CHART_A0_MAX);
   const wallTerm = (I: number, span: number) => {
     if (I === 0) return 0;
-    const dynamic = 0.65 * Math.sqrt(a0) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a0 / 2) * Math.log(d / D));
+    const dynamic = 0.65 * Math.sqrt(a) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a / 2) * Math.log(d / D));
     return 0.25 * I + (Number.isFinite(dynamic) ? dynamic : 0);
   };
   return {
