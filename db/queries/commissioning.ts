@@ -5,6 +5,7 @@ import { and, desc, eq, inArray, isNull } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { getDb } from "../client";
 import {
+  auditEvents,
   companies,
   foundations,
   measurementRecords,
@@ -20,7 +21,6 @@ import type { AnalysisInput, AnalysisResult } from "@/modules/calc";
 import { AppError } from "@/modules/platform/errors";
 import { verdictsWithoutDesignSide } from "@/modules/desk/measurement-view";
 import { roleAllows, type ProjectPermission } from "@/modules/platform/permissions";
-import { recordAuditEvent } from "./audit";
 import { storeFile } from "./files";
 import { getMembership, type Actor, type Membership } from "./projects";
 
@@ -309,33 +309,24 @@ export async function createMeasurementRecord(actor: Actor, scope: Commissioning
       await tx.update(foundations).set({ soilFlag: null, updatedAt: new Date() }).where(eq(foundations.id, locked.id));
       flagCleared = true;
     }
-    return { record, flagRaised, flagCleared };
-  });
-  await recordAuditEvent({
-    projectId,
-    actorId: actor.userId,
-    action: "measurement.recorded",
-    detail: {
+    // the audit entries in the same transaction: a stored record always has its entry, and a
+    // failed write leaves neither
+    const audit = (action: string, detail: Record<string, unknown>) => tx.insert(auditEvents).values({ projectId, actorId: actor.userId, action, detail });
+    await audit("measurement.recorded", {
       foundationId: scope.foundation.id,
       revisionId: scope.revision.id,
       label: scope.revision.label,
-      recordId: result.record.id,
-      kind: result.record.kind,
-      sha256: result.record.sha256,
-      supersedesId: result.record.supersedesId,
-    },
-  });
-  if (result.flagRaised) {
-    await recordAuditEvent({
-      projectId,
-      actorId: actor.userId,
-      action: "foundation.soil-flag-raised",
-      detail: { foundationId: scope.foundation.id, recordId: result.record.id, fittedShearModulus: result.flagRaised.fittedShearModulus, side: result.flagRaised.side },
+      recordId: record.id,
+      kind: record.kind,
+      sha256: record.sha256,
+      supersedesId: record.supersedesId,
     });
-  }
-  if (result.flagCleared) {
-    await recordAuditEvent({ projectId, actorId: actor.userId, action: "foundation.soil-flag-cleared", detail: { foundationId: scope.foundation.id, recordId: result.record.id } });
-  }
+    if (flagRaised) {
+      await audit("foundation.soil-flag-raised", { foundationId: scope.foundation.id, recordId: record.id, fittedShearModulus: flagRaised.fittedShearModulus, side: flagRaised.side });
+    }
+    if (flagCleared) await audit("foundation.soil-flag-cleared", { foundationId: scope.foundation.id, recordId: record.id });
+    return { record, flagRaised, flagCleared };
+  });
   return result;
 }
 

@@ -8,6 +8,7 @@ import { roleAllows, type ProjectPermission, type ProjectRole } from "@/modules/
 import { isAppError } from "@/modules/platform/errors";
 import type { GoverningSource } from "@/modules/desk/foundation-summary";
 import type { OpenFieldComment as OpenFieldCommentShown } from "@/modules/desk/review-markers";
+import { readPlacements, type MachinePlacement } from "@/modules/desk/machine-placements";
 import { getMembership, type Actor } from "./projects";
 import { assertFoundationActive } from "./foundations";
 
@@ -47,6 +48,8 @@ export interface RevisionDetail extends RevisionSummary {
   // written (issueRevision parses and analyses), so the stored JSON has these types.
   input: AnalysisInput;
   result: AnalysisResult;
+  /** The machines' datums and vendor figures at issue ([] before they were kept). */
+  placements: MachinePlacement[];
 }
 
 export interface RevisionComment {
@@ -175,8 +178,8 @@ async function selectSummaries(
 }
 
 /** The stored input and result of one revision. */
-async function selectRevisionBody(db: ReturnType<typeof getDb> | Tx, revisionId: string): Promise<Pick<RevisionRow, "input" | "result"> | undefined> {
-  const [row] = await db.select({ input: revisions.input, result: revisions.result }).from(revisions).where(eq(revisions.id, revisionId));
+async function selectRevisionBody(db: ReturnType<typeof getDb> | Tx, revisionId: string): Promise<Pick<RevisionRow, "input" | "result" | "machinePlacements"> | undefined> {
+  const [row] = await db.select({ input: revisions.input, result: revisions.result, machinePlacements: revisions.machinePlacements }).from(revisions).where(eq(revisions.id, revisionId));
   return row;
 }
 
@@ -195,7 +198,7 @@ export async function getRevision(actor: Actor, projectId: string, foundationId:
   if (!hit) return undefined;
   const body = await selectRevisionBody(getDb(), hit.id);
   if (!body) return undefined;
-  return { ...hit, input: body.input as AnalysisInput, result: body.result as AnalysisResult };
+  return { ...hit, input: body.input as AnalysisInput, result: body.result as AnalysisResult, placements: readPlacements(body.machinePlacements) };
 }
 
 /**

@@ -16,7 +16,7 @@ import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
-export const ENGINE_VERSION = "1.7.0";
+export const ENGINE_VERSION = "1.9.0";
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */

@@ -136,6 +136,23 @@ export function gazetasDynamicMultipliers(a0: number, aspect = 1, nu = 0.3, vari
 }
 
 /**
+ * Vertical dynamic stiffness multiplier of the embedded base over the surface base's k_z(a0),
+ * Gazetas (1991) Table 2 (recalled; the same forms are stated by eng-tools/geofound,
+ * calc_vert_via_gazetas_1991): fully embedded (sidewall contact over the whole depth)
+ * 1 - 0.09 (D/B)^(3/4) a0^2, in a trench (no sidewall contact) 1 + 0.09 (D/B)^(3/4) a0^2, linear
+ * in d/D between (as geofound interpolates). B is the half-width. 1 at the surface (D = 0).
+ * Held at a0 = 2 beyond (CHART_A0_MAX, where the charts are held too): the quadratic fit is not
+ * extrapolated past the range it was drawn for.
+ */
+export function gazetasEmbeddedVerticalFactor(a0: number, D: number, B: number, d: number): number {
+  if (!(D > 0)) return 1;
+  const a = Math.min(a0, CHART_A0_MAX);
+  const t = 0.09 * (D / B) ** 0.75 * a * a;
+  const contact = Math.min(Math.max(d / D, 0), 1);
+  return 1 + t - 2 * t * contact;
+}
+
+/**
  * Radiation dashpot coefficients c(a0) of the surface base, C = rho V A c.
  * "published" (default): c_z, c_y, c_rx, c_ry, c_t read from Gazetas' (1991) Table 1 graphs
  * (gazetas-charts.ts; c_z between its nu <= 0.4 and nu -> 0.5 graphs), c_x = 1 (Gazetas gives
@@ -193,21 +210,24 @@ export function gazetasDashpots(rho: number, Vs: number, nu: number, b: GazetasB
  *   walls, parallel to the motion) and the compression walls A_wc = 4 L d; along x the other way;
  * - rocking about x: rho V_La I_wce c1, I_wce = 4 L d^3 / 3 (the two long walls, 2L wide, about
  *   the base axis), c1 = 0.25 + 0.65 sqrt(a0) (d/D)^(-a0/2) (D/B)^(-1/4); about y: I_wce =
- *   4 B d^3 / 3 and (D/L)^(-1/4). The shear walls' rocking term and a torsion wall term are NOT
+ *   4 B d^3 / 3 and (D/L)^(-1/4); c1 held at a0 = 2 beyond (the charts' range). The shear walls' rocking term and a torsion wall term are NOT
  *   added (less damping than the paper: the safe side; stated in CONVENTIONS.md).
  */
 export function gazetasSidewallDashpots(rho: number, Vs: number, nu: number, b: GazetasBase, D: number, d: number, a0: number): GazetasStiffness {
   if (!(d > 0 && D > 0)) return { x: 0, y: 0, z: 0, rx: 0, ry: 0, t: 0 };
   const { L, B } = b;
   const vla = lysmerAnalogVelocity(Vs, nu);
-  // I_wce c1 in log form: (d/D)^(-a0/2) alone overflows for a thin wall at high a0, while the
-  // product with I_wce ~ d^3 stays small.
-  // For a wall far thinner than the embedment the factor (d/D)^(-a0/2) grows without bound at
-  // high a0 (outside the charts' range) and can overflow; an overflowing frequency term is
-  // dropped, leaving 0.25 I (less damping: the safe side), so the solver never sees Infinity.
+  // c1 is held at its value at the charts' largest a0 (CHART_A0_MAX = 2) beyond it, as the
+  // charts' coefficients are (engine 1.9.0): for a wall far thinner than the embedment
+  // I_wce (d/D)^(-a0/2) ~ d^(3 - a0/2) grows without bound once a0 passes 6, which gave
+  // dashpots of 1e288 and a singular solve (found by the property test); held, it is at most
+  // ~ d^2 D, and the damping beyond a0 = 2 is never more than the paper's (the safe side).
+  // I_wce c1 in log form: (d/D)^(-a/2) alone can overflow while the product with I_wce stays
+  // small; a term that still overflows is dropped, leaving 0.25 I (less damping).
+  const a = Math.min(a0, CHART_A0_MAX);
   const wallTerm = (I: number, span: number) => {
     if (I === 0) return 0;
-    const dynamic = 0.65 * Math.sqrt(a0) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a0 / 2) * Math.log(d / D));
+    const dynamic = 0.65 * Math.sqrt(a) * (D / span) ** -0.25 * Math.exp(Math.log(I) - (a / 2) * Math.log(d / D));
     return 0.25 * I + (Number.isFinite(dynamic) ? dynamic : 0);
   };
   return {
@@ -294,7 +314,7 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
   if (D > 0) {
     warnings.push(
       variant !== "simplified"
-        ? "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory) and adds the sidewall dashpots of Table 2 for x, y, z, rx, ry (no torsion wall term; the embedded dynamic multipliers are those of the surface base)."
+        ? "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory) and adds the sidewall dashpots of Table 2 for x, y, z, rx, ry (no torsion wall term); the vertical dynamic multiplier is the surface k_z times Table 2's embedded factor 1 - 0.09 (D/B)^(3/4) a0^2 with the sidewall in contact, 1 + 0.09 (D/B)^(3/4) a0^2 in a trench, linear in d/D between; the other multipliers are those of the surface base."
         : "Gazetas (1991): embedment raises the static stiffness by the embedment factors (K_t,emb recalled from memory); the dashpots are taken as those of the surface base (sidewall radiation ignored).",
     );
   }
@@ -328,6 +348,8 @@ export function gazetasImpedance(ctx: ImpedanceContext, variant: GazetasDynamic 
     evaluate(omega, k, c) {
       const a0 = (omega * base.B) / Vs;
       const mult = gazetasDynamicMultipliers(a0, aspect, nu, variant);
+      // embedded base: Gazetas' Table 2 vertical factor on the surface k_z (floored like the others)
+      if (D > 0 && variant !== "simplified") mult.z = Math.max(mult.z * gazetasEmbeddedVerticalFactor(a0, D, base.B, d), GAZETAS_MULTIPLIER_FLOOR);
       const coef = gazetasRadiationCoefficients(a0, aspect, variant, nu);
       const wall = variant !== "simplified" ? gazetasSidewallDashpots(rho, Vs, nu, base, D, d, a0) : undefined;
       const hz = omega / (2 * Math.PI);

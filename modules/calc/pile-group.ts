@@ -18,6 +18,10 @@
 // interaction factors are small, Gazetas et al. 1993, recalled), and pile torsion is neglected:
 // the cap's torsion comes from the piles' lateral stiffness times their lever arms.
 //
+// Below a0 = w d / Vs = 0.2 the vertical factor's static limit is raised to Randolph & Wroth's
+// (1979) elastic static interaction where that is larger, faded out linearly by a0 = 0.2
+// (staticInteractionExcess; CONVENTIONS.md "Group at O").
+//
 // Pile heads lie at the base plane of O (z = 0): the cap's underside. The kinematics of each
 // head, u_i = U + Theta x p_i with p_i = (x_i, y_i, z_h), keep the lever arm z_h for generality;
 // with z_h = 0 it adds nothing, and the sway-rocking coupling at O is the piles' own -K_HM.
@@ -25,6 +29,7 @@ import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import {
   pileHeadDynamic,
   pileHeadStatic,
+  randolphInfluenceRadius,
   type ImpedanceTerm,
   type PileHeadStatic,
   type PileSoil,
@@ -129,6 +134,31 @@ export function interactionFactor(spacing: number, r0: number, omega: number, ve
   return [amp * Math.cos(phase), -amp * Math.sin(phase)];
 }
 
+/**
+ * Static vertical interaction of two piles at spacing S: Randolph & Wroth (1979), "An analysis of
+ * the vertical deformation of pile groups", Geotechnique 29(4) (recalled): the shaft's
+ * logarithmic settlement field gives alpha = ln(r_m / S) / ln(r_m / r0) for S < r_m, 0 beyond,
+ * with the single pile's radius of influence r_m (randolphInfluenceRadius).
+ */
+export function randolphStaticInteraction(spacing: number, r0: number, rm: number): number {
+  if (!(spacing < rm)) return 0;
+  return Math.log(rm / spacing) / Math.log(rm / r0);
+}
+
+/** Upper a0 = w d / Vs of the fade from the static interaction to Dobry & Gazetas' factor (engine choice). */
+export const STATIC_INTERACTION_FADE_A0 = 0.2;
+
+/**
+ * What the vertical interaction factor gains at low frequency: (alpha_R - (S/r0)^(-1/2)) (1 - a0 / 0.2)
+ * where Randolph's static factor alpha_R exceeds Dobry & Gazetas' static limit, 0 elsewhere and
+ * for a0 >= 0.2 (see CONVENTIONS.md "Group at O"). Real: it moves the static limit, not the waves.
+ */
+export function staticInteractionExcess(spacing: number, r0: number, rm: number, a0: number): number {
+  const fade = 1 - a0 / STATIC_INTERACTION_FADE_A0;
+  if (!(fade > 0)) return 0;
+  return Math.max(0, randolphStaticInteraction(spacing, r0, rm) - Math.sqrt(r0 / spacing)) * fade;
+}
+
 /** Lysmer's analog velocity V_La = 3.4 Vs / (pi (1 - nu)). */
 export function lysmerVelocity(vs: number, nu: number): number {
   return (3.4 * vs) / (Math.PI * (1 - nu));
@@ -146,7 +176,22 @@ export interface GroupInfluence {
   hIm: Float64Array;
 }
 
-export function groupInfluence(geo: PileGroupGeometry, r0: number, vsInteraction: number, nu: number, beta: number, omega: number, interaction: boolean): GroupInfluence {
+/** Randolph's radius of influence r_m and the pile diameter, for the static floor of the vertical factor (none: Dobry & Gazetas alone). */
+export interface StaticVerticalInteraction {
+  rm: number;
+  diameter: number;
+}
+
+export function groupInfluence(
+  geo: PileGroupGeometry,
+  r0: number,
+  vsInteraction: number,
+  nu: number,
+  beta: number,
+  omega: number,
+  interaction: boolean,
+  staticVertical?: StaticVerticalInteraction,
+): GroupInfluence {
   const n = geo.x.length;
   const { x, y, zh } = geo;
   // rows of T for the head's uz (vertical) and ux, uy (lateral) from U = [Ux, Uy, Uz, tx, ty, tz]
@@ -177,7 +222,8 @@ export function groupInfluence(geo: PileGroupGeometry, r0: number, vsInteraction
       const dy = (y[i] as number) - (y[j] as number);
       const s = Math.hypot(dx, dy);
       const [vr, vi] = interactionFactor(s, r0, omega, vsInteraction, beta);
-      av[i * n + j] = vr;
+      const excess = staticVertical ? staticInteractionExcess(s, r0, staticVertical.rm, (omega * staticVertical.diameter) / vsInteraction) : 0;
+      av[i * n + j] = vr + excess;
       avi[i * n + j] = vi;
       const [pr, pi] = interactionFactor(s, r0, omega, vla, beta);
       const nx = dx / s;
@@ -308,6 +354,7 @@ export function pileGroupModel({ spec, soil, geo, beta, interaction }: PileGroup
   const vsD = Math.sqrt(soil.shearModulus / soil.density);
   // linear profile: G(z) = G_d z/d, so Vs(z) = Vs_d sqrt(z/d); the interaction waves are taken at mid-length (engine choice)
   const vsInteraction = spec.profile === "uniform" ? vsD : vsD * Math.sqrt(spec.length / 2 / spec.diameter);
+  const staticVertical: StaticVerticalInteraction = { rm: randolphInfluenceRadius(spec, soil.poissonRatio), diameter: spec.diameter };
   const n = geo.x.length;
   // rotations of each head: sum over piles of T_i^T S T_i, S the head's rotational and cross terms (no interaction)
   const rot = new Float64Array(36); // K_MM pattern: rx-rx and ry-ry, n each
@@ -341,7 +388,7 @@ export function pileGroupModel({ spec, soil, geo, beta, interaction }: PileGroup
   let cache: GroupInfluence | null = null;
   const influence = (omega: number): GroupInfluence => {
     if (cache && omega === cacheOmega) return cache;
-    cache = groupInfluence(geo, r0, vsInteraction, soil.poissonRatio, beta, omega, interaction);
+    cache = groupInfluence(geo, r0, vsInteraction, soil.poissonRatio, beta, omega, interaction, staticVertical);
     cacheOmega = omega;
     return cache;
   };

@@ -101,6 +101,13 @@ export interface PileHeadStatic {
  * tip). End-bearing: the tip on a rigid stratum, xi -> 0, whose limit is the rod on shaft
  * springs fixed at the tip, P / w = Ep A mu coth(mu L) (G_L r0 pi lambda mu L / ((L/r0) tanh(mu L))).
  */
+/** Randolph & Wroth's (1978) radius of influence r_m = (0.25 + xi (2.5 rho (1 - nu) - 0.25)) L (xi = 1 floating, 0 end-bearing; rho 1 uniform, 1/2 linear). */
+export function randolphInfluenceRadius(spec: PileSpec, nu: number): number {
+  const rho = spec.profile === "uniform" ? 1 : 0.5;
+  const xi = spec.tip === "floating" ? 1 : 0;
+  return (0.25 + xi * (2.5 * rho * (1 - nu) - 0.25)) * spec.length;
+}
+
 export function randolphWrothVertical(spec: PileSpec, soil: PileSoil): number {
   const r0 = spec.diameter / 2;
   const L = spec.length;
@@ -110,7 +117,7 @@ export function randolphWrothVertical(spec: PileSpec, soil: PileSoil): number {
   const rho = spec.profile === "uniform" ? 1 : 0.5;
   const lambda = spec.youngsModulus / gL;
   const xi = spec.tip === "floating" ? 1 : 0;
-  const rm = (0.25 + xi * (2.5 * rho * (1 - nu) - 0.25)) * L;
+  const rm = randolphInfluenceRadius(spec, nu);
   const zeta = Math.log(rm / r0);
   const muL = Math.sqrt(2 / (zeta * lambda)) * (L / r0);
   const t = Math.tanh(muL) / muL;
@@ -162,8 +169,7 @@ export function verticalRodSoil(spec: PileSpec, soil: PileSoil): { zeta: number;
   const L = spec.length;
   const gL = spec.profile === "uniform" ? soil.shearModulus : (soil.shearModulus * L) / spec.diameter;
   const rho = spec.profile === "uniform" ? 1 : 0.5;
-  const xi = spec.tip === "floating" ? 1 : 0;
-  const rm = (0.25 + xi * (2.5 * rho * (1 - soil.poissonRatio) - 0.25)) * L;
+  const rm = randolphInfluenceRadius(spec, soil.poissonRatio);
   return { zeta: Math.log(rm / r0), shaftG: rho * gL, tipG: gL };
 }
 

@@ -34,6 +34,7 @@ import { linspace } from "./sweep-grid";
 import { NewmarkAverageAcceleration } from "./transient-newmark";
 import { resolveTransientSpeeds, TRANSIENT_LIMITS } from "./transient-settings";
 import { rpmToRadPerSec } from "./unbalance";
+import { goldenSectionMaximum } from "./golden-section";
 
 /** An invalid stand-alone request (analyseTransient); `issues` have paths relative to the request. */
 export class TransientRequestError extends Error {
@@ -271,8 +272,6 @@ function harmonicBearings(
   solver.pointAmplitudes(u, loadIndex, coords, forceAt(rotor.forceAtRated, rotor.omegaRated, omega), out, false);
 }
 
-/** Golden-section ratio (1 / phi) for the refinement of a grid maximum. */
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
 const REFINE_ITERATIONS = 40;
 
 /**
@@ -284,29 +283,11 @@ function maximiseOverSpeeds(g: (rpm: number) => number, lo: number, hi: number, 
   const values = grid.map(g);
   let best = 0;
   for (let i = 1; i < grid.length; i++) if ((values[i] as number) > (values[best] as number)) best = i;
-  let a = grid[Math.max(best - 1, 0)] as number;
-  let b = grid[Math.min(best + 1, grid.length - 1)] as number;
+  const a = grid[Math.max(best - 1, 0)] as number;
+  const b = grid[Math.min(best + 1, grid.length - 1)] as number;
   let value = values[best] as number;
   let atRpm = grid[best] as number;
-  let x1 = b - GOLDEN * (b - a);
-  let x2 = a + GOLDEN * (b - a);
-  let g1 = g(x1);
-  let g2 = g(x2);
-  for (let it = 0; it < REFINE_ITERATIONS; it++) {
-    if (g1 > g2) {
-      b = x2;
-      x2 = x1;
-      g2 = g1;
-      x1 = b - GOLDEN * (b - a);
-      g1 = g(x1);
-    } else {
-      a = x1;
-      x1 = x2;
-      g1 = g2;
-      x2 = a + GOLDEN * (b - a);
-      g2 = g(x2);
-    }
-  }
+  const { x1, f1: g1, x2, f2: g2 } = goldenSectionMaximum(g, a, b, { iterations: REFINE_ITERATIONS });
   for (const [x, gx] of [
     [x1, g1],
     [x2, g2],

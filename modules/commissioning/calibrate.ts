@@ -16,6 +16,7 @@ import { AXIS_SHARE_MIN, axisShare, buildResponseModel, SoilResponse, type AxisI
 import { toVelocityRms } from "./conversions";
 import type { AmplitudeQuantity } from "./types";
 import { refinePeak } from "./peaks";
+import { goldenSectionMaximum } from "@/modules/calc/golden-section";
 
 export const CALIBRATION_BOUNDS = { lowerFactor: 0.25, upperFactor: 4 } as const;
 /** Search tolerance on ln G: 1e-4, i.e. G to about 0.01 %. */
@@ -178,28 +179,9 @@ export function calibrateShearModulus(input: AnalysisInput, targets: Calibration
   };
 }
 
-/** Golden-section minimum of f on [a, b] to CALIBRATION_TOLERANCE (f unimodal there). */
-function golden(f: (x: number) => number, a: number, b: number): number {
-  const g = (Math.sqrt(5) - 1) / 2;
-  let c = b - g * (b - a);
-  let d = a + g * (b - a);
-  let fc = f(c);
-  let fd = f(d);
-  while (b - a > CALIBRATION_TOLERANCE) {
-    if (fc < fd) {
-      b = d;
-      d = c;
-      fd = fc;
-      c = b - g * (b - a);
-      fc = f(c);
-    } else {
-      a = c;
-      c = d;
-      fc = fd;
-      d = a + g * (b - a);
-      fd = f(d);
-    }
-  }
+/** Golden-section minimum of f on [a, b] to CALIBRATION_TOLERANCE (f unimodal there): the shared search on -f. */
+function golden(f: (x: number) => number, lo: number, hi: number): number {
+  const { a, b } = goldenSectionMaximum((x) => -f(x), lo, hi, { tolerance: CALIBRATION_TOLERANCE });
   const m = (a + b) / 2;
   // the ends themselves, when the minimum sits on one
   const fa = f(a), fb = f(b), fm = f(m);

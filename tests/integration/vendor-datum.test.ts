@@ -11,7 +11,7 @@ import { closeDb, getDb } from "@/db/client";
 import { foundationDrafts, revisions, vendorSubmissions } from "@/db/schema";
 import { getDraft, saveDraft } from "@/db/queries/drafts";
 import { createFoundation } from "@/db/queries/projects";
-import { issueRevision } from "@/db/queries/revisions";
+import { getRevision, issueRevision } from "@/db/queries/revisions";
 import { readPlacements } from "@/modules/desk/machine-placements";
 import { MARKER_SHEET, machineFieldRow, rampFieldRow, rotorFieldRow } from "@/modules/vendor-data/layout";
 import type { MachineInput } from "@/modules/calc/schema";
@@ -145,6 +145,10 @@ describe("vendor data relative to the machine datum", () => {
     const [rev] = await getDb().select().from(revisions).where(eq(revisions.id, issued.revision.id));
     expect(readPlacements(rev?.machinePlacements)).toEqual(readPlacements(row?.machinePlacements));
     expect(readPlacements(rev?.machinePlacements)[0]?.datum).toEqual(DATUM);
+    // the revision page reads them back through getRevision (its "Machines on the block as issued" table)
+    const detail = await getRevision(actor("designer"), fx.projectId, foundationId, issued.revision.id);
+    expect(detail?.placements).toEqual(readPlacements(rev?.machinePlacements));
+    expect(detail?.placements[0]?.vendor?.machine.mass).toBe(vendor.machine.mass);
   });
 
   it("a version 1 workbook is stored as block coordinates and taken in as it is", async () => {

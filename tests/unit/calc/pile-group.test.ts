@@ -12,8 +12,17 @@ import { readFileSync } from "node:fs";
 import { EigenvalueDecomposition, Matrix, CholeskyDecomposition } from "ml-matrix";
 import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
-import { clampPositiveSemidefinite, interactionFactor, lysmerVelocity, pileGroupModel } from "@/modules/calc/pile-group";
-import { pileHeadStatic, type PileSoil, type PileSpec } from "@/modules/calc/pile-single";
+import {
+  STATIC_INTERACTION_FADE_A0,
+  clampPositiveSemidefinite,
+  groupInfluence,
+  interactionFactor,
+  lysmerVelocity,
+  pileGroupModel,
+  randolphStaticInteraction,
+  staticInteractionExcess,
+} from "@/modules/calc/pile-group";
+import { pileHeadStatic, randolphInfluenceRadius, type PileSoil, type PileSpec } from "@/modules/calc/pile-single";
 import { relClose } from "./helpers";
 
 const VS = 140;
@@ -61,6 +70,40 @@ describe("Dobry & Gazetas (1988) interaction factor", () => {
   });
 });
 
+describe("static floor of the vertical interaction (Randolph & Wroth 1979, recalled)", () => {
+  it("alpha_R = ln(r_m / S) / ln(r_m / r0) below r_m, 0 beyond; r_m of Randolph & Wroth (1978)", () => {
+    expect(randolphInfluenceRadius(PILE, 0.3)).toBeCloseTo(24.5, 12);
+    expect(randolphInfluenceRadius({ ...PILE, tip: "end-bearing" }, 0.3)).toBeCloseTo(0.25 * 14, 12);
+    expect(randolphInfluenceRadius({ ...PILE, profile: "linear" }, 0.3)).toBeCloseTo((0.25 + 1.25 * 0.7 - 0.25) * 14, 12);
+    expect(randolphStaticInteraction(2, R0, 24.5)).toBeCloseTo(Math.log(12.25) / Math.log(98), 12);
+    expect(randolphStaticInteraction(R0, R0, 24.5)).toBeCloseTo(1, 12);
+    expect(randolphStaticInteraction(30, R0, 24.5)).toBe(0);
+  });
+
+  it("fades linearly to nothing at a0 = w d / Vs = 0.2 and only ever adds to Dobry & Gazetas' factor", () => {
+    const excess0 = randolphStaticInteraction(2, R0, 24.5) - Math.sqrt(R0 / 2);
+    expect(staticInteractionExcess(2, R0, 24.5, 0)).toBeCloseTo(excess0, 12);
+    expect(staticInteractionExcess(2, R0, 24.5, 0.1)).toBeCloseTo(excess0 / 2, 12);
+    expect(staticInteractionExcess(2, R0, 24.5, STATIC_INTERACTION_FADE_A0)).toBe(0);
+    expect(staticInteractionExcess(2, R0, 24.5, 0.7)).toBe(0);
+    // where Dobry & Gazetas' static limit is the larger (wide spacing, short r_m) nothing is added
+    expect(staticInteractionExcess(3, R0, 3.5, 0)).toBe(0);
+  });
+
+  it("the group at a0 >= 0.2 is Dobry & Gazetas' alone; below, its vertical stiffness is softer", () => {
+    const geo = { x: Float64Array.from(XS), y: Float64Array.from(YS), zh: 0 };
+    const floor = { rm: 24.5, diameter: PILE.diameter };
+    const wAt = (a0: number) => (a0 * VS) / PILE.diameter;
+    const hi = [groupInfluence(geo, R0, VS, 0.3, 0.02, wAt(0.3), true), groupInfluence(geo, R0, VS, 0.3, 0.02, wAt(0.3), true, floor)];
+    expect(Array.from(hi[1]!.vRe)).toEqual(Array.from(hi[0]!.vRe));
+    expect(Array.from(hi[1]!.vIm)).toEqual(Array.from(hi[0]!.vIm));
+    const lo = [groupInfluence(geo, R0, VS, 0.3, 0.02, wAt(0.05), true), groupInfluence(geo, R0, VS, 0.3, 0.02, wAt(0.05), true, floor)];
+    // Q_zz = T^T A^-1 T along z: more interaction, a smaller Q (a softer group in z)
+    expect(lo[1]!.vRe[2 * 7]!).toBeLessThan(lo[0]!.vRe[2 * 7]!);
+    expect(Array.from(lo[1]!.hRe)).toEqual(Array.from(lo[0]!.hRe));
+  });
+});
+
 describe("group at O", () => {
   it("two piles, vertical at w = 0: 2 kv / (1 + alpha) (superposition, Poulos & Davis 1980)", () => {
     const g = group([-1, 1], [0, 0], true, 0);
@@ -68,11 +111,15 @@ describe("group at O", () => {
     const C = new Float64Array(36);
     g.evaluate(0, K, C);
     const kv = pileHeadStatic(PILE, SOIL).kv;
-    const alpha = Math.sqrt(R0 / 2);
-    expect(relClose(at(K, 2, 2), (2 * kv) / (1 + alpha), 1e-9)).toBe(true);
+    // at w = 0 the factor is Randolph & Wroth's (1979) static ln(r_m/S)/ln(r_m/r0) where it exceeds
+    // Dobry & Gazetas' (S/r0)^(-1/2): r_m = (0.25 + 2.5 (1 - nu) - 0.25) L = 1.75 x 14 = 24.5 m
+    const alpha = Math.log(24.5 / 2) / Math.log(24.5 / R0);
+    expect(alpha).toBeGreaterThan(Math.sqrt(R0 / 2));
+    // (1e-8: the engine takes w = 0 as a0 = 1e-9 for the dashpots' limit, where the fade is 1 - 5e-9)
+    expect(relClose(at(K, 2, 2), (2 * kv) / (1 + alpha), 1e-8)).toBe(true);
     // rocking about y of the pair: kv x^2 each, with the antisymmetric interaction: 2 kv / (1 - alpha) x^2 + 2 K_MM
     const s = pileHeadStatic(PILE, SOIL);
-    expect(relClose(at(K, 4, 4), (2 * kv) / (1 - alpha) + 2 * s.kmm, 1e-9)).toBe(true);
+    expect(relClose(at(K, 4, 4), (2 * kv) / (1 - alpha) + 2 * s.kmm, 1e-8)).toBe(true);
   });
 
   it("2 x 2 group without interaction is the sum of the singles (rigid-cap kinematics)", () => {
@@ -100,9 +147,11 @@ describe("group at O", () => {
     expect(effV).toBeLessThan(1);
     expect(effV).toBeGreaterThan(0.3);
     expect(effH).toBeLessThan(1);
-    // hand: vertical at w = 0, each pile sees alpha = sqrt(r0/S) from three neighbours (S = 1.6, 2.8, 3.225 m)
-    const sum = Math.sqrt(R0 / 1.6) + Math.sqrt(R0 / 2.8) + Math.sqrt(R0 / Math.hypot(2.8, 1.6));
-    expect(relClose(effV, 1 / (1 + sum), 1e-9)).toBe(true);
+    // hand: vertical at w = 0, each pile sees from its three neighbours (S = 1.6, 2.8, 3.225 m) the
+    // larger of Randolph & Wroth's (1979) ln(r_m/S)/ln(r_m/r0) (r_m = 24.5 m) and (S/r0)^(-1/2)
+    const factor = (S: number) => Math.max(Math.log(24.5 / S) / Math.log(24.5 / R0), Math.sqrt(R0 / S));
+    const sum = factor(1.6) + factor(2.8) + factor(Math.hypot(2.8, 1.6));
+    expect(relClose(effV, 1 / (1 + sum), 1e-8)).toBe(true);
   });
 
   it("K and C are symmetric at every frequency; K is positive definite at low frequency", () => {

@@ -5,6 +5,7 @@ import { describe, expect, it } from "vitest";
 import { analyse, parseAnalysisInput } from "@/modules/calc";
 import {
   gazetasDynamicMultipliers,
+  gazetasEmbeddedVerticalFactor,
   gazetasEmbedmentFactors,
   gazetasRadiationCoefficients,
   gazetasRyEmbedmentAlternatives,
@@ -134,6 +135,27 @@ describe("published coefficients in the analysis", () => {
     expect(emb.impedance.dashpot!.x).toBeGreaterThan(surf.impedance.dashpot!.x);
   });
 
+  it("an embedded base's vertical dynamic multiplier is the surface k_z times Gazetas (1991) Table 2's 1 - 0.09 (D/B)^(3/4) a0^2 (sidewall in contact), 1 + 0.09 (D/B)^(3/4) a0^2 (trench), linear in d/D between", () => {
+    // hand values of the Table 2 forms (recalled; the same forms in geofound calc_vert_via_gazetas_1991)
+    expect(gazetasEmbeddedVerticalFactor(1, 1.5, 1.5, 1.5)).toBeCloseTo(0.91, 12);
+    expect(gazetasEmbeddedVerticalFactor(1, 1.5, 1.5, 0)).toBeCloseTo(1.09, 12);
+    expect(gazetasEmbeddedVerticalFactor(0.5, 1, 1.5, 0.5)).toBeCloseTo(1, 12);
+    expect(gazetasEmbeddedVerticalFactor(2, 0, 1.5, 0)).toBe(1);
+    // held at a0 = 2 beyond (the charts' range)
+    expect(gazetasEmbeddedVerticalFactor(5, 1.5, 1.5, 1.5)).toBe(gazetasEmbeddedVerticalFactor(2, 1.5, 1.5, 1.5));
+    // in the analysis: K_z(w1) / K_z(0) of the embedded base over that of the surface base
+    const surf = run(base);
+    const D = 1;
+    const d = 0.8;
+    const emb = run(withSoil(base, { embedmentDepth: D, sidewallContactHeight: d }));
+    const a0 = (2 * Math.PI * (1500 / 60) * 1.5) / VS;
+    const factor = 1 + 0.09 * (D / 1.5) ** 0.75 * a0 * a0 * (1 - 2 * (d / D));
+    const ratioSurf = surf.impedance.stiffness.z / surf.impedance.staticStiffness.z;
+    const ratioEmb = emb.impedance.stiffness.z / emb.impedance.staticStiffness.z;
+    expect(relClose(ratioEmb / ratioSurf, factor, 1e-9)).toBe(true);
+    expect(factor).toBeLessThan(1);
+  });
+
   it("sidewall dashpots: compression walls at V_La, shear walls at Vs, rocking c1 = 0.25 + 0.65 sqrt(a0) (d/D)^(-a0/2) (D/B)^(-1/4)", () => {
     const b = { L: 3.5, B: 1.5, area: 21, Ibx: (7 * 27) / 12, Iby: (3 * 343) / 12, Jt: 0 };
     const a0 = 0.4;
@@ -144,6 +166,15 @@ describe("published coefficients in the analysis", () => {
     expect(w.rx).toBeCloseTo(RHO_SOIL * vla * ((4 * 3.5 * 0.8 ** 3) / 3) * c1, 6);
     expect(w.t).toBe(0);
     expect(gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 1, 0, a0).z).toBe(0);
+  });
+
+  it("sidewall rocking factor c1 is held at a0 = 2 beyond the charts' range: a wall 1e-108 m under 7.7e-9 m embedment at 80 Hz analyses (it gave 1e288 N m s and a singular solve)", () => {
+    const b = { L: 5, B: 2.32, area: 46.4, Ibx: 0, Iby: 0, Jt: 0 };
+    const held = gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 1, 0.3, 2);
+    expect(gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 1, 0.3, 6)).toEqual(held);
+    const thin = gazetasSidewallDashpots(RHO_SOIL, VS, NU, b, 7.7e-9, 1.35e-108, 12);
+    expect(thin.rx).toBeLessThan(1e-100);
+    expect(thin.ry).toBeLessThan(1e-100);
   });
 
   it("sidewall rocking dashpot of a wall far thinner than the embedment stays finite at high a0 (the overflowing frequency term is dropped, 0.25 I_wce kept)", () => {

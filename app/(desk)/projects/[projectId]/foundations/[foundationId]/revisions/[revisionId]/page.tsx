@@ -12,6 +12,7 @@ import { RevisionResults } from "../revision-results";
 import { formatStamp, RevisionCrumbs, RevisionStatusTag } from "../revision-parts";
 import { revisionPath } from "../revision-service";
 import { FieldCommentArea, InputValues } from "./field-comments";
+import { MachinePlacementsTable } from "./machine-placements-table";
 import { getCommissioningScope, listMeasurementRecords } from "@/db/queries/commissioning";
 import { recordVerdictText } from "@/modules/desk/measurement-view";
 import { commissioningPath } from "./commissioning/commissioning-service";
@@ -230,6 +231,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ proje
           <h2 id="results-heading">Results as issued</h2>
           <RevisionResults result={revision.result} units={user.unitsPreference ?? project.units} />
         </section>
+        <MachinePlacementsTable placements={revision.placements} units={user.unitsPreference ?? project.units} />
         <section className="slab space-y-2 p-4" aria-labelledby="input-heading">
           <h2 id="input-heading">Input as issued</h2>
           <InputValues rows={inputValues} />
