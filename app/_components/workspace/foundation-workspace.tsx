@@ -1,7 +1,7 @@
 "use client";
 
 import { Formik, useFormikContext } from "formik";
-import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
+import { memo, useCallback, useDeferredValue, useEffect, useMemo, useRef, useState, type CSSProperties, type ReactNode } from "react";
 import type { AnalysisResult, CheckResult } from "@/modules/calc";
 import { draftFormSchema, formCompleteness, formFieldOfIssue, formFromDraftDocument, placementsFromForm, toInputDocument, type DraftForm } from "@/modules/desk/draft-form";
 import { draftSaveLabel, hasUnsavedWork } from "@/modules/desk/draft-autosave";
@@ -22,6 +22,7 @@ import { SpeedRampsSection } from "./speed-ramps-section";
 import { useCalculation, useEngineStatus, type CalcIssue } from "./use-calculation";
 import { draftSaveBody, useDraftSave } from "./use-draft-save";
 import { useLeaveGuard } from "./use-leave-guard";
+import { useValidateAfterTyping } from "./use-validate-after-typing";
 import { UnitsProvider, UnitsSwitch, useUnits, type UnitSystem } from "./units-context";
 import { ReviewCommentsProvider, type WorkspaceComment } from "./review-comments";
 
@@ -39,9 +40,22 @@ export interface WorkspaceProps {
   openComments?: WorkspaceComment[];
 }
 
-function Panel({ title, id, children, aside }: { title: string; id: string; children: ReactNode; aside?: ReactNode }) {
+/**
+ * `lazyHeight` (px, about the panel's usual height): the panel is not rendered while out of view
+ * (`.panel-lazy`, globals.css), for the results panels whose figures change with every keystroke.
+ * Not for the form (its review markers' pop-ups may reach outside the panel, which content-visibility
+ * would clip) nor for the plots (their size observer needs a laid-out box to draw into).
+ */
+// lazyHeight: the heights measured on the demo pump train at 1360 px wide (the response table is the long one)
+function Panel({ title, id, children, aside, lazyHeight }: { title: string; id: string; children: ReactNode; aside?: ReactNode; lazyHeight?: number }) {
   return (
-    <section id={id} className="slab scroll-mt-28 p-4" aria-labelledby={`${id}-h`} data-testid={`panel-${id}`}>
+    <section
+      id={id}
+      className={`slab scroll-mt-28 p-4 ${lazyHeight ? "panel-lazy" : ""}`}
+      style={lazyHeight ? ({ "--panel-block-size": `${lazyHeight}px` } as CSSProperties) : undefined}
+      aria-labelledby={`${id}-h`}
+      data-testid={`panel-${id}`}
+    >
       <div className="mb-3 flex items-center justify-between gap-2">
         <h2 id={`${id}-h`} className="text-base">
           {title}
@@ -89,7 +103,8 @@ function diffSummary(mine: unknown, theirs: unknown, prefix = ""): string[] {
 }
 
 function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number) => void }) {
-  const { values, setStatus, errors, resetForm } = useFormikContext<DraftForm>();
+  const { values, setStatus, errors, resetForm, setErrors } = useFormikContext<DraftForm>();
+  useValidateAfterTyping(values, draftFormSchema, setErrors);
   // Blanks do not stop a draft from saving (issue 18); a wrong value does.
   const completeness = formCompleteness(errors);
   const units = useUnits();
@@ -105,12 +120,17 @@ function Desk(props: WorkspaceProps & { version: number; setVersion: (v: number)
   const plotsBehind = plotted !== result;
   const formatLength = useCallback((m: number) => `${units.toDisplayText("length", m)} ${units.unitLabel("length")}`, [units]);
   const onIssues = useCallback((issues: CalcIssue[]) => setStatus({ serverIssues: issuesByField(issues, values.impedance.method) }), [setStatus, values.impedance.method]);
+  // only the first render's counts (useState's initial value): not rebuilt on every keystroke
+  const initialSavedBody = useMemo(
+    () => draftSaveBody(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults), placementsFromForm(props.initialForm)),
+    [props.initialForm, props.projectDefaults],
+  );
   const saver = useDraftSave({
     url: `/api/v1/projects/${props.projectId}/foundations/${props.foundationId}/draft`,
     document,
     placements,
     // A foundation without a stored draft starts from the empty form: untouched, it has nothing to save.
-    initialSavedBody: draftSaveBody(withProjectDefaults(toInputDocument(props.initialForm), props.projectDefaults), placementsFromForm(props.initialForm)),
+    initialSavedBody,
     version: props.version,
     setVersion: props.setVersion,
     valid: completeness !== "invalid",
@@ -287,14 +307,16 @@ function StaleNote() {
  * after them, so the typing measure (input-timing.ts) ends when the tables are painted.
  */
 const Results = memo(function Results({ result, plotted, readOnly }: { result: AnalysisResult; plotted: AnalysisResult; readOnly: boolean }) {
-  const acceptanceEditor = useCallback((c: CheckResult) => <AcceptanceEditor check={c} />, []);
+  // Only a failing band check can be accepted: the editor (a reader of formik's context, so it
+  // renders on every keystroke) is mounted on those rows alone, not on all of them.
+  const acceptanceEditor = useCallback((c: CheckResult) => (c.soilCase && !c.pass && c.key ? <AcceptanceEditor check={c} /> : null), []);
   return (
     <>
-      <Panel title="Verdicts" id="checks" aside={<span className="text-2xs text-basalt-400">governing first</span>}>
+      <Panel title="Verdicts" id="checks" lazyHeight={540} aside={<span className="text-2xs text-basalt-400">governing first</span>}>
         <ChecksTableM result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
       </Panel>
       {result.warnings.length ? (
-        <Panel title="Method warnings" id="warnings">
+        <Panel title="Method warnings" id="warnings" lazyHeight={120}>
           <ul className="list-disc space-y-1 pl-5 text-xs text-basalt-700" data-testid="warnings">
             {result.warnings.map((w) => (
               <li key={w}>{w}</li>
@@ -302,23 +324,23 @@ const Results = memo(function Results({ result, plotted, readOnly }: { result: A
           </ul>
         </Panel>
       ) : null}
-      <Panel title="Natural frequencies and frequency ratios" id="modes">
+      <Panel title="Natural frequencies and frequency ratios" id="modes" lazyHeight={360}>
         <ModesTableM result={result} />
       </Panel>
       <Panel title="Response against frequency" id="plots">
         <ResponsePlots result={plotted} />
       </Panel>
-      <Panel title="Amplitudes at rated speed" id="response">
+      <Panel title="Amplitudes at rated speed" id="response" lazyHeight={3200}>
         <ResponseTableM result={result} />
         <CombinedResponseTableM result={result} />
       </Panel>
-      <Panel title="Mass and block rules" id="mass">
+      <Panel title="Mass and block rules" id="mass" lazyHeight={420}>
         <MassTableM result={result} />
       </Panel>
-      <Panel title="Soil springs and damping" id="impedance">
+      <Panel title="Soil springs and damping" id="impedance" lazyHeight={360}>
         <ImpedanceTableM result={result} />
       </Panel>
-      <Panel title="Closed-form cross-check" id="crosscheck">
+      <Panel title="Closed-form cross-check" id="crosscheck" lazyHeight={360}>
         <CrossCheckTableM result={result} />
       </Panel>
       <p className="text-right text-2xs text-basalt-400">engine {result.engineVersion} · contract v{result.schemaVersion}</p>
