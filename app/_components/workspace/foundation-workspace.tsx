@@ -313,7 +313,7 @@ const Results = memo(function Results({ result, plotted, readOnly }: { result: A
   return (
     <>
       <Panel title="Verdicts" id="checks" lazyHeight={540} aside={<span className="text-2xs text-basalt-400">governing first</span>}>
-        <ChecksTableM result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} />
+        <ChecksTableM result={result} acceptanceEditor={readOnly ? undefined : acceptanceEditor} foldSoilCases />
       </Panel>
       {result.warnings.length ? (
         <Panel title="Method warnings" id="warnings" lazyHeight={120}>
