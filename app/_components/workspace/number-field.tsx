@@ -82,9 +82,9 @@ const NumberInput = memo(
             markInput(e.timeStamp);
             setText(e.target.value);
             const parsed = units.fromDisplayText(kind, e.target.value);
-            // Without formik's validation on change: it flips isValidating and back, two more
-            // renders of every field per keystroke. The workspace validates the whole form
-            // once the keystroke's frame is out (useValidateAfterTyping in foundation-workspace.tsx).
+            // Without formik's validation on change (the workspace's Formik has it off too): it
+            // flips isValidating and back, two more renders of every field per keystroke. The
+            // workspace validates the whole form when the main thread is idle (use-validate-after-typing.ts).
             void setFieldValue(name, parsed, false);
           }}
           onBlur={() => {
