@@ -109,7 +109,7 @@ async function browserSection(server: BenchServer, quick: boolean): Promise<void
   try {
     const { timings, soilBand } = await benchWorkspaceTyping(server, keystrokes);
     process.stdout.write(
-      `\nTyping in the workspace (headless chromium, demo pump train, soil band ${soilBand ? "on" : "NOT shown"}): input event to the painted results, as the page measures it\n${formatBrowserTable(timings)}\n`,
+      `\nTyping in the workspace (headless chromium, demo pump train, soil band ${soilBand ? "on" : "NOT shown"}): input event to the painted results on screen, as the page measures it; "settled": to the frame in which the plots and the panels out of view show them too\n${formatBrowserTable(timings)}\n`,
     );
   } catch (e) {
     process.stdout.write(`\nBrowser section failed: ${(e as Error).message}\n`);

@@ -55,3 +55,12 @@ export function placeComments<C extends { fieldPath: string | null }>(comments: 
   for (const p of placed) if (p.fieldName) byField.set(p.fieldName, [...(byField.get(p.fieldName) ?? []), p.comment]);
   return { placed, byField };
 }
+
+/**
+ * Whether two placements put the same comments (by identity) beside the same fields, in the
+ * same order. The workspace places comments again on every change of the form; when nothing
+ * moved it keeps the earlier placement, so the markers beside the fields are not rendered again.
+ */
+export function samePlacement<C extends { fieldPath: string | null }>(a: { placed: PlacedComment<C>[] }, b: { placed: PlacedComment<C>[] }): boolean {
+  return a.placed.length === b.placed.length && a.placed.every((p, i) => p.comment === b.placed[i]?.comment && p.fieldName === b.placed[i]?.fieldName);
+}

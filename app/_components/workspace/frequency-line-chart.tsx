@@ -15,6 +15,25 @@ export function sweepCaseKey(s: { machine: string; rotor: string; case: string; 
 }
 
 /**
+ * The curves, as nivo's own "lines" layer draws them with animate off (a path per series, the
+ * first on top) but without its animated path: that one interpolates every new path string
+ * against the previous one even when it does not animate (a parse of both strings of some
+ * thousand numbers, per curve and result). Typing cost, issue 15 item 2.
+ */
+function PlainLines({ series, lineGenerator, lineWidth }: LineCustomSvgLayerProps<FrequencySeries>) {
+  return (
+    <>
+      {series
+        .slice(0)
+        .reverse()
+        .map((s) => (
+          <path key={s.id} d={lineGenerator(s.data.map((d) => d.position)) ?? undefined} fill="none" strokeWidth={lineWidth} stroke={s.color} />
+        ))}
+    </>
+  );
+}
+
+/**
  * The one frequency-response chart of the desk (workspace plots and the revision comparison):
  * linear axes from zero, the marks layer under the grid and curves, the desk's type and grid
  * colours, the y ticks at three significant figures.
@@ -36,7 +55,7 @@ export function FrequencyLineChart(props: { series: FrequencySeries[]; colours: 
       animate={false}
       axisBottom={{ legend: "frequency (Hz)", legendOffset: 30, legendPosition: "middle", tickSize: 4 }}
       axisLeft={{ legend: props.yLabel, legendOffset: -54, legendPosition: "middle", tickSize: 4, format: (v) => Number(v).toPrecision(3) }}
-      layers={[props.layer, "grid", "axes", "lines", "crosshair", "mesh", "legends"]}
+      layers={[props.layer, "grid", "axes", PlainLines, "crosshair", "mesh", "legends"]}
       theme={{ text: { fontFamily: "var(--font-plex-sans)", fontSize: 10, fill: "#4a616c" }, grid: { line: { stroke: "#e3dfd6" } } }}
     />
   );

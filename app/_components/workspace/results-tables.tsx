@@ -1,9 +1,10 @@
 "use client";
 
-import type { ReactNode } from "react";
+import { useId, useState, type ReactNode } from "react";
 import { FieldPick } from "./field-pick";
 import { CHECK_VERDICT_LABELS, checkVerdict, type AnalysisResult, type CheckResult } from "@/modules/calc";
 import { sortChecksGoverningFirst } from "@/modules/desk/foundation-summary";
+import { foldableSoilCases } from "@/modules/desk/check-soil-cases";
 import { FACTOR_DOF_LABELS, dynamicCoefficientSource, soilFactorRows, stratumSummary } from "@/modules/desk/soil-factors";
 import { DOF_KEYS } from "@/modules/calc";
 import { formatSignificant as sig } from "@/modules/units";
@@ -23,10 +24,17 @@ const verdictTag: Record<ReturnType<typeof checkVerdict>, string> = {
  * Every check, governing first. Band checks (at the lower and upper soil bound) are rows like
  * the others; a failing one accepted with a justification reads "accepted with justification"
  * with the text under it. `acceptanceEditor` (the workspace) adds the place to write one.
+ * `foldSoilCases` (the workspace): each check shows its governing soil case and the passing
+ * rows of its other cases are folded (hidden, still in the table and printed) until "show all"
+ * (modules/desk/check-soil-cases.ts); a revision's table shows every row.
  */
-export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResult; acceptanceEditor?: (c: CheckResult) => ReactNode }) {
+export function ChecksTable({ result, acceptanceEditor, foldSoilCases = false }: { result: AnalysisResult; acceptanceEditor?: (c: CheckResult) => ReactNode; foldSoilCases?: boolean }) {
   const units = useUnits();
+  const tableId = useId();
+  const [showAll, setShowAll] = useState(false);
   const sorted = sortChecksGoverningFirst(result.checks);
+  const foldable = foldSoilCases && result.bounds ? foldableSoilCases(sorted) : null;
+  const folded = foldable && !showAll ? foldable.filter(Boolean).length : 0;
   const failing = sorted.filter((c) => !c.pass).length;
   const accepted = sorted.filter((c) => checkVerdict(c) === "accepted").length;
   const notApplicable = sorted.filter((c) => c.notApplicable).length;
@@ -46,9 +54,24 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
           </span>
         )}
       </p>
-      {result.bounds ? <p className="mb-2 text-2xs text-basalt-500">Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.</p> : null}
+      {result.bounds ? (
+        <p className="mb-2 text-2xs text-basalt-500">
+          Frequency separation, displacement and velocity are also checked at the lower and upper soil bound.
+          {foldable?.some(Boolean) ? (
+            <>
+              {" "}
+              <span data-testid="checks-folded">
+                {folded ? `Each shows its governing soil case; ${folded} passing rows at the other cases are folded.` : "Every soil case is shown."}
+              </span>{" "}
+              <button type="button" className="btn-quiet px-1.5 py-0.5 text-2xs print:hidden" aria-controls={tableId} aria-expanded={showAll} onClick={() => setShowAll((v) => !v)} data-testid="checks-show-all">
+                {showAll ? "fold the other soil cases" : `show all ${sorted.length} rows`}
+              </button>
+            </>
+          ) : null}
+        </p>
+      ) : null}
       <div className="max-h-[420px] overflow-auto rounded-plinth border border-grout-200" tabIndex={0} role="region" aria-label="Checks, scrollable">
-        <table data-testid="checks-table">
+        <table data-testid="checks-table" id={tableId}>
           <thead className="sticky top-0">
             <tr>
               <th>Check</th>
@@ -62,7 +85,12 @@ export function ChecksTable({ result, acceptanceEditor }: { result: AnalysisResu
             {sorted.map((c, i) => {
               const kind = kindOfUnit(c.unit);
               return (
-                <tr key={c.key ?? `${c.id}-${i}`} className={c.pass ? "" : c.acceptance ? "bg-ochre-100/40" : "bg-brick-100/40"} data-verdict={checkVerdict(c)} data-check-key={c.key}>
+                <tr
+                  key={c.key ?? `${c.id}-${i}`}
+                  className={`${c.pass ? "" : c.acceptance ? "bg-ochre-100/40" : "bg-brick-100/40"} ${folded && foldable?.[i] ? "hidden print:table-row" : ""}`}
+                  data-verdict={checkVerdict(c)}
+                  data-check-key={c.key}
+                >
                   <td className="text-xs">{c.key ? <FieldPick path={`checks[${JSON.stringify(c.key)}].value`}>{c.label}</FieldPick> : c.label}</td>
                   <td className="whitespace-nowrap text-right font-mono text-xs">
                     {units.toResultText(kind, c.value)} {units.unitLabel(kind)}

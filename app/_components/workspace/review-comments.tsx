@@ -1,9 +1,9 @@
 "use client";
 
 import { useFormikContext } from "formik";
-import { createContext, useContext, useMemo, type ReactNode } from "react";
+import { createContext, useContext, useMemo, useState, type ReactNode } from "react";
 import { fieldLabel } from "@/modules/revisions/field-labels";
-import { placeComments, type OpenFieldComment } from "@/modules/desk/review-markers";
+import { placeComments, samePlacement, type OpenFieldComment } from "@/modules/desk/review-markers";
 
 /** An open review comment as the workspace receives it from the page. */
 export type WorkspaceComment = OpenFieldComment;
@@ -25,7 +25,13 @@ function showField(name: string) {
  */
 export function ReviewCommentsProvider({ comments, revisionHref, children }: { comments: WorkspaceComment[]; revisionHref: (revisionId: string) => string; children: ReactNode }) {
   const { values } = useFormikContext<unknown>();
-  const { placed, byField } = useMemo(() => placeComments(comments, values), [comments, values]);
+  // Placed again on every change of the form; the earlier placement (and so the markers' context)
+  // is kept while nothing moved (React's "information from previous renders" pattern).
+  const next = useMemo(() => placeComments(comments, values), [comments, values]);
+  const [kept, setKept] = useState(next);
+  const same = samePlacement(kept, next);
+  if (!same) setKept(next);
+  const { placed, byField } = same ? kept : next;
   return (
     <ByField.Provider value={byField}>
       {comments.length ? (

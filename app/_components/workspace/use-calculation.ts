@@ -176,11 +176,14 @@ export function useCalculation(document: unknown, enabled: boolean) {
   const lanes = useRef<{ quick: WorkerLane; ramps: WorkerLane } | null>(null);
   // The newest quick run whose answer is set for display, and the newest one timed (input-timing.ts).
   const answeredSeq = useRef(0);
+  /** The newest answer brought nothing new to draw (an error, or its ramps run was already shown). */
+  const answeredFailed = useRef(false);
   const timedSeq = useRef(0);
   useLayoutEffect(() => {
     if (answeredSeq.current <= timedSeq.current) return;
     timedSeq.current = answeredSeq.current;
-    markCommitted(answeredSeq.current);
+    // an error brings no new result, so nothing is drawn later for it
+    markCommitted(answeredSeq.current, !answeredFailed.current);
   });
 
   // The workers, and the one question about the server's engine (again when the page comes back into view).
@@ -198,6 +201,7 @@ export function useCalculation(document: unknown, enabled: boolean) {
       }
       latestShownSeq.current = r.seq;
       answeredSeq.current = r.seq;
+      answeredFailed.current = !r.ok || completeSeq.current === r.seq;
       setSettledBody(replyBody);
       if (r.ok && completeSeq.current === r.seq) return; // its ramps run came first and is shown
       if (r.ok) {

@@ -3,7 +3,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { parseAnalysisInput } from "@/modules/calc";
 import { formFromInput } from "@/modules/desk/draft-form";
-import { formFieldNameOf, placeComments } from "@/modules/desk/review-markers";
+import { formFieldNameOf, placeComments, samePlacement } from "@/modules/desk/review-markers";
 
 function exampleForm() {
   const parsed = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", "raw-water-pump-train.json"), "utf8")));
@@ -44,5 +44,24 @@ describe("formFieldNameOf", () => {
     expect(byField.get("soil.poissonRatio")?.map((c) => c.id)).toEqual(["1", "2"]);
     expect(byField.size).toBe(1);
     expect(placed.filter((p) => p.fieldName === null).map((p) => p.comment.id)).toEqual(["3", "4"]);
+  });
+});
+
+describe("samePlacement", () => {
+  const form = exampleForm();
+  const comments = [
+    { id: "1", fieldPath: "soil.poissonRatio" },
+    { id: "2", fieldPath: 'machines["Raw-water pump RWP-101"].mass' },
+    { id: "3", fieldPath: null },
+  ];
+  it("holds for the same comments placed again on an edited form", () => {
+    const edited = { ...form, soil: { ...form.soil, poissonRatio: 0.31 } };
+    expect(samePlacement(placeComments(comments, form), placeComments(comments, edited))).toBe(true);
+  });
+  it("fails when a comment moves with its machine, or the comments differ", () => {
+    const swapped = { ...form, machines: [...form.machines].reverse() };
+    expect(samePlacement(placeComments(comments, form), placeComments(comments, swapped))).toBe(false);
+    expect(samePlacement(placeComments(comments, form), placeComments(comments.slice(0, 2), form))).toBe(false);
+    expect(samePlacement(placeComments(comments, form), placeComments([...comments.map((c) => ({ ...c }))], form))).toBe(false);
   });
 });
