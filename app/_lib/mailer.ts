@@ -22,7 +22,7 @@ function getTransport(): Transporter {
   return holder.__plinthMailer;
 }
 
-/** Sends a queued message unless another server holds or has sent it (deliverQueuedEmail). */
+/** Sends a queued message unless another server has claimed or sent it (deliverQueuedEmail: claim, then SMTP outside any transaction). */
 async function deliver(row: OutgoingEmailRow): Promise<boolean> {
   const outcome = await deliverQueuedEmail(row.id, async (locked) => {
     await getTransport().sendMail({ from: getServerEnv().MAIL_FROM, to: locked.to, subject: locked.subject, text: locked.text });

@@ -1,4 +1,5 @@
-import { and, desc, eq, lt } from "drizzle-orm";
+import { randomUUID } from "node:crypto";
+import { and, desc, eq, lt, or, sql } from "drizzle-orm";
 import { getDb } from "../client";
 import { redactOneTimeLinks } from "@/modules/platform/mail-redaction";
 import { capturedEmails, outgoingEmails, type CapturedEmailRow, type OutgoingEmailRow } from "../schema";
@@ -10,47 +11,59 @@ export async function enqueueEmail(input: { to: string; subject: string; text: s
   return row;
 }
 
-export async function listQueuedEmails(limit = 20, maxAttempts = 20): Promise<OutgoingEmailRow[]> {
-  return getDb()
-    .select()
-    .from(outgoingEmails)
-    .where(and(eq(outgoingEmails.status, "queued"), lt(outgoingEmails.attempts, maxAttempts)))
-    .orderBy(outgoingEmails.createdAt)
-    .limit(limit);
+/** A message still to send: queued, or claimed by a server whose claim has lapsed. */
+function sendable(maxAttempts: number) {
+  return and(
+    lt(outgoingEmails.attempts, maxAttempts),
+    or(eq(outgoingEmails.status, "queued"), and(eq(outgoingEmails.status, "sending"), lt(outgoingEmails.claimedUntil, sql`now()`))),
+  );
 }
 
+export async function listQueuedEmails(limit = 20, maxAttempts = 20): Promise<OutgoingEmailRow[]> {
+  return getDb().select().from(outgoingEmails).where(sendable(maxAttempts)).orderBy(outgoingEmails.createdAt).limit(limit);
+}
+
+/** How long a server's claim on a message lasts: well above the transport's timeouts (3 s connect, 5 s socket). */
+export const MAIL_CLAIM_SECONDS = 120;
+
 /**
- * Hands one queued message to `send` while holding its row lock, and writes the outcome in
- * the same transaction. Several servers share the queue (the 15 s flush of each, and the
- * request that queued a message sending it at once): the lock is taken with SKIP LOCKED, so a
- * message another server is sending, or has sent, is skipped here and never sent twice.
+ * Hands one queued message to `send` and writes the outcome. Several servers share the queue
+ * (the 15 s flush of each, and the request that queued a message sending it at once), so a
+ * message is first claimed in one UPDATE (status "sending", a fresh claim token, a lease of
+ * MAIL_CLAIM_SECONDS): of two servers racing for it one gets the row and the other none, and a
+ * message another server is sending, or has sent, is skipped here. The SMTP exchange then runs
+ * outside any transaction, so no database connection or row lock is held while the mail server
+ * answers (it did before). The outcome is written only under the same claim token. A server
+ * that dies mid-send leaves the claim to lapse, and another server sends the message again
+ * after MAIL_CLAIM_SECONDS (at least once, never twice while a claim holds).
  * `send` resolves with the text to keep (one-time links removed) or throws the failure.
  */
 export async function deliverQueuedEmail(id: string, send: (row: OutgoingEmailRow) => Promise<string>, maxAttempts = 20): Promise<"sent" | "failed" | "skipped"> {
-  return getDb().transaction(async (tx) => {
-    const row = (
-      await tx
-        .select()
-        .from(outgoingEmails)
-        .where(and(eq(outgoingEmails.id, id), eq(outgoingEmails.status, "queued"), lt(outgoingEmails.attempts, maxAttempts)))
-        .for("update", { skipLocked: true })
-    )[0];
-    if (!row) return "skipped";
-    let storedText: string;
-    try {
-      storedText = await send(row);
-    } catch (e) {
-      const attempts = row.attempts + 1;
-      const error = (e instanceof Error ? e.message : String(e)).slice(0, 500);
-      await tx
-        .update(outgoingEmails)
-        .set({ attempts, lastError: error, status: attempts >= maxAttempts ? "failed" : "queued", updatedAt: new Date() })
-        .where(eq(outgoingEmails.id, row.id));
-      return "failed";
-    }
-    await tx.update(outgoingEmails).set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null, text: storedText }).where(eq(outgoingEmails.id, row.id));
-    return "sent";
-  });
+  const token = randomUUID();
+  const [row] = await getDb()
+    .update(outgoingEmails)
+    .set({ status: "sending", claimToken: token, claimedUntil: sql`now() + make_interval(secs => ${MAIL_CLAIM_SECONDS})`, updatedAt: new Date() })
+    .where(and(eq(outgoingEmails.id, id), sendable(maxAttempts)))
+    .returning();
+  if (!row) return "skipped";
+  const mine = and(eq(outgoingEmails.id, row.id), eq(outgoingEmails.claimToken, token));
+  let storedText: string;
+  try {
+    storedText = await send(row);
+  } catch (e) {
+    const attempts = row.attempts + 1;
+    const error = (e instanceof Error ? e.message : String(e)).slice(0, 500);
+    await getDb()
+      .update(outgoingEmails)
+      .set({ attempts, lastError: error, status: attempts >= maxAttempts ? "failed" : "queued", claimToken: null, claimedUntil: null, updatedAt: new Date() })
+      .where(mine);
+    return "failed";
+  }
+  await getDb()
+    .update(outgoingEmails)
+    .set({ status: "sent", sentAt: new Date(), updatedAt: new Date(), lastError: null, text: storedText, claimToken: null, claimedUntil: null })
+    .where(mine);
+  return "sent";
 }
 
 export async function listOutgoingEmails(limit = 100): Promise<OutgoingEmailRow[]> {

@@ -12,8 +12,12 @@ export const outgoingEmails = pgTable("outgoing_emails", {
   to: text("to").notNull(),
   subject: text("subject").notNull(),
   text: text("text").notNull(),
-  status: text("status", { enum: ["queued", "sent", "failed"] }).notNull().default("queued"),
+  // "sending": claimed by one server, which sends it outside any transaction (no database
+  // connection held while SMTP answers); the claim lapses at claimedUntil if that server dies.
+  status: text("status", { enum: ["queued", "sending", "sent", "failed"] }).notNull().default("queued"),
   attempts: integer("attempts").notNull().default(0),
+  claimToken: uuid("claim_token"),
+  claimedUntil: timestamp("claimed_until", { withTimezone: true }),
   lastError: text("last_error"),
   sentAt: timestamp("sent_at", { withTimezone: true }),
   ...stamps,

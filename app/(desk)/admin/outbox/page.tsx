@@ -40,7 +40,7 @@ export default async function OutboxPage() {
                     <td className="font-mono text-xs">{m.to}</td>
                     <td>{m.subject}</td>
                     <td>
-                      <span className={`tag ${m.status === "sent" ? "bg-moss-100 text-moss-700" : m.status === "queued" ? "bg-ochre-100 text-ochre-700" : "bg-brick-100 text-brick-700"}`}>
+                      <span className={`tag ${m.status === "sent" ? "bg-moss-100 text-moss-700" : m.status === "queued" || m.status === "sending" ? "bg-ochre-100 text-ochre-700" : "bg-brick-100 text-brick-700"}`}>
                         {m.status}
                       </span>
                       {m.lastError ? <p className="mt-1 text-2xs text-basalt-400">{m.lastError}</p> : null}
