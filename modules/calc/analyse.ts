@@ -10,13 +10,30 @@ import { buildModel } from "./model";
 import type { AnalysisResult } from "./result-types";
 import type { AnalysisInput } from "./schema";
 import { soilBand } from "./soil-band";
-import { springsResults } from "./springs-results";
+import { baseBearingPressure, springsResults } from "./springs-results";
 import { runSoilCase } from "./soil-case";
 import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
-export const ENGINE_VERSION = "1.7.0";
+export const ENGINE_VERSION = "1.8.0";
+
+export const TWO_STAGE_TRANSIENT_WARNING =
+  "Speed ramps: not computed for springs on a base block. The time integration is six-DOF (the block on a fixed support) and would ignore the base block and the soil under it, so the requested start-up and coast-down runs are left out rather than shown as the two-stage answer; the steady-state results above (twelve DOFs) cover every operating speed.";
+
+/**
+ * Springs on a base block: the `bearing-pressure` check applies to the base on the soil, its
+ * value (upper block, machines and base) g / base footprint over the allowable pressure.
+ */
+function baseBearing(model: ReturnType<typeof buildModel>, checks: AnalysisResult["checks"]): AnalysisResult["checks"] {
+  if (!model.baseBlock) return checks;
+  const pressure = baseBearingPressure(model);
+  return checks.map((c) => {
+    if (c.id !== "bearing-pressure") return c;
+    const value = pressure / model.input.soil.allowableBearingPressure;
+    return { ...c, label: "Static bearing pressure under the base block (block, machines and base) over the allowable bearing pressure", value, pass: value <= c.limit };
+  });
+}
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
@@ -38,7 +55,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
   const accepted = applyAcceptances(
     [
-      ...markNotApplicable(buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined), input.impedance.method),
+      ...baseBearing(model, markNotApplicable(buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined), input.impedance.method, model.baseBlock !== undefined)),
       ...(band ? [...boundChecks(criteria, "lower", band.cases.lower, band.source, userSprings), ...boundChecks(criteria, "upper", band.cases.upper, band.source, userSprings)] : []),
     ],
     input.acceptances,
@@ -46,20 +63,29 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   const springs = springsResults(model, nominal, band ? [band.cases.lower, band.cases.upper] : []);
   const checks = [...accepted.checks, ...(springs?.checks ?? [])];
   // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
-  const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;
+  // Springs on a base block: the speed ramp is six-DOF (the upper block on a fixed support) and
+  // would ignore the base, so no run is made and the result says so (README, CONVENTIONS.md).
+  const transient = input.transient && !model.baseBlock ? transientResults(model, nominal, input.transient) : undefined;
   const warnings = [
     ...model.warnings,
     ...nominal.impedance.warnings,
     ...analysisWarnings(model, nominal, sweepSettings),
     ...(transient ?? []).flatMap((t) => t.warnings),
     ...accepted.warnings,
+    ...(input.transient && model.baseBlock ? [TWO_STAGE_TRANSIENT_WARNING] : []),
   ];
   const result: AnalysisResult = {
     schemaVersion: 1,
     engineVersion: ENGINE_VERSION,
     massProperties: model.massProperties,
     impedance: nominal.impedanceResult,
-    modes: nominal.modes.map(({ frequencyHz, dominant, participation, shape }) => ({ frequencyHz, dominant, participation, shape })),
+    modes: nominal.modes.map(({ frequencyHz, dominant, participation, shape, baseShape, upperShare, block }) => ({
+      frequencyHz,
+      dominant,
+      participation,
+      shape,
+      ...(baseShape ? { baseShape, upperShare: upperShare ?? 0, block: block ?? "upper" } : {}),
+    })),
     rotors: nominal.rotors,
     checks,
     sweep,

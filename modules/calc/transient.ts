@@ -458,6 +458,10 @@ export function analyseTransient(input: AnalysisInput, request: TransientRequest
   }
   const issues: InputIssue[] = [];
   checkTransientRequest(input, parsed.data, [], (path, message) => issues.push({ path: formatPath(path), message }));
+  // the integration is six-DOF: on a base block it would ignore the base (analyse.ts)
+  if (input.impedance.method === "springs" && input.impedance.base) {
+    issues.push({ path: "", message: "speed ramps are not computed for springs on a base block (the time integration is six-DOF and would ignore the base block)" });
+  }
   if (issues.length > 0) throw new TransientRequestError(issues);
   const model = buildModel(input);
   const result = transientRun(model, runSoilCase(model, 1), parsed.data);

@@ -84,7 +84,7 @@ describe("POST /api/v1/calculate", () => {
       modes: { frequencyHz: number }[];
       impedance: { method: string; details: Record<string, number>; coupling?: { dofs: string[]; stiffness: number }[] };
     };
-    expect(result.engineVersion).toBe("1.7.0");
+    expect(result.engineVersion).toBe("1.8.0");
     expect(result.impedance.method).toBe("piles");
     expect(result.modes).toHaveLength(6);
     expect(result.impedance.details.pileCount).toBe(4);

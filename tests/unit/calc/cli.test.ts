@@ -30,7 +30,7 @@ describe("calc command line", () => {
     expect(out.stderr).toBe("");
     const result = JSON.parse(out.stdout);
     expect(result.schemaVersion).toBe(1);
-    expect(result.engineVersion).toBe("1.7.0");
+    expect(result.engineVersion).toBe("1.8.0");
     expect(result.modes).toHaveLength(6);
   }, CLI_TIMEOUT_MS);
 
