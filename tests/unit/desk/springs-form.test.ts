@@ -6,7 +6,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
 import { formFieldOfIssue, formFromDraftDocument, formFromInput, toInputDocument } from "@/modules/desk/draft-form";
-import { springsOf } from "@/modules/desk/spring-layout";
+import { springsBaseOf, springsOf } from "@/modules/desk/spring-layout";
 
 const read = (name: string) => JSON.parse(readFileSync(path.join(process.cwd(), "examples", `${name}.json`), "utf8")) as AnalysisInputDocument;
 
@@ -88,5 +88,17 @@ describe("the design form keeps a base block under the springs (engine 1.8.0)", 
     expect(formFieldOfIssue("impedance.base.x[1]", "springs")).toBe("impedance.springsBase.x.1");
     expect(formFieldOfIssue("impedance.base.support.stiffness.rz", "springs")).toBe("impedance.stiffness.rz");
     expect(formFieldOfIssue("impedance.springs[0]", "springs")).toBe("impedance.springs[0]");
+  });
+});
+
+describe("the base block the drawing shows (springsBaseOf)", () => {
+  it("the base's box, ordered, when the springs rest on it with six coordinates; nothing on a rigid floor or with a blank", () => {
+    const form = formFromInput(parsed(read("fan-on-springs-base-block")));
+    expect(springsBaseOf(form)).toEqual({ x: [-3.25, 3.25], y: [-2.25, 2.25], z: [-2.1, -0.3] });
+    const floor = { ...form, impedance: { ...form.impedance, springsBase: { ...form.impedance.springsBase!, restsOn: "floor" as const } } };
+    expect(springsBaseOf(floor)).toBeNull();
+    const blank = { ...form, impedance: { ...form.impedance, springsBase: { ...form.impedance.springsBase!, z: [null, -0.3] as [null, number] } } };
+    expect(springsBaseOf(blank)).toBeNull();
+    expect(springsBaseOf(formFromInput(parsed(read("fan-on-springs"))))).toBeNull();
   });
 });
