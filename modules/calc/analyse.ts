@@ -18,9 +18,6 @@ import { transientResults } from "./transient";
 
 export const ENGINE_VERSION = "1.8.0";
 
-export const TWO_STAGE_TRANSIENT_WARNING =
-  "Speed ramps: not computed for springs on a base block. The time integration is six-DOF (the block on a fixed support) and would ignore the base block and the soil under it, so the requested start-up and coast-down runs are left out rather than shown as the two-stage answer; the steady-state results above (twelve DOFs) cover every operating speed.";
-
 /**
  * Springs on a base block: the `bearing-pressure` check applies to the base on the soil, its
  * value (upper block, machines and base) g / base footprint over the allowable pressure.
@@ -63,16 +60,13 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   const springs = springsResults(model, nominal, band ? [band.cases.lower, band.cases.upper] : []);
   const checks = [...accepted.checks, ...(springs?.checks ?? [])];
   // after the sweep and the rotor envelopes: the runs reuse the nominal case's harmonic solver
-  // Springs on a base block: the speed ramp is six-DOF (the upper block on a fixed support) and
-  // would ignore the base, so no run is made and the result says so (README, CONVENTIONS.md).
-  const transient = input.transient && !model.baseBlock ? transientResults(model, nominal, input.transient) : undefined;
+  const transient = input.transient ? transientResults(model, nominal, input.transient) : undefined;
   const warnings = [
     ...model.warnings,
     ...nominal.impedance.warnings,
     ...analysisWarnings(model, nominal, sweepSettings),
     ...(transient ?? []).flatMap((t) => t.warnings),
     ...accepted.warnings,
-    ...(input.transient && model.baseBlock ? [TWO_STAGE_TRANSIENT_WARNING] : []),
   ];
   const result: AnalysisResult = {
     schemaVersion: 1,

@@ -360,3 +360,103 @@ export function twoMassFrequenciesHz(m1: number, k1: number, m2: number, k2: num
   const hi = (b + disc) / (2 * a);
   return [Math.sqrt(lo) / (2 * Math.PI), Math.sqrt(hi) / (2 * Math.PI)];
 }
+
+/**
+ * The twelve-DOF time-domain model of a speed ramp (transient.ts): M12 = diag(M_U, M_B),
+ * K12 = [[K_s, -K_s T], [-T^T K_s, T^T K_s T + K_b]], C12 the same with C_s and
+ * C_b + 2 beta K_b / w_ref, the soil under the base frozen at w_ref and its material damping
+ * made viscous there (the convention of the six-DOF ramp, transient.ts), row-major 12 x 12.
+ */
+export function twoStageTimeDomain(upperMass: ArrayLike<number>, parts: TwoStageParts, omegaRef: number): { M: Float64Array; K: Float64Array; C: Float64Array } {
+  const T = parts.base.transfer;
+  const Kb = new Float64Array(36);
+  const Cb = new Float64Array(36);
+  evaluateImpedanceMatrix(parts.soil, omegaRef, Kb, Cb, new Float64Array(6), new Float64Array(6), true);
+  const n = 12;
+  const M = new Float64Array(n * n);
+  const K = new Float64Array(n * n);
+  const C = new Float64Array(n * n);
+  const fill = (out: Float64Array, S: Float64Array, soil: (i: number) => number) => {
+    const StS = congruence(T, S);
+    for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) {
+      out[i * n + j] = S[i * 6 + j] as number;
+      let sT = 0;
+      for (let m = 0; m < 6; m++) sT += (S[i * 6 + m] as number) * (T[m * 6 + j] as number);
+      out[i * n + 6 + j] = -sT;
+      out[(6 + j) * n + i] = -sT;
+      out[(6 + i) * n + 6 + j] = (StS[i * 6 + j] as number) + soil(i * 6 + j);
+    }
+  };
+  fill(K, parts.springK, (ij) => Kb[ij] as number);
+  fill(C, parts.springC, (ij) => (Cb[ij] as number) + (omegaRef > 0 ? (2 * parts.beta * (Kb[ij] as number)) / omegaRef : 0));
+  for (let i = 0; i < 6; i++) for (let j = 0; j < 6; j++) {
+    M[i * n + j] = upperMass[i * 6 + j] as number;
+    M[(6 + i) * n + 6 + j] = parts.base.massMatrix[i * 6 + j] as number;
+  }
+  return { M, K, C };
+}
+
+/** Solves the dense complex n x n system (Ar + i Ai) x = b by Gaussian elimination with partial pivoting (once per run: no hot loop). */
+export function solveComplexDense(n: number, Ar: ArrayLike<number>, Ai: ArrayLike<number>, br: ArrayLike<number>, bi: ArrayLike<number>): { re: Float64Array; im: Float64Array } {
+  const ar = Float64Array.from(Ar);
+  const ai = Float64Array.from(Ai);
+  const xr = Float64Array.from(br);
+  const xi = Float64Array.from(bi);
+  for (let c = 0; c < n; c++) {
+    let p = c;
+    for (let r = c + 1; r < n; r++) if (Math.hypot(ar[r * n + c] as number, ai[r * n + c] as number) > Math.hypot(ar[p * n + c] as number, ai[p * n + c] as number)) p = r;
+    if (p !== c) {
+      for (let j = 0; j < n; j++) {
+        const t = ar[c * n + j] as number;
+        ar[c * n + j] = ar[p * n + j] as number;
+        ar[p * n + j] = t;
+        const u = ai[c * n + j] as number;
+        ai[c * n + j] = ai[p * n + j] as number;
+        ai[p * n + j] = u;
+      }
+      const t = xr[c] as number;
+      xr[c] = xr[p] as number;
+      xr[p] = t;
+      const u = xi[c] as number;
+      xi[c] = xi[p] as number;
+      xi[p] = u;
+    }
+    const dr = ar[c * n + c] as number;
+    const di = ai[c * n + c] as number;
+    const den = dr * dr + di * di;
+    if (!(den > 0)) throw new Error("internal error: singular system");
+    for (let r = c + 1; r < n; r++) {
+      const er = ar[r * n + c] as number;
+      const ei = ai[r * n + c] as number;
+      // f = e / d
+      const fr = (er * dr + ei * di) / den;
+      const fi = (ei * dr - er * di) / den;
+      for (let j = c; j < n; j++) {
+        const cr = ar[c * n + j] as number;
+        const ci = ai[c * n + j] as number;
+        ar[r * n + j] = (ar[r * n + j] as number) - (fr * cr - fi * ci);
+        ai[r * n + j] = (ai[r * n + j] as number) - (fr * ci + fi * cr);
+      }
+      const cr = xr[c] as number;
+      const ci = xi[c] as number;
+      xr[r] = (xr[r] as number) - (fr * cr - fi * ci);
+      xi[r] = (xi[r] as number) - (fr * ci + fi * cr);
+    }
+  }
+  for (let i = n - 1; i >= 0; i--) {
+    let sr = xr[i] as number;
+    let si = xi[i] as number;
+    for (let j = i + 1; j < n; j++) {
+      const a = ar[i * n + j] as number;
+      const b = ai[i * n + j] as number;
+      sr -= a * (xr[j] as number) - b * (xi[j] as number);
+      si -= a * (xi[j] as number) + b * (xr[j] as number);
+    }
+    const dr = ar[i * n + i] as number;
+    const di = ai[i * n + i] as number;
+    const den = dr * dr + di * di;
+    xr[i] = (sr * dr + si * di) / den;
+    xi[i] = (si * dr - sr * di) / den;
+  }
+  return { re: xr, im: xi };
+}

@@ -575,7 +575,6 @@ const SpeedRampResultsM = memo(SpeedRampResults);
 export function SpeedRampsSection({ readOnly, result, stale }: { readOnly: boolean; result: AnalysisResult | undefined; stale: boolean }) {
   const { values } = useFormikContext<DraftForm>();
   const asked = values.transient.length;
-  const onBaseBlock = values.impedance.method === "springs" && values.impedance.springsBase?.restsOn === "base";
   return (
     <section className="slab p-4" aria-labelledby="speed-ramps-h" data-testid="panel-speed-ramps">
       <div className="mb-3 flex items-center justify-between gap-2">
@@ -594,16 +593,7 @@ export function SpeedRampsSection({ readOnly, result, stale }: { readOnly: boole
       {asked > 0 ? (
         <div className={`mt-4 space-y-3 ${stale ? "opacity-80" : ""}`}>
           {stale && result ? <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700">These runs belong to earlier inputs; new ones are on the way or the inputs are incomplete.</p> : null}
-          {result?.transient?.length ? (
-            <SpeedRampResultsM result={result} />
-          ) : onBaseBlock ? (
-            <p className="rounded-plinth bg-ochre-100 px-3 py-1.5 text-xs text-ochre-700" data-testid="speed-ramps-base-block">
-              Speed ramps are not computed for springs on a base block: the time integration is six-DOF and would ignore the base block and the soil under it, so no run is shown
-              rather than one that is not the two-stage answer. The steady-state results (twelve degrees of freedom) cover every operating speed.
-            </p>
-          ) : (
-            <p className="text-sm text-basalt-400">The runs are computed once the inputs can be analysed.</p>
-          )}
+          {result?.transient?.length ? <SpeedRampResultsM result={result} /> : <p className="text-sm text-basalt-400">The runs are computed once the inputs can be analysed.</p>}
         </div>
       ) : null}
     </section>

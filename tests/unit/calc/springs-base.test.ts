@@ -4,7 +4,9 @@
 // base against the rigid-floor springs, the condensed six-DOF solve against a direct 12 x 12
 // complex solve, and the input rules, the bearing check and the speed-ramp refusal.
 import { describe, expect, it } from "vitest";
-import { analyse, analyseTransient, parseAnalysisInput, TransientRequestError, type AnalysisInputDocument } from "@/modules/calc";
+import { analyse, analyseTransient, parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
+import { integrateRun } from "@/modules/calc/transient";
+import { relClose } from "./helpers";
 import { baseAndRelativeMotion, responseSet } from "@/modules/calc/harmonic";
 import { buildModel } from "@/modules/calc/model";
 import { runSoilCase } from "@/modules/calc/soil-case";
@@ -379,14 +381,41 @@ describe("springs on a base block: checks, refusals and speed ramps", () => {
     expect(r.springs?.base?.rotors[0]?.cases.find((c) => c.case === "vertical")?.baseDisplacementPeak[2]).toBeGreaterThan(0);
   });
 
-  it("leaves the speed ramps out with a warning, and refuses a stand-alone run, rather than run a six-DOF ramp that ignores the base", () => {
-    const d = doc(BASE);
-    d.transient = [{ machine: "Fan", rotor: "Impeller", kind: "run-up", durationS: 5 }];
+  it("runs the speed ramps on the twelve-DOF model: at constant rated speed, started on the steady state, it stays on the harmonic amplitude", () => {
+    // at the reference (rated) speed the frozen time-domain model is the frequency-domain one exactly:
+    // K_b(w_ref), C_b(w_ref) + 2 beta K_b / w_ref gives i w C_b + 2 i beta K_b at w = w_ref
+    const input = parsed(doc(BASE, { materialDamping: 0.03, dampingRatio: 0.05 }));
+    const model = buildModel(input);
+    const sc = runSoilCase(model, 1);
+    const rotor = model.rotors[0];
+    if (!rotor) throw new Error("no rotor");
+    for (const name of ["vertical", "rotating"] as const) {
+      const loadIndex = rotor.loads.findIndex((l) => l.case === name && l.unbalanceMode === "static");
+      const harmonic = sc.rotors[0]?.cases[loadIndex];
+      const run = integrateRun(model, sc, { rotor, loadIndex, fromRpm: 1480, toRpm: 1480, durationS: 2, outputPoints: 50, start: "steady", stepsPerPeriod: 100 });
+      expect(run.naturalFrequenciesHz).toHaveLength(12);
+      for (let p = 0; p < 2; p++) {
+        const expected = Math.max(...(harmonic?.points[p]?.displacementPeak ?? [0]));
+        expect(relClose(run.displacementPeak[p]?.[0] ?? 0, expected, 5e-3)).toBe(true);
+        expect(relClose(run.displacementPeak[p]?.at(-1) ?? 0, expected, 5e-3)).toBe(true);
+      }
+    }
+  });
+
+  it("a slow run-up through the isolator resonance reproduces the twelve-DOF harmonic peak (quasi-static limit), in analyse and on its own", () => {
+    const d = doc(BASE, { materialDamping: 0.03, dampingRatio: 0.05 });
+    const request = { machine: "Fan", rotor: "Impeller", kind: "run-up" as const, fromRpm: 100, toRpm: 140, durationS: 80, case: "vertical" as const };
+    d.transient = [request];
     const input = parsed(d);
     const r = analyse(input);
-    expect(r.transient).toBeUndefined();
-    expect(r.warnings.some((w) => /Speed ramps: not computed for springs on a base block/.test(w))).toBe(true);
-    expect(() => analyseTransient(input, { machine: "Fan", rotor: "Impeller", kind: "run-up", durationS: 5 })).toThrow(TransientRequestError);
+    const run = r.transient?.[0];
+    expect(run?.model.naturalFrequenciesHz).toHaveLength(12);
+    const peak = run?.peakDisplacement.value ?? 0;
+    expect(relClose(peak, run?.steadyStateMax.displacementPeak ?? 0, 0.01)).toBe(true);
+    // the peak sits at the two-mass vertical isolator frequency
+    expect(relClose(run?.peakDisplacement.atRpm ?? 0, (r.springs?.base?.twoMassVerticalHz[0] ?? 0) * 60, 0.05)).toBe(true);
+    expect(r.warnings.some((w) => /not computed/.test(w))).toBe(false);
+    expect(analyseTransient(input, request).peakDisplacement.value).toBe(peak);
   });
 
   it("refuses a base above the block's underside, a spring off the base, an embedment deeper than the base and unknown fields, naming the field", () => {
