@@ -386,6 +386,8 @@ export interface SpringBaseResult {
   /** K_b, C_b at `evaluatedAtHz` (the first rotor's rated speed, as for the modes). */
   soilStiffness: Dof6;
   soilDashpot: Dof6;
+  /** The soil's material damping under the base (beta in K_b (1 + 2 i beta)). */
+  soilMaterialDamping: number;
   evaluatedAtHz: number;
   soilDetails: Record<string, number>;
   /** Closed-form two-mass vertical frequencies (sum kz on the upper mass, soil K_z under the base mass), Hz ascending. */

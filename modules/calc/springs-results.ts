@@ -371,6 +371,7 @@ function baseResult(model: Model, nominal: SoilCase, parts: TwoStageParts): Spri
     soilStaticStiffness: dofFromArray(parts.soil.staticStiffness),
     soilStiffness: dofFromArray(kb),
     soilDashpot: dofFromArray(cb),
+    soilMaterialDamping: parts.beta,
     evaluatedAtHz: omega1 / (2 * Math.PI),
     soilDetails: parts.soil.details,
     twoMassVerticalHz: twoMass,

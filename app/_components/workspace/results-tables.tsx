@@ -501,6 +501,12 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
   const u = useUnits();
   return (
     <div className="space-y-3">
+      {result.springs?.base ? (
+        <p className="text-2xs text-basalt-400" data-testid="response-base-note">
+          Springs on a base block: the transmitted force and the transmissibility below are the force into the ground under the base; the force in each spring and the base&apos;s
+          own motion are in the soil-springs panel.
+        </p>
+      ) : null}
       {result.rotors.map((r) => (
         <div key={`${r.machine}-${r.rotor}`}>
           <p className="text-xs font-semibold text-basalt-700">
