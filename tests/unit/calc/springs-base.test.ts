@@ -432,6 +432,16 @@ describe("springs on a base block: checks, refusals and speed ramps", () => {
     expect(issuesOf(wrongSupport).some((i) => i.path.startsWith("impedance.base.support"))).toBe(true);
   });
 
+  it("gives the Gazetas validity warnings for the base's footprint (a0 = w B / Vs beyond 1.5 in the speed range)", () => {
+    const r = analyse(parsed(doc(BASE)));
+    const B = 1.5; // half the base's width (3 m)
+    const a0 = (2 * Math.PI * (1480 / 60) * B) / 140;
+    expect(a0).toBeGreaterThan(1.5);
+    expect(r.warnings.some((w) => w.startsWith("Base block: Fan Impeller: a0 = w B / Vs reaches") && w.includes(a0.toFixed(2)))).toBe(true);
+    // a rigid floor has no soil under it: no such warning
+    expect(analyse(parsed(doc(undefined))).warnings.some((w) => /a0 = w B/.test(w))).toBe(false);
+  });
+
   it("applies the soil band to the soil under the base and to the springs' stiffness together", () => {
     const r = analyse(parsed(doc(BASE)));
     const lower = r.bounds?.lower;
