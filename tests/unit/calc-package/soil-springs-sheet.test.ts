@@ -8,6 +8,7 @@ import { describe, expect, it } from "vitest";
 import { parseAnalysisInput } from "@/modules/calc";
 import { buildRevisionWorkbook, PACKAGE_SHEETS } from "@/modules/calc-package";
 import { DOF_NAMES } from "@/modules/calc-package/revision-workbook";
+import { HAND_CHECK_BASE_NOTE } from "@/modules/calc-package/hand-check-sheet";
 import { packageData, roundTrip } from "./fixtures";
 
 function texts(ws: ExcelJS.Worksheet): string[] {
@@ -125,5 +126,7 @@ describe("package of springs on a base block (engine 1.8.0)", () => {
     expect(texts(springs)).toContain("Isolation per operating speed (force into the ground, twelve-DOF steady state)");
     const modes = wb.getWorksheet(PACKAGE_SHEETS.modes)!;
     expect(texts(modes).filter((t) => t === "base block")).toHaveLength(6);
+    // the hand check says what its k_z and transmissibility are on a base block
+    expect(texts(wb.getWorksheet(PACKAGE_SHEETS.handCheck)!).some((t) => t.includes(HAND_CHECK_BASE_NOTE))).toBe(true);
   });
 });
