@@ -4,8 +4,8 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { parseAnalysisInput, type AnalysisInputDocument } from "@/modules/calc";
-import { formFieldOfIssue, formFromDraftDocument, formFromInput, toInputDocument } from "@/modules/desk/draft-form";
+import { parseAnalysisInput, parseDraftInput, type AnalysisInputDocument } from "@/modules/calc";
+import { draftFormSchema, formCompleteness, formFieldOfIssue, formFromDraftDocument, formFromInput, newSpringsBase, toInputDocument } from "@/modules/desk/draft-form";
 import { springsBaseOf, springsOf } from "@/modules/desk/spring-layout";
 
 const read = (name: string) => JSON.parse(readFileSync(path.join(process.cwd(), "examples", `${name}.json`), "utf8")) as AnalysisInputDocument;
@@ -100,5 +100,28 @@ describe("the base block the drawing shows (springsBaseOf)", () => {
     const blank = { ...form, impedance: { ...form.impedance, springsBase: { ...form.impedance.springsBase!, z: [null, -0.3] as [null, number] } } };
     expect(springsBaseOf(blank)).toBeNull();
     expect(springsBaseOf(formFromInput(parsed(read("fan-on-springs"))))).toBeNull();
+  });
+});
+
+describe("a base block with blanks keeps the draft incomplete, not invalid", () => {
+  it("blank base coordinates are missing values in the form and in the draft schema; a wrong order is invalid", async () => {
+    const form = formFromInput(parsed(read("fan-on-springs")));
+    const blank = { ...form, impedance: { ...form.impedance, springsBase: newSpringsBase() } };
+    const errorsOf = async (f: typeof form) => {
+      try {
+        await draftFormSchema.validate(f, { abortEarly: false });
+        return {};
+      } catch (e) {
+        return Object.fromEntries((e as { inner: { path?: string; message: string }[] }).inner.map((i) => [i.path ?? "", i.message]));
+      }
+    };
+    const errors = await errorsOf(blank);
+    expect(Object.keys(errors).some((k) => k.startsWith("impedance.springsBase.z"))).toBe(true);
+    expect(formCompleteness(errors)).toBe("incomplete");
+    const draft = parseDraftInput(toInputDocument(blank));
+    expect(draft).toMatchObject({ ok: true, complete: false });
+    if (draft.ok && !draft.complete) expect(draft.missing.some((i) => i.path.startsWith("impedance.base.z"))).toBe(true);
+    const reversed = { ...blank, impedance: { ...blank.impedance, springsBase: { ...newSpringsBase(), x: [2, -2] as [number, number], y: [-1, 1] as [number, number], z: [-1, -0.3] as [number, number] } } };
+    expect(formCompleteness(await errorsOf(reversed))).toBe("invalid");
   });
 });
