@@ -98,18 +98,19 @@ const springSchema = z.strictObject({
 
 // Optional (issue 16, engine 1.8.0): the springs stand on a second concrete block (the base)
 // that rests on the soil: two-stage isolation (two-stage.ts). Absent: the rigid floor of 1.7.0.
-const baseSupportSchema = z.discriminatedUnion(
-  "method",
-  [
-    z.strictObject({ method: z.literal("equivalent-radius") }),
-    z.strictObject({
-      method: z.literal("gazetas"),
-      gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
-    }),
-    z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
-  ],
-  { error: 'method must be "equivalent-radius", "gazetas" or "user"' },
-);
+// The soil methods of the block on soil, also the soil under a base block.
+const equivalentRadiusSchema = z.strictObject({ method: z.literal("equivalent-radius") });
+const gazetasSchema = z.strictObject({
+  method: z.literal("gazetas"),
+  // "published" (default): k(a0), c(a0) from Gazetas' charts (digitised); "pais-kausel": the
+  // closed forms of Pais & Kausel (1988); "simplified": k_z = k_y = 1, c = 1 (warned).
+  gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
+});
+const userImpedanceSchema = z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema });
+
+const baseSupportSchema = z.discriminatedUnion("method", [equivalentRadiusSchema, gazetasSchema, userImpedanceSchema], {
+  error: 'method must be "equivalent-radius", "gazetas" or "user"',
+});
 
 const springBaseSchema = z.strictObject({
   /** The base block, a rectangular concrete box in the input's coordinates (m); the spring bottoms bear on its top face. */
@@ -154,14 +155,9 @@ const pilesImpedanceSchema = z.strictObject({
 const impedanceSchema = z.discriminatedUnion(
   "method",
   [
-    z.strictObject({ method: z.literal("equivalent-radius") }),
-    z.strictObject({
-      method: z.literal("gazetas"),
-      // "published" (default): k(a0), c(a0) from Gazetas' charts (digitised); "pais-kausel": the
-      // closed forms of Pais & Kausel (1988); "simplified": k_z = k_y = 1, c = 1 (warned).
-      gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
-    }),
-    z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
+    equivalentRadiusSchema,
+    gazetasSchema,
+    userImpedanceSchema,
     // Optional (issue 16): a block on steel springs at given positions (impedance-springs.ts).
     z
       .strictObject({
