@@ -11,6 +11,7 @@ import { baseAndRelativeMotion, responseSet } from "@/modules/calc/harmonic";
 import { buildModel } from "@/modules/calc/model";
 import { runSoilCase } from "@/modules/calc/soil-case";
 import type { SpringInput } from "@/modules/calc/impedance-springs";
+import { twoStageModes, twoStageTimeDomain } from "@/modules/calc/two-stage";
 
 const G = 9.80665;
 const RHO = 2400;
@@ -343,6 +344,34 @@ describe("springs on a base block: the condensed six-DOF solve equals the direct
         }
       });
     }
+  });
+});
+
+describe("springs on a base block: the twelve modes are mass-normalised and orthogonal", () => {
+  it("phi_i^T M12 phi_j = delta_ij and phi_i^T K12 phi_j = w_i^2 delta_ij for an off-centre base (the time-domain K12, M12 at the same frequency)", () => {
+    const input = parsed(doc({ x: [-1.8, 2.4], y: [-1.2, 1.6], z: [-1.3, -0.4] }, { materialDamping: 0.04 }));
+    const model = buildModel(input);
+    const sc = runSoilCase(model, 1);
+    const parts = sc.impedance.twoStage;
+    if (!parts) throw new Error("no base");
+    const omega = model.rotors[0]?.omegaRated ?? 0;
+    const modes = twoStageModes(model.massMatrix, parts, omega);
+    const { M, K } = twoStageTimeDomain(model.massMatrix, parts, omega);
+    const phi = modes.map((m) => [...m.shape, ...(m.baseShape ?? [])]);
+    const form = (A: Float64Array, a: number[], b: number[]) => {
+      let s = 0;
+      for (let i = 0; i < 12; i++) for (let j = 0; j < 12; j++) s += (a[i] as number) * (A[i * 12 + j] as number) * (b[j] as number);
+      return s;
+    };
+    const scaleK = Math.max(...modes.map((m) => m.eigenvalue));
+    for (let i = 0; i < 12; i++) {
+      for (let j = 0; j < 12; j++) {
+        expect(Math.abs(form(M, phi[i] as number[], phi[j] as number[]) - (i === j ? 1 : 0))).toBeLessThan(1e-9);
+        expect(Math.abs(form(K, phi[i] as number[], phi[j] as number[]) - (i === j ? (modes[i]?.eigenvalue ?? 0) : 0))).toBeLessThan(1e-9 * scaleK);
+      }
+    }
+    // the result's modes are these
+    expect(sc.modes.map((m) => m.frequencyHz)).toEqual(modes.map((m) => m.frequencyHz));
   });
 });
 
