@@ -94,7 +94,8 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
             <div className="space-y-2">
               <p className="text-2xs text-basalt-400">
                 Spring positions in plan (the spring tops bear on the underside of the block), catalogue stiffness as typed. The layout must be symmetric about the centroid of the base:
-                a stiffness centre off it couples the modes, which this method does not model, and the input is refused. Soil material damping is not applied. Blank dampers and
+                a stiffness centre off it couples the modes, which this method does not model, and the input is refused.{" "}
+                {values.impedance.springsBase?.restsOn === "base" ? "Soil material damping applies to the soil under the base block only." : "Soil material damping is not applied."} Blank dampers and
                 ratio: 0.5 % of critical (common practice for steel springs).
               </p>
               {(values.impedance.springs ?? []).map((_, i) => (
