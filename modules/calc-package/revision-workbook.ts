@@ -547,7 +547,7 @@ function modes(w: SheetWriter, d: RevisionPackageData): void {
     // springs on a base block: twelve modes; which block carries each, and the base's part of the shape (about B)
     w.table(
       "Modes of the block on its springs and the base block on the soil (shares of kinetic energy; the base's shape about the centre of its underside)",
-      [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Block" }, { header: "Block's share", kind: "ratio" }, ...DOF_KEYS.map((k) => ({ header: `base shape ${k}` }))],
+      [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Block" }, { header: "Block's share", kind: "ratio" }, ...DOF_KEYS.map((k) => ({ header: `base shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]` }))],
       r.modes.map((m, i) => [i + 1, m.frequencyHz, m.block === "base" ? "base block" : "block on springs", m.upperShare ?? 1, ...(m.baseShape ?? [])]),
     );
   }

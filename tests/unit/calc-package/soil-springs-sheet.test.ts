@@ -10,6 +10,7 @@ import { buildRevisionWorkbook, PACKAGE_SHEETS } from "@/modules/calc-package";
 import { DOF_NAMES } from "@/modules/calc-package/revision-workbook";
 import { HAND_CHECK_BASE_NOTE } from "@/modules/calc-package/hand-check-sheet";
 import { packageData, roundTrip } from "./fixtures";
+import { expectRevisionNumbers, expectUnitsEverywhere } from "./package-expectations";
 
 function texts(ws: ExcelJS.Worksheet): string[] {
   const out: string[] = [];
@@ -126,6 +127,12 @@ describe("package of springs on a base block (engine 1.8.0)", () => {
     expect(texts(springs)).toContain("Isolation per operating speed (force into the ground, twelve-DOF steady state)");
     const modes = wb.getWorksheet(PACKAGE_SHEETS.modes)!;
     expect(texts(modes).filter((t) => t === "base block")).toHaveLength(6);
+    // every number of the package has its unit, and the package's numbers are the revision's, in both unit systems
+    expectUnitsEverywhere(wb, Object.values(PACKAGE_SHEETS).filter((n) => n !== PACKAGE_SHEETS.handCheck && wb.getWorksheet(n)));
+    expectRevisionNumbers(wb, d.input, d.result);
+    const us = packageData(p.input, "us");
+    const wbUs = await roundTrip(Buffer.from(await buildRevisionWorkbook(us).xlsx.writeBuffer()));
+    expectUnitsEverywhere(wbUs, Object.values(PACKAGE_SHEETS).filter((n) => n !== PACKAGE_SHEETS.handCheck && wbUs.getWorksheet(n)));
     // the hand check says what its k_z and transmissibility are on a base block
     expect(texts(wb.getWorksheet(PACKAGE_SHEETS.handCheck)!).some((t) => t.includes(HAND_CHECK_BASE_NOTE))).toBe(true);
   });
