@@ -91,6 +91,10 @@ export function handCheckDampingNote(beta: number): string {
   );
 }
 
+/** Springs on a base block: what the hand check's k_z, zeta_z are and why its transmissibility differs (printed on the sheet). */
+export const HAND_CHECK_BASE_NOTE =
+  "Springs on a base block: k_z and zeta_z are the support the block sees at the rated speed (the springs in series with the base block on the soil, condensed exactly), so the amplitude matches the twelve-degree-of-freedom one at that speed; the engine's transmissibility is the force into the ground under the base, this one the force through the springs, which differ by the base's inertia.";
+
 export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData): { lastColumn: number; lastRow: number; titleRows: number } {
   const sys: UnitSystemKey = d.project.units;
   const C = HAND_CHECK_COLUMNS;
@@ -235,7 +239,8 @@ export function addHandCheckSheet(ws: ExcelJS.Worksheet, d: RevisionPackageData)
   ws.getCell(`A${noteRow}`).value = "Damping and the difference from the six-degree-of-freedom model";
   ws.getCell(`A${noteRow}`).font = TITLE_FONT;
   const note = ws.getCell(`A${noteRow + 1}`);
-  note.value = handCheckDampingNote(beta);
+  // springs on a base block: say what k_z and the engine's transmissibility are there
+  note.value = handCheckDampingNote(beta) + (r.springs?.base ? ` ${HAND_CHECK_BASE_NOTE}` : "");
   note.alignment = { wrapText: true, vertical: "top" };
   ws.mergeCells(noteRow + 1, 1, noteRow + 1, 9);
   ws.getRow(noteRow + 1).height = 15 * 6;

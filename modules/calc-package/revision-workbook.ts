@@ -196,6 +196,36 @@ function inputs(w: SheetWriter, d: RevisionPackageData): void {
       [{ header: "Spring", kind: "count" }, { header: "x", kind: L }, { header: "y", kind: L }, { header: "kz", kind: "stiffness" }, { header: "kh", kind: "stiffness" }, { header: "Damper cz", kind: "dashpot" }, { header: "Damper ch", kind: "dashpot" }],
       imp.springs.map((s, i) => [i + 1, s.x, s.y, s.kz, s.kh, s.cz ?? null, s.ch ?? null]),
     );
+    if (imp.base) {
+      const b = imp.base;
+      const support = b.support ?? { method: "gazetas" as const };
+      w.pairs("Base block under the springs (two-stage isolation; the soil above is the soil under the base)", [
+        { label: "Base x from", value: b.x[0], kind: L },
+        { label: "Base x to", value: b.x[1], kind: L },
+        { label: "Base y from", value: b.y[0], kind: L },
+        { label: "Base y to", value: b.y[1], kind: L },
+        { label: "Base z from", value: b.z[0], kind: L },
+        { label: "Base z to (top, the springs' bottoms)", value: b.z[1], kind: L },
+        { label: "Base concrete density", value: b.concreteDensity ?? input.block.concreteDensity, kind: "density", note: b.concreteDensity === undefined ? "the block's" : "as given" },
+        {
+          label: "Soil under the base",
+          value: support.method,
+          note:
+            support.method === "gazetas"
+              ? `Gazetas (1991) for the base's footprint; dynamic coefficients ${support.gazetasDynamic ?? "published"}`
+              : support.method === "equivalent-radius"
+                ? "equivalent-radius half-space (Richart, Hall & Woods 1970)"
+                : "springs and damping ratios typed by the designer",
+        },
+      ]);
+      if (support.method === "user") {
+        w.table(
+          "Soil springs under the base (user) and damping ratios",
+          [{ header: "Degree of freedom" }, { header: "Translational stiffness", kind: "stiffness" }, { header: "Rotational stiffness", kind: "rotationalStiffness" }, { header: "Damping ratio", kind: "ratio" }],
+          DOF_KEYS.map((k) => [DOF_NAMES[k], translational(k) ? support.stiffness[k] : null, translational(k) ? null : support.stiffness[k], support.dampingRatio[k]]),
+        );
+      }
+    }
   }
   if (input.impedance.method === "piles") {
     const imp = input.impedance;
@@ -433,13 +463,13 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
   if (sr) {
     w.pairs("Block on steel springs", [
       { label: "Static deflection W / sum kz", value: sr.staticDeflection, kind: "length" },
-      { label: "Vertical isolator frequency sqrt(sum kz / m) / 2 pi", value: sr.verticalFrequencyHz, kind: "frequency" },
+      { label: sr.base ? "Vertical isolator frequency (lower root of the two-mass system)" : "Vertical isolator frequency sqrt(sum kz / m) / 2 pi", value: sr.verticalFrequencyHz, kind: "frequency" },
       { label: "Vertical damping ratio", value: sr.verticalDampingRatio, kind: "ratio" },
       { label: "Highest natural frequency", value: sr.highestNaturalFrequencyHz, kind: "frequency" },
       { label: "Source", value: sr.transmissibilitySource },
     ]);
     w.table(
-      "Isolation per operating speed (vertical mode as SDOF)",
+      sr.base ? "Isolation per operating speed (force into the ground, twelve-DOF steady state)" : "Isolation per operating speed (vertical mode as SDOF)",
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Speed", kind: "speed" }, { header: "Frequency ratio r", kind: "ratio" }, { header: "Transmissibility TR", kind: "ratio" }, { header: "Isolation efficiency 1 - TR", kind: "ratio" }],
       sr.rotors.flatMap((r) => r.isolation.map((row) => [r.machine, r.rotor, row.speedRpm, row.frequencyRatio, row.transmissibility, row.isolationEfficiency])),
     );
@@ -455,6 +485,45 @@ function springs(w: SheetWriter, d: RevisionPackageData): void {
       [{ header: "Machine" }, { header: "Rotor" }, { header: "Case" }, { header: "Unbalance" }, { header: "Spring", kind: "count" }, { header: "Force x", kind: "force" }, { header: "Force y", kind: "force" }, { header: "Force z", kind: "force" }],
       sr.rotors.flatMap((r) => r.springForces.flatMap((c) => c.forces.map((f, i) => [r.machine, r.rotor, c.case, c.unbalanceMode, i + 1, f[0], f[1], f[2]]))),
     );
+    const base = sr.base;
+    if (base) {
+      w.pairs("Base block under the springs (twelve degrees of freedom, the base condensed out exactly at each frequency)", [
+        { label: "Base length x", value: base.dimensions[0], kind: "length" },
+        { label: "Base width y", value: base.dimensions[1], kind: "length" },
+        { label: "Base thickness", value: base.dimensions[2], kind: "length" },
+        { label: "Base mass", value: base.mass, kind: "largeMass" },
+        { label: "Spring height (base top to the block's underside)", value: base.springHeight, kind: "length" },
+        { label: "Static bearing pressure under the base (block, machines and base)", value: base.staticBearingPressure, kind: "pressure" },
+        { label: "Soil under the base", value: base.supportMethod },
+        { label: "Soil K_z under the base at the modes' frequency", value: base.soilStiffness.z, kind: "stiffness" },
+        { label: "Evaluated at", value: base.evaluatedAtHz, kind: "frequency" },
+        { label: "Two-mass vertical frequency, lower (Den Hartog; Chopra, two-DOF systems)", value: base.twoMassVerticalHz[0], kind: "frequency" },
+        { label: "Two-mass vertical frequency, upper", value: base.twoMassVerticalHz[1], kind: "frequency" },
+        { label: "Highest mode of the block on its springs", value: base.isolatorModesHighestHz, kind: "frequency" },
+        { label: "Highest mode of the same springs on a rigid floor", value: base.rigidFloorHighestHz, kind: "frequency" },
+      ]);
+      w.table(
+        "Soil springs and dashpots under the base, at B (centre of the base's underside)",
+        [{ header: "Degree of freedom" }, { header: "Static stiffness", kind: "stiffness" }, { header: "Stiffness at the modes' frequency", kind: "stiffness" }, { header: "Dashpot", kind: "dashpot" }],
+        DOF_KEYS.filter(translational).map((k) => [DOF_NAMES[k], base.soilStaticStiffness[k], base.soilStiffness[k], base.soilDashpot[k]]),
+      );
+      w.table(
+        "Force into the ground and motion of the base at the rated speed",
+        [
+          { header: "Machine" },
+          { header: "Rotor" },
+          { header: "Case" },
+          { header: "Unbalance" },
+          { header: "Ground force x", kind: "force" },
+          { header: "Ground force y", kind: "force" },
+          { header: "Ground force z", kind: "force" },
+          { header: "Base displacement x", kind: "displacement" },
+          { header: "Base displacement y", kind: "displacement" },
+          { header: "Base displacement z", kind: "displacement" },
+        ],
+        base.rotors.flatMap((r) => r.cases.map((c) => [r.machine, r.rotor, c.case, c.unbalanceMode, ...c.groundForce, ...c.baseDisplacementPeak])),
+      );
+    }
   }
   w.table(
     "Intermediate values of the method (SI, as the engine reports them)",
@@ -474,6 +543,14 @@ function modes(w: SheetWriter, d: RevisionPackageData): void {
     [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Dominant" }, ...DOF_KEYS.map(share), ...DOF_KEYS.map(shape)],
     r.modes.map((m, i) => [i + 1, m.frequencyHz, m.dominant, ...DOF_KEYS.map((k) => m.participation[k]), ...m.shape]),
   );
+  if (r.modes.some((m) => m.baseShape)) {
+    // springs on a base block: twelve modes; which block carries each, and the base's part of the shape (about B)
+    w.table(
+      "Modes of the block on its springs and the base block on the soil (shares of kinetic energy; the base's shape about the centre of its underside)",
+      [{ header: "Mode", kind: "count" }, { header: "Frequency", kind: "frequency" }, { header: "Block" }, { header: "Block's share", kind: "ratio" }, ...DOF_KEYS.map((k) => ({ header: `base shape ${k} [mass-normalised, ${translational(k) ? "m" : "rad"}/√kg]` }))],
+      r.modes.map((m, i) => [i + 1, m.frequencyHz, m.block === "base" ? "base block" : "block on springs", m.upperShare ?? 1, ...(m.baseShape ?? [])]),
+    );
+  }
   w.table(
     "Frequency ratios r = rated speed / natural frequency",
     [{ header: "Machine" }, { header: "Rotor" }, { header: "Rated speed", kind: "speed" }, ...r.modes.map((_, i) => ({ header: `r mode ${i + 1}`, kind: "ratio" as const }))],

@@ -44,12 +44,16 @@ function peakRow(i: number, run: TransientResult, peak: TransientPeak, max: numb
 /** Writes the sheet; the caller adds it only when the revision has runs. */
 export function writeSpeedRampsSheet(w: SheetWriter, d: RevisionPackageData): void {
   const runs = d.result.transient ?? [];
-  const beta = d.result.impedance.materialDamping ?? d.input.soil.materialDamping ?? 0;
+  // springs on a base block: the soil's beta is the base's (the springs have none), the model twelve-DOF
+  const onBase = d.result.springs?.base !== undefined;
+  const beta = onBase ? (d.input.soil.materialDamping ?? 0) : (d.result.impedance.materialDamping ?? d.input.soil.materialDamping ?? 0);
   w.title(`Speed ramps of revision ${d.revision.label}: start-up and coast-down through resonance`);
   w.note(
-    `Method: ${SPEED_RAMP_METHOD.integration}, on the six-degree-of-freedom block of the harmonic analysis. The speed changes at a constant rate; the unbalance force m e w^2 turns with the phase integral of w dt and keeps the tangential term m e alpha.`,
+    `Method: ${SPEED_RAMP_METHOD.integration}, on ${onBase ? "the twelve-degree-of-freedom model of the harmonic analysis (the block on its springs, the base block on the soil)" : "the six-degree-of-freedom block of the harmonic analysis"}. The speed changes at a constant rate; the unbalance force m e w^2 turns with the phase integral of w dt and keeps the tangential term m e alpha.`,
   );
-  w.note(`Springs and dashpots frozen at the rotor's rated speed; material damping beta (${beta}) as the viscous dashpot 2 beta K / w_rated. Source: ${SPEED_RAMP_METHOD.source}.`);
+  w.note(
+    `${onBase ? "The soil's springs and dashpots under the base" : "Springs and dashpots"} frozen at the rotor's rated speed; material damping beta (${beta}) as the viscous dashpot 2 beta K / w_rated.${onBase ? " The table of each run's springs gives the steel springs' own values." : ""} Source: ${SPEED_RAMP_METHOD.source}.`,
+  );
   w.note(SPEED_RAMP_CAUTION, { bold: true });
   w.note("The cautions on the Cover sheet apply to every number here.", { bold: true });
   w.blank();

@@ -10,13 +10,27 @@ import { buildModel } from "./model";
 import type { AnalysisResult } from "./result-types";
 import type { AnalysisInput } from "./schema";
 import { soilBand } from "./soil-band";
-import { springsResults } from "./springs-results";
+import { baseBearingPressure, springsResults } from "./springs-results";
 import { runSoilCase } from "./soil-case";
 import { frequencySweep } from "./sweep";
 import { resolveSweep } from "./sweep-grid";
 import { transientResults } from "./transient";
 
 export const ENGINE_VERSION = "1.9.0";
+
+/**
+ * Springs on a base block: the `bearing-pressure` check applies to the base on the soil, its
+ * value (upper block, machines and base) g / base footprint over the allowable pressure.
+ */
+function baseBearing(model: ReturnType<typeof buildModel>, checks: AnalysisResult["checks"]): AnalysisResult["checks"] {
+  if (!model.baseBlock) return checks;
+  const pressure = baseBearingPressure(model);
+  return checks.map((c) => {
+    if (c.id !== "bearing-pressure") return c;
+    const value = pressure / model.input.soil.allowableBearingPressure;
+    return { ...c, label: "Static bearing pressure under the base block (block, machines and base) over the allowable bearing pressure", value, pass: value <= c.limit };
+  });
+}
 
 export interface AnalyseOptions {
   /** Skip the soil band (bounds absent); used by the benchmark's split timings. */
@@ -38,7 +52,7 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
   // the lower and the upper bound of the band; acceptances mark failing band checks, never pass them.
   const accepted = applyAcceptances(
     [
-      ...markNotApplicable(buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined), input.impedance.method),
+      ...baseBearing(model, markNotApplicable(buildChecks(criteria, model.massProperties, nominal.modes, nominal.rotors, input.soil.allowableBearingPressure, nominal.combined), input.impedance.method, model.baseBlock !== undefined)),
       ...(band ? [...boundChecks(criteria, "lower", band.cases.lower, band.source, userSprings), ...boundChecks(criteria, "upper", band.cases.upper, band.source, userSprings)] : []),
     ],
     input.acceptances,
@@ -59,7 +73,13 @@ export function analyse(input: AnalysisInput, options: AnalyseOptions = {}): Ana
     engineVersion: ENGINE_VERSION,
     massProperties: model.massProperties,
     impedance: nominal.impedanceResult,
-    modes: nominal.modes.map(({ frequencyHz, dominant, participation, shape }) => ({ frequencyHz, dominant, participation, shape })),
+    modes: nominal.modes.map(({ frequencyHz, dominant, participation, shape, baseShape, upperShare, block }) => ({
+      frequencyHz,
+      dominant,
+      participation,
+      shape,
+      ...(baseShape ? { baseShape, upperShare: upperShare ?? 0, block: block ?? "upper" } : {}),
+    })),
     rotors: nominal.rotors,
     checks,
     sweep,

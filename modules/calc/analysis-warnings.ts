@@ -12,26 +12,32 @@ export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSe
   if (nu > NEARLY_INCOMPRESSIBLE_NU) {
     warnings.push(`Poisson's ratio ${nu} is above ${NEARLY_INCOMPRESSIBLE_NU}: the soil is nearly incompressible (saturated clay?) and the half-space formulas lose accuracy.`);
   }
-  if (model.input.impedance.method === "gazetas") {
-    const B = nominal.impedance.details.B ?? 0;
+  // springs on a base block with Gazetas soil under the base: the same validity warnings for the base's footprint
+  const imp = model.input.impedance;
+  const baseSupport = imp.method === "springs" && imp.base ? (imp.base.support ?? { method: "gazetas" as const }) : undefined;
+  const gazetas = imp.method === "gazetas" ? imp : baseSupport?.method === "gazetas" ? baseSupport : undefined;
+  const details = (baseSupport ? nominal.impedance.twoStage?.soil.details : undefined) ?? nominal.impedance.details;
+  const who = baseSupport ? "Base block: " : "";
+  if (gazetas) {
+    const B = details.B ?? 0;
     const Vs = nominal.soil.shearWaveVelocity;
     const a0 = (hz: number) => (2 * Math.PI * hz * B) / Vs;
-    const charts = (model.input.impedance.gazetasDynamic ?? "published") === "published";
+    const charts = (gazetas.gazetasDynamic ?? "published") === "published";
     const held = charts ? `; the charts' coefficients end at a0 = ${CHART_A0_MAX} and are held at that value beyond` : "";
     for (const r of model.rotors) {
       const top = a0(r.rangeRpm[1] / 60);
       if (top > GAZETAS_A0_LIMIT) {
         warnings.push(
-          `${r.machine} ${r.rotor}: a0 = w B / Vs reaches ${top.toFixed(2)} in the speed range, beyond ${GAZETAS_A0_LIMIT} where the straight-line dynamic multipliers of Gazetas (1991) are used here${held}.`,
+          `${who}${r.machine} ${r.rotor}: a0 = w B / Vs reaches ${top.toFixed(2)} in the speed range, beyond ${GAZETAS_A0_LIMIT} where the straight-line dynamic multipliers of Gazetas (1991) are used here${held}.`,
         );
       }
     }
     const limitHz = (GAZETAS_A0_LIMIT * Vs) / (2 * Math.PI * B);
     if (sweep.toHz > limitHz) {
-      warnings.push(`Sweep: above ${limitHz.toFixed(1)} Hz a0 exceeds ${GAZETAS_A0_LIMIT}; the Gazetas (1991) multipliers are extrapolated there (floored at a small positive value)${held}.`);
+      warnings.push(`${who}Sweep: above ${limitHz.toFixed(1)} Hz a0 exceeds ${GAZETAS_A0_LIMIT}; the Gazetas (1991) multipliers are extrapolated there (floored at a small positive value)${held}.`);
     }
   }
-  warnings.push(...cutoffWarnings(model, nominal));
+  warnings.push(...cutoffWarnings(model, nominal, details, who));
   nominal.modes.forEach((m, i) => {
     for (const r of model.rotors) {
       const rpm = m.frequencyHz * 60;
@@ -50,8 +56,7 @@ export function analysisWarnings(model: Model, nominal: SoilCase, sweep: SweepSe
  * it, either side): there the radiation damping switches on or off, so the response is very
  * sensitive to the layer's thickness and Vs.
  */
-function cutoffWarnings(model: Model, nominal: SoilCase): string[] {
-  const d = nominal.impedance.details;
+function cutoffWarnings(model: Model, nominal: SoilCase, d: Record<string, number>, who: string): string[] {
   if (d.cutoffHzCompression === undefined || d.cutoffHzShear === undefined) return [];
   const cutoffs: [string, number][] = [
     ["vertical and rocking cutoff V_La / 4H", d.cutoffHzCompression],
@@ -63,12 +68,12 @@ function cutoffWarnings(model: Model, nominal: SoilCase): string[] {
     for (const r of model.rotors) {
       const [lo, hi] = [r.rangeRpm[0] / 60, r.rangeRpm[1] / 60];
       if (hi >= fc * (1 - CUTOFF_PROXIMITY) && lo <= fc * (1 + CUTOFF_PROXIMITY)) {
-        out.push(`Stratum: the speed range of ${r.machine} ${r.rotor} (${r.rangeRpm[0]}-${r.rangeRpm[1]} rpm) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz): radiation damping changes abruptly there.`);
+        out.push(`${who}Stratum: the speed range of ${r.machine} ${r.rotor} (${r.rangeRpm[0]}-${r.rangeRpm[1]} rpm) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz): radiation damping changes abruptly there.`);
       }
     }
     nominal.modes.forEach((m, i) => {
       if (near(m.frequencyHz, fc)) {
-        out.push(`Stratum: mode ${i + 1} (${m.dominant}, ${m.frequencyHz.toFixed(2)} Hz) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz).`);
+        out.push(`${who}Stratum: mode ${i + 1} (${m.dominant}, ${m.frequencyHz.toFixed(2)} Hz) lies within ${CUTOFF_PROXIMITY * 100} % of the ${label} (${fc.toFixed(2)} Hz).`);
       }
     });
   }

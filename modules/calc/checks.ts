@@ -213,8 +213,9 @@ export const BEARING_NOT_APPLICABLE: Partial<Record<AnalysisInput["impedance"]["
  * path: the `bearing-pressure` check stays in the list with its value for information, marked
  * not applicable with the reason, and does not decide the verdict. Soil methods: unchanged.
  */
-export function markNotApplicable(checks: CheckResult[], method: AnalysisInput["impedance"]["method"]): CheckResult[] {
-  const reason = BEARING_NOT_APPLICABLE[method];
+export function markNotApplicable(checks: CheckResult[], method: AnalysisInput["impedance"]["method"], onBaseBlock = false): CheckResult[] {
+  // springs on a base block: the base bears on the soil, so the check applies (analyse.ts)
+  const reason = onBaseBlock ? undefined : BEARING_NOT_APPLICABLE[method];
   if (!reason) return checks;
   return checks.map((c) => (c.id === "bearing-pressure" ? { ...c, pass: true, notApplicable: { reason } } : c));
 }

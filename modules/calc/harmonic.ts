@@ -5,6 +5,7 @@
 // couples sway and rocking); the diagonal methods have zeros off the diagonal.
 import { ComplexSystem6 } from "./complex-lu";
 import { evaluateImpedanceMatrix, type ImpedanceModel } from "./impedance-model";
+import { evaluateTwoStage, twoStageOperators, type TwoStageOperators } from "./two-stage";
 import type { UnitLoad } from "./unbalance";
 
 /** Responses U of a list of loads: load l occupies [6 l, 6 l + 6) of re and im. */
@@ -52,6 +53,12 @@ export class HarmonicSolver {
   omega = 0;
   /** The impedance has off-diagonal terms (pile group); otherwise the diagonal fast path. */
   readonly coupled: boolean;
+  /**
+   * Springs on a base block: the exact condensation's operators at the current frequency. S(w)
+   * is then Z(w) - w^2 M with the complex Z assembled directly, and `transmittedForce` is the
+   * force into the soil under the base (two-stage.ts).
+   */
+  readonly twoStage: TwoStageOperators | null;
 
   constructor(
     private readonly massMatrix: Float64Array,
@@ -59,11 +66,32 @@ export class HarmonicSolver {
     private readonly beta: number,
   ) {
     this.coupled = impedance.evaluateMatrix !== undefined;
+    this.twoStage = impedance.twoStage ? twoStageOperators() : null;
   }
 
   /** Evaluates K(w), C(w), assembles S(w) and factorises it (once per frequency). */
   setFrequency(omega: number): void {
     this.omega = omega;
+    const ts = this.twoStage;
+    if (ts && this.impedance.twoStage) {
+      evaluateTwoStage(this.impedance.twoStage, omega, ts);
+      const re = this.system.re;
+      const im = this.system.im;
+      const w2 = omega * omega;
+      for (let i = 0; i < 36; i++) {
+        const z = ts.Zre[i] as number;
+        this.K[i] = z;
+        this.C[i] = omega > 0 ? (ts.Zim[i] as number) / omega : 0;
+        re[i] = z - w2 * (this.massMatrix[i] as number);
+        im[i] = ts.Zim[i] as number;
+      }
+      for (let i = 0; i < 6; i++) {
+        this.k[i] = this.K[i * 7] as number;
+        this.c[i] = this.C[i * 7] as number;
+      }
+      this.system.factorise();
+      return;
+    }
     // K, C start at zero and a diagonal method only writes the diagonal: nothing to clear
     evaluateImpedanceMatrix(this.impedance, omega, this.K, this.C, this.k, this.c, false);
     this.system.assemble(omega, this.massMatrix, this.K, this.C, this.beta);
@@ -148,6 +176,26 @@ export class HarmonicSolver {
     const b2 = 2 * this.beta;
     const w = this.omega;
     const o = 6 * l;
+    const ts = this.twoStage;
+    if (ts) {
+      // force into the soil: R U (two-stage.ts)
+      for (let j = 0; j < 3; j++) {
+        let fr = 0;
+        let fi = 0;
+        for (let m = 0; m < 6; m++) {
+          const rr = ts.Rre[j * 6 + m] as number;
+          const ri = ts.Rim[j * 6 + m] as number;
+          const ur = u.re[o + m] as number;
+          const ui = u.im[o + m] as number;
+          fr += rr * ur - ri * ui;
+          fi += rr * ui + ri * ur;
+        }
+        const a2 = fr * fr + fi * fi;
+        if (out) out[j] = Math.sqrt(a2) * scale;
+        sum += a2;
+      }
+      return Math.sqrt(sum) * scale;
+    }
     if (!this.coupled) {
       for (let j = 0; j < 3; j++) {
         const kj = this.k[j] as number;
@@ -179,6 +227,57 @@ export class HarmonicSolver {
       sum += a2;
     }
     return Math.sqrt(sum) * scale;
+  }
+}
+
+/**
+ * Springs on a base block: the base's motion q_B = G U (about B) and the springs' relative
+ * motion U - T q_B (about O) of response l, unscaled, into the given 6-arrays. Rigid floor: the
+ * relative motion is U itself and the base's motion zero.
+ */
+export function baseAndRelativeMotion(
+  solver: HarmonicSolver,
+  transfer: Float64Array | null,
+  u: ResponseSet,
+  l: number,
+  base: { re: Float64Array; im: Float64Array },
+  rel: { re: Float64Array; im: Float64Array },
+): void {
+  const o = 6 * l;
+  const ts = solver.twoStage;
+  if (!ts || !transfer) {
+    for (let j = 0; j < 6; j++) {
+      base.re[j] = 0;
+      base.im[j] = 0;
+      rel.re[j] = u.re[o + j] as number;
+      rel.im[j] = u.im[o + j] as number;
+    }
+    return;
+  }
+  for (let i = 0; i < 6; i++) {
+    let r = 0;
+    let m = 0;
+    for (let k = 0; k < 6; k++) {
+      const gr = ts.Gre[i * 6 + k] as number;
+      const gi = ts.Gim[i * 6 + k] as number;
+      const ur = u.re[o + k] as number;
+      const ui = u.im[o + k] as number;
+      r += gr * ur - gi * ui;
+      m += gr * ui + gi * ur;
+    }
+    base.re[i] = r;
+    base.im[i] = m;
+  }
+  for (let i = 0; i < 6; i++) {
+    let r = 0;
+    let m = 0;
+    for (let k = 0; k < 6; k++) {
+      const t = transfer[i * 6 + k] as number;
+      r += t * (base.re[k] as number);
+      m += t * (base.im[k] as number);
+    }
+    rel.re[i] = (u.re[o + i] as number) - r;
+    rel.im[i] = (u.im[o + i] as number) - m;
   }
 }
 

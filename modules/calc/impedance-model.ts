@@ -5,6 +5,7 @@
 // the two at the assembly level.
 import type { ContactArea } from "./geometry";
 import type { SoilProperties } from "./soil";
+import type { BaseBlockModel, TwoStageParts } from "./two-stage";
 
 export interface ImpedanceContext {
   soil: SoilProperties;
@@ -14,6 +15,8 @@ export interface ImpedanceContext {
   massDiagonal: number[];
   /** O in plan in the input's coordinates (springs are placed in input coordinates). */
   origin?: [number, number];
+  /** Springs on a base block (two-stage.ts): the base, the soil under it (band factor in G, its own material damping) and the upper block's mass matrix about O. */
+  baseBlock?: { model: BaseBlockModel; soil: SoilProperties; upperMass: Float64Array };
 }
 
 export interface ImpedanceModel {
@@ -28,6 +31,11 @@ export interface ImpedanceModel {
    * to what `evaluate` gives. Absent: the impedance is diagonal (off-diagonal terms zero).
    */
   evaluateMatrix?(omega: number, K: Float64Array, C: Float64Array): void;
+  /**
+   * Springs on a base block only: the parts of the exact condensation (two-stage.ts); the
+   * harmonic solver then assembles the complex Z(w) itself (K = Re Z, C = Im Z / w otherwise).
+   */
+  twoStage?: TwoStageParts;
   /** Method-specific intermediate values shown in the result. */
   details: Record<string, number>;
   warnings: string[];

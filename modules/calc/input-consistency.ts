@@ -1,11 +1,11 @@
 // Physical consistency rules that a field-by-field schema cannot express. Each problem is
 // reported with the JSON path of the field to fix.
-import type { AnalysisInput, TransientRequest } from "./schema";
+import type { AnalysisInput, SpringBaseInput, TransientRequest } from "./schema";
 import { resolveTransientSpeeds } from "./transient-settings";
 import { loadCasesFor } from "./unbalance";
 import { resolveSweep } from "./sweep-grid";
 import { springCouplingIssues } from "./impedance-springs";
-import { boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
+import { LEVEL_TOLERANCE_M, boxVolume, contactArea, intersectionVolume, type Box } from "./geometry";
 import { PILE_MIN_SPACING_DIAMETERS, pilesStiffnessSign } from "./impedance-piles";
 import { SOIL_BAND_DEFAULTS } from "./criteria-defaults";
 import { soilProperties } from "./soil";
@@ -167,6 +167,7 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
       }
     }
   }
+  if (input.impedance.method === "springs" && input.impedance.base) checkSpringBase(input, input.impedance.base, add);
   if (input.impedance.method === "piles") checkPiles(input, add);
   if (input.impedance.method === "user" && soil.materialDamping === 0) {
     for (const [key, ratio] of Object.entries(input.impedance.dampingRatio)) {
@@ -180,6 +181,28 @@ function checkSoil(input: AnalysisInput, add: AddIssue): void {
   }
   if (soil.sidewallContactHeight > soil.embedmentDepth) {
     add(["soil", "sidewallContactHeight"], "sidewall contact height cannot exceed the embedment depth");
+  }
+}
+
+/**
+ * Springs on a base block (two-stage.ts): the springs stand between the block's underside and
+ * the base's top face, each spring on the base, and the soil touches only the base.
+ */
+function checkSpringBase(input: AnalysisInput, base: SpringBaseInput, add: AddIssue): void {
+  if (input.impedance.method !== "springs") return;
+  const solids = input.block.solids.filter((s) => !s.void);
+  const underside = Math.min(...solids.map((s) => s.z[0]));
+  if (base.z[1] > underside + LEVEL_TOLERANCE_M) {
+    add(["impedance", "base", "z"], `the base's top (${base.z[1]} m) must be at or below the block's underside (${underside} m): the springs stand between them`);
+  }
+  input.impedance.springs.forEach((s, i) => {
+    if (s.x < base.x[0] || s.x > base.x[1] || s.y < base.y[0] || s.y > base.y[1]) {
+      add(["impedance", "springs", i], `spring ${i + 1} at (${s.x}, ${s.y}) does not stand on the base block (x ${base.x[0]} to ${base.x[1]}, y ${base.y[0]} to ${base.y[1]})`);
+    }
+  });
+  const thickness = base.z[1] - base.z[0];
+  if (input.soil.embedmentDepth > thickness + LEVEL_TOLERANCE_M) {
+    add(["soil", "embedmentDepth"], `under springs on a base block the embedment is the base's: at most its thickness (${Number(thickness.toPrecision(6))} m); the soil may not touch the springs or the block`);
   }
 }
 

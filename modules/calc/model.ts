@@ -10,6 +10,7 @@ import type { MassPropertiesResult } from "./result-types";
 import { speedRangeRpm } from "./sweep-grid";
 import { forceAtRatedSpeed, rpmToRadPerSec, unitLoads, type UnitLoad } from "./unbalance";
 import { add3, sub3, type Vec3 } from "./vec3";
+import { baseBlockModel, type BaseBlockModel } from "./two-stage";
 
 export interface ResponsePoint {
   name: string;
@@ -45,6 +46,8 @@ export interface Model {
   massProperties: MassPropertiesResult;
   rotors: RotorModel[];
   warnings: string[];
+  /** Springs on a base block only (two-stage.ts). */
+  baseBlock?: BaseBlockModel;
 }
 
 function shiftBox(b: Box, o: Vec3): Box {
@@ -169,7 +172,10 @@ export function buildModel(input: AnalysisInput): Model {
       };
     }),
   );
+  const imp = input.impedance;
+  const baseBlock = imp.method === "springs" && imp.base ? baseBlockModel(imp.base, input.block.concreteDensity, origin) : undefined;
   return {
+    ...(baseBlock ? { baseBlock } : {}),
     input,
     origin,
     base,

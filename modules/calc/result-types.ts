@@ -66,6 +66,10 @@ export interface ModeResult {
   dominant: DofKey;
   participation: Dof6;
   shape: number[];
+  /** Springs on a base block only (engine 1.8.0): the base's six shape values (about B), the upper block's share of the kinetic energy and the block that dominates. */
+  baseShape?: number[];
+  upperShare?: number;
+  block?: "upper" | "base";
 }
 
 export interface PointResult {
@@ -358,5 +362,52 @@ export interface SpringsResult {
     isolation: { speedRpm: number; frequencyRatio: number; transmissibility: number; isolationEfficiency: number }[];
     /** Per load case at the rated speed: force amplitude [x, y, z] in each spring, in input order (N). */
     springForces: { case: LoadCaseName; unbalanceMode: UnbalanceModeName; speedRpm: number; forces: [number, number, number][] }[];
+  }[];
+  /** Springs on a base block only (engine 1.8.0, two-stage.ts). */
+  base?: SpringBaseResult;
+}
+
+/** The base block under the springs and the soil under it (two-stage isolation). */
+export interface SpringBaseResult {
+  /** B, the centre of the base's underside, in the input's coordinates. */
+  position: Vec3;
+  /** Length (x), width (y) and thickness of the base (m). */
+  dimensions: Vec3;
+  mass: number;
+  /** From the base's top face up to the block's underside (m). */
+  springHeight: number;
+  /** Footprint on the soil (m^2). */
+  area: number;
+  /** (upper block, machines and base) x g over the base's footprint (Pa): the `bearing-pressure` check's value. */
+  staticBearingPressure: number;
+  /** The soil method under the base and its springs and dashpots at B. */
+  supportMethod: "equivalent-radius" | "gazetas" | "user";
+  soilStaticStiffness: Dof6;
+  /** K_b, C_b at `evaluatedAtHz` (the first rotor's rated speed, as for the modes). */
+  soilStiffness: Dof6;
+  soilDashpot: Dof6;
+  /** The soil's material damping under the base (beta in K_b (1 + 2 i beta)). */
+  soilMaterialDamping: number;
+  evaluatedAtHz: number;
+  soilDetails: Record<string, number>;
+  /** Closed-form two-mass vertical frequencies (sum kz on the upper mass, soil K_z under the base mass), Hz ascending. */
+  twoMassVerticalHz: [number, number];
+  /** Highest of the six modes of the same springs on a rigid floor (Hz). */
+  rigidFloorHighestHz: number;
+  /** Highest twelve-DOF mode in which the upper block carries most of the kinetic energy (Hz). */
+  isolatorModesHighestHz: number;
+  rotors: {
+    machine: string;
+    rotor: string;
+    /** Per load case at the rated speed. */
+    cases: {
+      case: LoadCaseName;
+      unbalanceMode: UnbalanceModeName;
+      speedRpm: number;
+      /** Force amplitude [x, y, z] into the soil under the base (N). */
+      groundForce: Vec3;
+      /** Largest displacement amplitude [x, y, z] of the base (over its corners, m). */
+      baseDisplacementPeak: Vec3;
+    }[];
   }[];
 }

@@ -96,6 +96,33 @@ const springSchema = z.strictObject({
   ch: nonNegative().optional(),
 });
 
+// Optional (issue 16, engine 1.8.0): the springs stand on a second concrete block (the base)
+// that rests on the soil: two-stage isolation (two-stage.ts). Absent: the rigid floor of 1.7.0.
+// The soil methods of the block on soil, also the soil under a base block.
+const equivalentRadiusSchema = z.strictObject({ method: z.literal("equivalent-radius") });
+const gazetasSchema = z.strictObject({
+  method: z.literal("gazetas"),
+  // "published" (default): k(a0), c(a0) from Gazetas' charts (digitised); "pais-kausel": the
+  // closed forms of Pais & Kausel (1988); "simplified": k_z = k_y = 1, c = 1 (warned).
+  gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
+});
+const userImpedanceSchema = z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema });
+
+const baseSupportSchema = z.discriminatedUnion("method", [equivalentRadiusSchema, gazetasSchema, userImpedanceSchema], {
+  error: 'method must be "equivalent-radius", "gazetas" or "user"',
+});
+
+const springBaseSchema = z.strictObject({
+  /** The base block, a rectangular concrete box in the input's coordinates (m); the spring bottoms bear on its top face. */
+  x: intervalSchema,
+  y: intervalSchema,
+  z: intervalSchema,
+  /** Density of the base's concrete (kg/m^3); default block.concreteDensity. */
+  concreteDensity: positive().optional(),
+  /** The soil under the base: a soil method evaluated for the base's footprint (default Gazetas, published charts). */
+  support: baseSupportSchema.optional(),
+});
+
 const pileSchema = z.strictObject({
   /** Position of the pile head's axis in plan (input coordinates, m); the head is at the cap's underside. */
   x: finite(),
@@ -128,14 +155,9 @@ const pilesImpedanceSchema = z.strictObject({
 const impedanceSchema = z.discriminatedUnion(
   "method",
   [
-    z.strictObject({ method: z.literal("equivalent-radius") }),
-    z.strictObject({
-      method: z.literal("gazetas"),
-      // "published" (default): k(a0), c(a0) from Gazetas' charts (digitised); "pais-kausel": the
-      // closed forms of Pais & Kausel (1988); "simplified": k_z = k_y = 1, c = 1 (warned).
-      gazetasDynamic: z.enum(["published", "pais-kausel", "simplified"], { error: 'must be "published", "pais-kausel" or "simplified"' }).optional(),
-    }),
-    z.strictObject({ method: z.literal("user"), stiffness: dofStiffnessSchema, dampingRatio: dofRatioSchema }),
+    equivalentRadiusSchema,
+    gazetasSchema,
+    userImpedanceSchema,
     // Optional (issue 16): a block on steel springs at given positions (impedance-springs.ts).
     z
       .strictObject({
@@ -146,6 +168,8 @@ const impedanceSchema = z.discriminatedUnion(
           .max(L.maxSprings, atMost(L.maxSprings, "springs")),
         // one damping ratio for all six DOFs when the springs have no dampers (default 0.005)
         dampingRatio: ratio().optional(),
+        // the springs rest on a base block on the soil (two-stage isolation); absent: a rigid floor
+        base: springBaseSchema.optional(),
       })
       .superRefine((imp, ctx) => {
         const dampers = imp.springs.some((s) => s.cz !== undefined || s.ch !== undefined);
@@ -317,6 +341,8 @@ export type RotorInput = MachineInput["rotors"][number];
 export type SoilInput = AnalysisInput["soil"];
 export type ImpedanceInput = AnalysisInput["impedance"];
 export type PilesImpedanceInput = z.infer<typeof pilesImpedanceSchema>;
+export type SpringBaseInput = z.output<typeof springBaseSchema>;
+export type BaseSupportInput = z.output<typeof baseSupportSchema>;
 /** A parsed start-up or coast-down request (defaults applied). */
 export type TransientRequest = z.output<typeof transientRequestSchema>;
 export type AcceptanceInput = z.output<typeof acceptanceSchema>;

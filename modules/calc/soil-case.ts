@@ -11,6 +11,7 @@ import { combinedResults } from "./combination";
 import type { CombinedResult, ImpedanceResult, RotorResult } from "./result-types";
 import { rotorResults } from "./rotor-response";
 import { soilProperties, type SoilProperties } from "./soil";
+import { twoStageModes } from "./two-stage";
 
 export interface SoilCase {
   factor: number;
@@ -37,7 +38,13 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
   const soilNominal = soilProperties(input.soil, springMethod ? 1 : factor);
   // steel springs carry no soil hysteresis: their damping is the dampers' or the ratio given
   const soil = input.impedance.method === "springs" ? { ...soilNominal, materialDamping: 0 } : soilNominal;
-  const impedance = buildImpedance(input.impedance, { soil, base: model.base, massDiagonal: model.massDiagonal, origin: [model.origin[0], model.origin[1]] }, factor);
+  // springs on a base block: the soil under the base takes the band's factor in G (soil methods) and keeps its material damping
+  const baseBlock = model.baseBlock ? { model: model.baseBlock, soil: soilProperties(input.soil, factor), upperMass: model.massMatrix } : undefined;
+  const impedance = buildImpedance(
+    input.impedance,
+    { soil, base: model.base, massDiagonal: model.massDiagonal, origin: [model.origin[0], model.origin[1]], ...(baseBlock ? { baseBlock } : {}) },
+    factor,
+  );
   const omega1 = model.rotors[0]?.omegaRated ?? 0;
   const k = new Float64Array(6);
   const c = new Float64Array(6);
@@ -45,7 +52,8 @@ export function runSoilCase(model: Model, factor: number): SoilCase {
   const C = new Float64Array(36);
   evaluateImpedanceMatrix(impedance, omega1, K, C, k, c, false);
   // Undamped modes with the real stiffness at the first rotor's rated speed.
-  const modes = naturalModes(model.massMatrix, impedance.evaluateMatrix ? K : k);
+  // Springs on a base block: the twelve modes, the base's soil stiffness at the same frequency.
+  const modes = impedance.twoStage ? twoStageModes(model.massMatrix, impedance.twoStage, omega1) : naturalModes(model.massMatrix, impedance.evaluateMatrix ? K : k);
   const solver = new HarmonicSolver(model.massMatrix, impedance, soil.materialDamping);
   const modesHz = modes.map((m) => m.frequencyHz);
   const rotors = rotorResults(model, solver, modesHz);

@@ -32,6 +32,7 @@ import { transientRequestSchema, type AnalysisInput, type TransientRequest, type
 import { runSoilCase, type SoilCase } from "./soil-case";
 import { linspace } from "./sweep-grid";
 import { NewmarkAverageAcceleration } from "./transient-newmark";
+import { solveComplexDense, twoStageModes, twoStageTimeDomain, type TwoStageParts } from "./two-stage";
 import { resolveTransientSpeeds, TRANSIENT_LIMITS } from "./transient-settings";
 import { rpmToRadPerSec } from "./unbalance";
 import { goldenSectionMaximum } from "./golden-section";
@@ -99,6 +100,17 @@ export function timeDomainSprings(soilCase: SoilCase, omegaRef: number): { k: Fl
   return { k, c, K, C };
 }
 
+/** Springs on a base block: the springs' own constant k, c (diagonal and full) for the run's report. */
+function springsOwnTimeDomain(parts: TwoStageParts): { k: Float64Array; c: Float64Array; K: Float64Array; C: Float64Array } {
+  const k = new Float64Array(6);
+  const c = new Float64Array(6);
+  for (let i = 0; i < 6; i++) {
+    k[i] = parts.springK[i * 7] as number;
+    c[i] = parts.springC[i * 7] as number;
+  }
+  return { k, c, K: Float64Array.from(parts.springK), C: Float64Array.from(parts.springC) };
+}
+
 /**
  * Generalised force at O, into `out`, of the unbalance m e turning at phase phi with speed omega
  * and angular acceleration alpha: Re(P (m e omega^2 - i m e alpha) e^{i phi}), P = re + i im the
@@ -131,9 +143,12 @@ export function integrateRun(model: Model, soilCase: SoilCase, spec: TransientRu
   const load = rotor.loads[spec.loadIndex];
   if (!load) throw new Error("internal error: no such load");
   const omegaRef = rotor.omegaRated;
-  const { k, c, K, C } = timeDomainSprings(soilCase, omegaRef);
+  const parts = soilCase.impedance.twoStage;
+  // springs on a base block: twelve DOFs (two-stage.ts), the springs' own k, c reported
+  const twelve = parts ? twoStageTimeDomain(model.massMatrix, parts, omegaRef) : null;
+  const { k, c, K, C } = parts ? springsOwnTimeDomain(parts) : timeDomainSprings(soilCase, omegaRef);
   const coupled = soilCase.impedance.evaluateMatrix !== undefined;
-  const naturalFrequenciesHz = naturalModes(model.massMatrix, coupled ? K : k).map((m) => m.frequencyHz);
+  const naturalFrequenciesHz = parts ? twoStageModes(model.massMatrix, parts, omegaRef).map((m) => m.frequencyHz) : naturalModes(model.massMatrix, coupled ? K : k).map((m) => m.frequencyHz);
 
   // Time step from the highest frequency of the run, natural or excitation.
   const fHigh = Math.max(Math.max(...naturalFrequenciesHz), Math.max(spec.fromRpm, spec.toRpm) / 60);
@@ -151,10 +166,36 @@ export function integrateRun(model: Model, soilCase: SoilCase, spec: TransientRu
   const re = load.re;
   const im = load.im;
 
-  const integrator = coupled ? new NewmarkAverageAcceleration(model.massMatrix, K, C, dt) : new NewmarkAverageAcceleration(model.massMatrix, k, c, dt);
-  const u0 = new Float64Array(6);
-  const v0 = new Float64Array(6);
-  if (spec.start !== "rest" && w0 > 0) {
+  const integrator = twelve
+    ? new NewmarkAverageAcceleration(twelve.M, twelve.K, twelve.C, dt)
+    : coupled
+      ? new NewmarkAverageAcceleration(model.massMatrix, K, C, dt)
+      : new NewmarkAverageAcceleration(model.massMatrix, k, c, dt);
+  const dofs = twelve ? 12 : 6;
+  const u0 = new Float64Array(dofs);
+  const v0 = new Float64Array(dofs);
+  if (twelve && spec.start !== "rest" && w0 > 0) {
+    // steady state at constant w0 of the twelve-DOF model: (K - w0^2 M + i w0 C) U = m e w0^2 P
+    const n = 12;
+    const Ar = new Float64Array(n * n);
+    const Ai = new Float64Array(n * n);
+    for (let i = 0; i < n * n; i++) {
+      Ar[i] = (twelve.K[i] as number) - w0 * w0 * (twelve.M[i] as number);
+      Ai[i] = w0 * (twelve.C[i] as number);
+    }
+    const br = new Float64Array(n);
+    const bi = new Float64Array(n);
+    for (let j = 0; j < 6; j++) {
+      br[j] = re[j] as number;
+      bi[j] = load.realOnly ? 0 : (im[j] as number);
+    }
+    const x = solveComplexDense(n, Ar, Ai, br, bi);
+    const f0 = me * w0 * w0;
+    for (let j = 0; j < n; j++) {
+      u0[j] = f0 * (x.re[j] as number);
+      v0[j] = -w0 * f0 * (x.im[j] as number);
+    }
+  } else if (spec.start !== "rest" && w0 > 0) {
     // steady state at constant w0 of (K - w0^2 M + i w0 C) U = m e w0^2 P; u = Re U, v = Re(i w0 U)
     const system = new ComplexSystem6();
     system.assemble(w0, model.massMatrix, K, C, 0);
@@ -168,7 +209,8 @@ export function integrateRun(model: Model, soilCase: SoilCase, spec: TransientRu
       v0[j] = -w0 * f0 * (xi[j] as number);
     }
   }
-  const f = new Float64Array(6);
+  // the unbalance acts on the upper block only (the base's six entries stay 0)
+  const f = new Float64Array(dofs);
   unbalanceForceAt(me, re, im, w0, alpha, 0, f);
   integrator.start(u0, v0, f);
 
@@ -333,7 +375,8 @@ export function transientRun(model: Model, soilCase: SoilCase, request: Transien
   }
   const lo = Math.min(fromRpm, toRpm);
   const hi = Math.max(fromRpm, toRpm);
-  const beta = soilCase.soil.materialDamping;
+  // springs on a base block: the soil's material damping is the base's (steel springs have none)
+  const beta = soilCase.impedance.twoStage?.beta ?? soilCase.soil.materialDamping;
   const above = run.naturalFrequenciesHz.filter((fn) => fn * 60 > lo && fn * 60 < hi && fn > refHz);
   if (beta > 0 && above.length > 0) {
     warnings.push(
@@ -439,6 +482,7 @@ export function analyseTransient(input: AnalysisInput, request: TransientRequest
   }
   const issues: InputIssue[] = [];
   checkTransientRequest(input, parsed.data, [], (path, message) => issues.push({ path: formatPath(path), message }));
+
   if (issues.length > 0) throw new TransientRequestError(issues);
   const model = buildModel(input);
   const result = transientRun(model, runSoilCase(model, 1), parsed.data);

@@ -94,6 +94,20 @@ export function newSpring(): NonNullable<DraftForm["impedance"]["springs"]>[numb
   return { x: null, y: null, kz: null, kh: null, cz: null, ch: null };
 }
 
+export interface SpringsBaseForm {
+  restsOn: "floor" | "base";
+  x: RangeForm;
+  y: RangeForm;
+  z: RangeForm;
+  concreteDensity: Num;
+  support: "gazetas" | "equivalent-radius" | "user";
+}
+
+/** A blank base block under the springs (two-stage isolation). */
+export function newSpringsBase(): SpringsBaseForm {
+  return { restsOn: "base", x: [null, null], y: [null, null], z: [null, null], concreteDensity: null, support: "gazetas" };
+}
+
 /** A blank pile head row of the "piles" method (issue 16). */
 export function newPileHead(): { x: Num; y: Num } {
   return { x: null, y: null };
@@ -145,6 +159,12 @@ export interface DraftForm {
     springs?: { x: Num; y: Num; kz: Num; kh: Num; cz: Num; ch: Num }[];
     /** Steel springs only: one damping ratio when the springs have no dampers (empty: the default). */
     springsDampingRatio?: Num;
+    /**
+     * Steel springs only (engine 1.8.0): what the springs rest on, a rigid floor or a base block on
+     * the soil (its box, concrete density, blank: the block's, and the soil method under it; the
+     * "user" support takes `stiffness` and `dampingRatio` above, "gazetas" `gazetasDynamic`).
+     */
+    springsBase?: SpringsBaseForm;
     dampingRatio: Dof6Form;
     /** Gazetas only: the paper's charts (default), Pais & Kausel's closed forms, or the simplified k = 1, c = 1. */
     gazetasDynamic: "published" | "pais-kausel" | "simplified";
@@ -293,6 +313,7 @@ const r2 = (v: readonly number[] | undefined): RangeForm => [v?.[0] ?? null, v?.
 export function formFromInput(input: AnalysisInputDocument): DraftForm {
   const soil = input.soil;
   const imp = input.impedance;
+  const baseSupport = imp.method === "springs" ? imp.base?.support : undefined;
   return {
     block: {
       concreteDensity: input.block.concreteDensity,
@@ -320,13 +341,25 @@ export function formFromInput(input: AnalysisInputDocument): DraftForm {
     },
     impedance: {
       method: imp.method,
-      stiffness: imp.method === "user" ? { ...imp.stiffness } : emptyDof(),
-      dampingRatio: imp.method === "user" ? { ...imp.dampingRatio } : emptyDof(),
-      gazetasDynamic: imp.method === "gazetas" ? (imp.gazetasDynamic ?? "published") : "published",
+      stiffness: imp.method === "user" ? { ...imp.stiffness } : baseSupport?.method === "user" ? { ...baseSupport.stiffness } : emptyDof(),
+      dampingRatio: imp.method === "user" ? { ...imp.dampingRatio } : baseSupport?.method === "user" ? { ...baseSupport.dampingRatio } : emptyDof(),
+      gazetasDynamic: imp.method === "gazetas" ? (imp.gazetasDynamic ?? "published") : baseSupport?.method === "gazetas" ? (baseSupport.gazetasDynamic ?? "published") : "published",
       ...(imp.method === "springs"
         ? {
             springs: imp.springs.map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, cz: s.cz ?? null, ch: s.ch ?? null })),
             springsDampingRatio: imp.dampingRatio ?? null,
+            ...(imp.base
+              ? {
+                  springsBase: {
+                    restsOn: "base" as const,
+                    x: r2(imp.base.x),
+                    y: r2(imp.base.y),
+                    z: r2(imp.base.z),
+                    concreteDensity: imp.base.concreteDensity ?? null,
+                    support: imp.base.support?.method ?? "gazetas",
+                  },
+                }
+              : {}),
           }
         : {}),
       ...(imp.method === "piles"
@@ -495,6 +528,7 @@ export function toInputDocument(f: DraftForm): unknown {
               method: "springs",
               springs: (f.impedance.springs ?? []).map((s) => ({ x: s.x, y: s.y, kz: s.kz, kh: s.kh, ...(s.cz !== null ? { cz: s.cz } : {}), ...(s.ch !== null ? { ch: s.ch } : {}) })),
               ...(f.impedance.springsDampingRatio !== undefined && f.impedance.springsDampingRatio !== null ? { dampingRatio: f.impedance.springsDampingRatio } : {}),
+              ...(f.impedance.springsBase?.restsOn === "base" ? { base: springsBaseInput(f.impedance.springsBase, f.impedance) } : {}),
             }
           : f.impedance.method === "piles"
             ? pilesInput(f.impedance.piles ?? newPilesForm())
@@ -649,6 +683,23 @@ export const draftFormSchema = yup.object({
   }),
   impedance: yup.object({
     method: yup.string(),
+    // springs on a base block: blanks make the draft incomplete, like the block's boxes
+    springsBase: yup
+      .object()
+      .default(undefined)
+      .when("method", {
+        is: "springs",
+        then: () =>
+          yup
+            .object({
+              restsOn: yup.string().oneOf(["floor", "base"]),
+              x: yup.array().when("restsOn", { is: "base", then: () => range("x") }),
+              y: yup.array().when("restsOn", { is: "base", then: () => range("y") }),
+              z: yup.array().when("restsOn", { is: "base", then: () => range("z") }),
+              concreteDensity: yup.number().typeError("Must be a number").nullable().moreThan(0, "Must be greater than 0"),
+            })
+            .default(undefined),
+      }),
     // method "piles": blanks make the draft incomplete (it saves, the analysis waits)
     piles: yup
       .object()
@@ -729,6 +780,25 @@ export function formCompleteness(errors: unknown): "complete" | "incomplete" | "
   return messages.every(isMissingMessage) ? "incomplete" : "invalid";
 }
 
+/** The contract's `impedance.base` from the form (defaults left out, so a stored input reads back as typed). */
+function springsBaseInput(b: SpringsBaseForm, imp: DraftForm["impedance"]) {
+  const support =
+    b.support === "user"
+      ? { method: "user" as const, stiffness: imp.stiffness, dampingRatio: imp.dampingRatio }
+      : b.support === "equivalent-radius"
+        ? { method: "equivalent-radius" as const }
+        : imp.gazetasDynamic !== "published"
+          ? { method: "gazetas" as const, gazetasDynamic: imp.gazetasDynamic }
+          : undefined;
+  return {
+    x: b.x,
+    y: b.y,
+    z: b.z,
+    ...(b.concreteDensity !== null ? { concreteDensity: b.concreteDensity } : {}),
+    ...(support ? { support } : {}),
+  };
+}
+
 /** The contract's "piles" impedance from the form (defaults left out, so a stored input reads back as typed). */
 function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
   return {
@@ -750,6 +820,14 @@ function pilesInput(p: NonNullable<DraftForm["impedance"]["piles"]>) {
  * pile's row); other paths are returned unchanged.
  */
 export function formFieldOfIssue(path: string, method: DraftForm["impedance"]["method"]): string {
+  if (method === "springs") {
+    // the base block's fields (engine impedance.base.*) live in impedance.springsBase; a "user" support's springs in impedance.stiffness / dampingRatio
+    const support = /^impedance\.base\.support\.(stiffness|dampingRatio)\.(\w+)$/.exec(path);
+    if (support) return `impedance.${support[1]}.${support[2]}`;
+    const base = /^impedance\.base\.(x|y|z|concreteDensity)(?:\[(\d)\])?$/.exec(path);
+    if (base) return `impedance.springsBase.${base[1]}${base[2] !== undefined ? `.${base[2]}` : ""}`;
+    return path.replace(/^impedance\.base\b/, "impedance.springsBase");
+  }
   if (method !== "piles") return path;
   const head = /^impedance\.piles\[(\d+)\](?:\.(x|y))?$/.exec(path);
   if (head) return `impedance.piles.heads.${head[1]}.${head[2] ?? "x"}`;

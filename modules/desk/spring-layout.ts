@@ -24,3 +24,14 @@ export function springsOf(form: DraftForm): DrawnSpring[] | null {
   return drawn.length ? drawn : null;
 }
 
+
+/** The base block under the springs (two-stage isolation) when the springs rest on it and its six coordinates are complete. */
+export function springsBaseOf(form: DraftForm): { x: [number, number]; y: [number, number]; z: [number, number] } | null {
+  const b = form.impedance.method === "springs" ? form.impedance.springsBase : undefined;
+  if (!b || b.restsOn !== "base") return null;
+  const [x0, x1] = b.x;
+  const [y0, y1] = b.y;
+  const [z0, z1] = b.z;
+  if (!(ok(x0) && ok(x1) && ok(y0) && ok(y1) && ok(z0) && ok(z1))) return null;
+  return { x: [Math.min(x0, x1), Math.max(x0, x1)], y: [Math.min(y0, y1), Math.max(y0, y1)], z: [Math.min(z0, z1), Math.max(z0, z1)] };
+}

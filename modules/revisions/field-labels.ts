@@ -45,6 +45,7 @@ const sections: Record<string, string> = {
   crossCheck: "Hand-calculation cross-check",
   bounds: "Soil band",
   engineVersion: "Engine version",
+  springs: "Springs",
 };
 
 // method "piles" (issue 16): the pile group's inputs under `impedance` read in the trade's words
@@ -59,7 +60,27 @@ const pileWords: Record<string, string> = {
   piles: "pile",
 };
 
+// springs on a base block (engine 1.8.0): the base's inputs under `impedance` and its results under `springs.base`
+const baseWords: Record<string, string> = {
+  base: "base block under the springs",
+  support: "soil under the base",
+};
+
 const words: Record<string, string> = {
+  groundForce: "force into the ground",
+  baseDisplacementPeak: "base displacement",
+  staticBearingPressure: "static bearing pressure",
+  springHeight: "spring height",
+  twoMassVerticalHz: "two-mass vertical frequency",
+  rigidFloorHighestHz: "highest mode on a rigid floor",
+  isolatorModesHighestHz: "highest mode of the block on its springs",
+  soilStiffness: "soil stiffness",
+  soilStaticStiffness: "soil static stiffness",
+  soilDashpot: "soil dashpot",
+  springForces: "spring force",
+  staticLoads: "static load",
+  upperShare: "block's share",
+  baseShape: "base shape",
   poissonRatio: "Poisson's ratio",
   shearWaveVelocity: "shear-wave velocity",
   shearModulus: "shear modulus",
@@ -142,7 +163,7 @@ export function checkKeyLabel(key: string): string {
 
 /** Coordinates of a point-like value, by index. */
 const xyz = ["x", "y", "z"];
-const vectors = new Set(["cg", "position", "displacementPeak", "velocityPeak", "transmittedForce"]);
+const vectors = new Set(["cg", "position", "displacementPeak", "velocityPeak", "transmittedForce", "groundForce", "baseDisplacementPeak"]);
 
 /**
  * The human label of a field path of a revision's input or result, e.g.
@@ -176,7 +197,7 @@ export function fieldLabel(path: string): string {
       const isCheckValue = before.kind === "key" && segs[i - 2]?.kind === "name" && (segs[i - 2] as { name: string }).name === "checks" && s.name === "value";
       // A list keyed by name reads in the singular ("point coupling"); `sweep.points` is a count.
       const keyed = segs[i + 1]?.kind === "key";
-      const pileWord = first.name === "impedance" ? pileWords[s.name] : undefined;
+      const pileWord = first.name === "impedance" ? (pileWords[s.name] ?? baseWords[s.name]) : first.name === "springs" && s.name === "base" ? "base block" : undefined;
       if (!isCheckValue) parts.push(pileWord ?? (keyed ? (singular[s.name] ?? nameWords(s.name)) : nameWords(s.name)));
     }
   }

@@ -158,7 +158,24 @@ const pileWords: Record<string, string> = {
   piles: "pile",
 };
 
+// springs on a base block (engine 1.8.0): the base's inputs under `impedance`
+const baseWords: Record<string, string> = {
+  base: "base block under the springs",
+  support: "soil under the base",
+};
+
 const words: Record<string, string> = {
+  groundForce: "force into the ground",
+  baseDisplacementPeak: "base displacement",
+  springHeight: "spring height",
+  twoMassVerticalHz: "two-mass vertical frequency",
+  rigidFloorHighestHz: "highest mode on a rigid floor",
+  isolatorModesHighestHz: "highest mode of the block on its springs",
+  soilStiffness: "soil stiffness under the base",
+  soilStaticStiffness: "soil static stiffness under the base",
+  soilDashpot: "soil dashpot under the base",
+  upperShare: "block's share of the mode",
+  baseShape: "base shape",
   poissonRatio: "Poisson's ratio",
   shearModulus: "shear modulus G",
   shearWaveVelocity: "shear-wave velocity",
@@ -221,7 +238,7 @@ export function labelOfPath(path: string): string {
       }
       const first = segs[0];
       const underImpedance = first !== undefined && "prop" in first && first.prop === "impedance" && i > 0;
-      parts.push((underImpedance ? pileWords[s.prop] : undefined) ?? words[s.prop] ?? camelWords(s.prop));
+      parts.push((underImpedance ? (pileWords[s.prop] ?? baseWords[s.prop]) : undefined) ?? words[s.prop] ?? camelWords(s.prop));
     } else if ("id" in s) parts.push(s.id);
     else {
       const prev = segs[i - 1];
@@ -241,7 +258,7 @@ export function labelOfPath(path: string): string {
       } else if (prop === "shape") parts.push(dofs[s.index] ?? `no. ${s.index + 1}`);
       else if (/^[xyz]$/.test(prop) && s.index < 2) parts.push(s.index === 0 ? "from" : "to");
       else if (prop === "eccentricity" || prop === "baseDimensions") parts.push(`along ${axes[s.index] ?? s.index + 1}`);
-      else if (/position|Peak$|cg|origin|transmittedForce/.test(prop) && s.index < 3) parts.push(axes[s.index] as string);
+      else if (/position|Peak$|cg|origin|transmittedForce|groundForce|dimensions/.test(prop) && s.index < 3) parts.push(axes[s.index] as string);
       else parts.push(`no. ${s.index + 1}`);
     }
   }
@@ -331,6 +348,18 @@ const kindByKey: Record<string, PackageKind> = {
   pileLateralStiffness: "stiffness",
   pileRockingStiffness: "rotationalStiffness",
   pileCrossStiffness: "couplingStiffness",
+  groundForce: "force",
+  baseDisplacementPeak: "displacement",
+  springHeight: "length",
+  dimensions: "length",
+  twoMassVerticalHz: "frequency",
+  rigidFloorHighestHz: "frequency",
+  isolatorModesHighestHz: "frequency",
+  highestNaturalFrequencyHz: "frequency",
+  verticalFrequencyHz: "frequency",
+  staticDeflection: "length",
+  staticLoads: "force",
+  upperShare: "ratio",
 };
 
 const rotational = new Set(["rx", "ry", "rz"]);
@@ -344,8 +373,10 @@ export function kindOfPath(path: string): PackageKind | undefined {
   if (!last) return undefined;
   // method "piles": the pile's diameter and length (the words are common, so only under impedance)
   if (props[0] === "impedance" && (last === "diameter" || last === "length")) return "length";
-  if (parent === "stiffness" || parent === "staticStiffness") return rotational.has(last) ? "rotationalStiffness" : "stiffness";
-  if (parent === "dashpot") return rotational.has(last) ? "rotationalDashpot" : "dashpot";
+  if (parent === "stiffness" || parent === "staticStiffness" || parent === "soilStiffness" || parent === "soilStaticStiffness") return rotational.has(last) ? "rotationalStiffness" : "stiffness";
+  if (parent === "dashpot" || parent === "soilDashpot") return rotational.has(last) ? "rotationalDashpot" : "dashpot";
+  // springs on a base block: the base's mass (a large mass; a rotor's `mass` stays "mass")
+  if (parent === "base" && last === "mass") return "largeMass";
   if (parent === "dampingRatio" || parent === "participation") return "ratio";
   if ((parent === "peakDisplacement" || parent === "peakVelocity") && last === "value") return parent === "peakDisplacement" ? "displacement" : "velocity";
   if (parent === "steadyStateMax" && last === "displacementPeak") return "displacement";

@@ -411,6 +411,7 @@ function notesFor(input: AnalysisInput, options: SizingOptions): string[] {
   const notes: string[] = [];
   if (input.impedance.method === "springs") {
     notes.push("The block is on steel springs: the springs' positions and stiffness were kept as entered for every size; the number and layout of springs are the designer's.");
+    if (input.impedance.base) notes.push("The springs stand on a base block: the base was kept as entered for every size (only the block on the springs is resized); check that the springs still stand on it.");
   }
   if (input.impedance.method === "user") {
     notes.push(

@@ -58,6 +58,33 @@ describe("POST /api/v1/calculate", () => {
     expect(body.error.issues?.some((i) => i.path === "impedance.springs")).toBe(true);
   });
 
+  it("accepts springs on a base block (impedance.base, engine 1.8.0): twelve modes, the base's results and the bearing check on the base; a base above the block's underside is a 400 naming impedance.base.z", async () => {
+    const doc = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "fan-on-springs-base-block.json"), "utf8")) as {
+      impedance: { base: { z: [number, number]; x: [number, number]; y: [number, number] } };
+    };
+    const res = await calculate(doc);
+    expect(res.status).toBe(200);
+    const result = (await res.json()) as {
+      modes: { frequencyHz: number; block?: string }[];
+      checks: { id: string; value: number; notApplicable?: unknown }[];
+      springs?: { base?: { mass: number; staticBearingPressure: number; rotors: { cases: { groundForce: number[] }[] }[] } };
+    };
+    expect(result.modes).toHaveLength(12);
+    expect(result.modes.filter((m) => m.block === "upper")).toHaveLength(6);
+    const b = doc.impedance.base;
+    const baseMass = 2400 * (b.x[1] - b.x[0]) * (b.y[1] - b.y[0]) * (b.z[1] - b.z[0]);
+    expect(result.springs?.base?.mass).toBeCloseTo(baseMass, 6);
+    const bearing = result.checks.find((c) => c.id === "bearing-pressure");
+    expect(bearing?.notApplicable).toBeUndefined();
+    expect(bearing?.value).toBeCloseTo((result.springs?.base?.staticBearingPressure ?? 0) / 200000, 9);
+    expect(result.springs?.base?.rotors[0]?.cases[0]?.groundForce[2]).toBeGreaterThan(0);
+    doc.impedance.base.z = [-1, 0.2];
+    const bad = await calculate(doc);
+    expect(bad.status).toBe(400);
+    const body = (await bad.json()) as ErrorBody;
+    expect(body.error.issues?.some((i) => i.path === "impedance.base.z")).toBe(true);
+  });
+
   it("takes impedance.gazetasDynamic \"pais-kausel\" (engine 1.5.0): the closed forms' rocking dashpot, not the charts'; an unknown option is a 400 naming the field", async () => {
     const doc = JSON.parse(readFileSync(path.join(process.cwd(), "examples", "gazetas-embedded.json"), "utf8")) as { impedance: Record<string, unknown> };
     type Imp = { impedance: { dashpot: { rx: number; ry: number }; details: Record<string, number> } };

@@ -2,7 +2,7 @@
 
 import type { DraftForm } from "@/modules/desk/draft-form";
 import type { MassPropertiesResult } from "@/modules/calc";
-import { springsOf } from "@/modules/desk/spring-layout";
+import { springsBaseOf, springsOf } from "@/modules/desk/spring-layout";
 
 // Plan (x-y) and elevation (x-z) of the block to scale: boxes, voids, machines,
 // bearings, check points and the combined centre of gravity, with overall
@@ -12,7 +12,9 @@ import { springsOf } from "@/modules/desk/spring-layout";
 // Method "springs": each spring at its plan position to scale (the input gives no spring size, so
 // the symbol's size is schematic and said so): plan, a circle with a cross, a square inside
 // when the spring has a damper; elevation, a coil between the underside (z = 0) and the
-// supporting floor, with a dashpot beside it when there is a damper; a text list beside.
+// supporting floor, with a dashpot beside it when there is a damper; a text list beside. Springs
+// on a base block: the base drawn to scale under the springs (plan and elevation), the coils
+// down to its top face (their height is then the real spring height), the ground at its underside.
 
 type View = "plan" | "elevation";
 
@@ -61,9 +63,11 @@ function extents(form: DraftForm, view: View) {
   const springSymbol = { r: Math.max(spanOfBlock * 0.035, 1e-3), h: Math.max(spanOfBlock * 0.12, 1e-3) };
   const springA = springs ? springs.flatMap((sp) => [sp.x - springSymbol.r, sp.x + springSymbol.r]) : [];
   const springB = springs ? (view === "plan" ? springs.flatMap((sp) => [sp.y - springSymbol.r, sp.y + springSymbol.r]) : [-springSymbol.h]) : [];
-  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a), ...pileA, ...springA];
-  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b), ...pileB, ...springB];
-  return { rects, points, solids, piles, springs, springSymbol, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
+  const sb = springs ? springsBaseOf(form) : null;
+  const base = sb ? { a0: sb.x[0], a1: sb.x[1], b0: view === "plan" ? sb.y[0] : sb.z[0], b1: view === "plan" ? sb.y[1] : sb.z[1], top: sb.z[1] } : null;
+  const all = [...solids.flatMap((r) => [r.a0, r.a1]), ...points.map((p) => p.a), ...pileA, ...springA, ...(base ? [base.a0, base.a1] : [])];
+  const allB = [...solids.flatMap((r) => [r.b0, r.b1]), ...points.map((p) => p.b), ...pileB, ...(base ? [base.b0, base.b1] : springB)];
+  return { rects, points, solids, piles, springs, springSymbol, base, aMin: Math.min(...all), aMax: Math.max(...all), bMin: Math.min(...allB), bMax: Math.max(...allB) };
 }
 
 /** The piles of method "piles" with every number present (heads with a blank coordinate are left out). */
@@ -151,20 +155,29 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
             : [...new Map(e.springs.map((sp) => [sp.x, sp])).values()].map((sp) => {
                 const w = e.springSymbol.r * s;
                 const damper = e.springs!.some((o) => o.x === sp.x && o.damper);
+                const bottom = e.base ? e.base.top : -e.springSymbol.h;
                 return (
                   <g key={sp.x} data-spring={sp.n}>
-                    <path d={coilPath(X(sp.x), Y(0), Y(-e.springSymbol.h), w)} />
+                    <path d={coilPath(X(sp.x), Y(0), Y(bottom), w)} />
                     {damper ? (
                       <g data-damper={sp.n}>
-                        <rect x={X(sp.x) + 1.4 * w} y={Y(0) + (Y(-e.springSymbol.h) - Y(0)) * 0.45} width={0.8 * w} height={(Y(-e.springSymbol.h) - Y(0)) * 0.55} />
-                        <line x1={X(sp.x) + 1.8 * w} x2={X(sp.x) + 1.8 * w} y1={Y(0)} y2={Y(0) + (Y(-e.springSymbol.h) - Y(0)) * 0.6} />
+                        <rect x={X(sp.x) + 1.4 * w} y={Y(0) + (Y(bottom) - Y(0)) * 0.45} width={0.8 * w} height={(Y(bottom) - Y(0)) * 0.55} />
+                        <line x1={X(sp.x) + 1.8 * w} x2={X(sp.x) + 1.8 * w} y1={Y(0)} y2={Y(0) + (Y(bottom) - Y(0)) * 0.6} />
                       </g>
                     ) : null}
                     <title>{`spring at x = ${formatLength(sp.x)}${damper ? " with damper" : ""}`}</title>
                   </g>
                 );
               })}
-          {view === "elevation" ? <line x1={X(e.aMin)} x2={X(e.aMax)} y1={Y(-e.springSymbol.h)} y2={Y(-e.springSymbol.h)} strokeWidth={1.5} /> : null}
+          {view === "elevation" && !e.base ? <line x1={X(e.aMin)} x2={X(e.aMax)} y1={Y(-e.springSymbol.h)} y2={Y(-e.springSymbol.h)} strokeWidth={1.5} /> : null}
+        </g>
+      ) : null}
+      {e.base ? (
+        <g data-testid={`springs-base-${view}`}>
+          <rect x={X(e.base.a0)} y={Y(e.base.b1)} width={(e.base.a1 - e.base.a0) * s} height={(e.base.b1 - e.base.b0) * s} fill={view === "plan" ? "none" : "#efe9dc"} stroke="#3a4d57" strokeWidth={1.2} strokeDasharray={view === "plan" ? "6 3" : undefined}>
+            <title>base block under the springs</title>
+          </rect>
+          {view === "elevation" ? <line x1={8} x2={W - 8} y1={Y(e.base.b0)} y2={Y(e.base.b0)} stroke="#6b5b3e" strokeWidth={1.5} /> : null}
         </g>
       ) : null}
       {e.rects.map((r, i) => (
@@ -232,6 +245,7 @@ function OneView({ form, view, cg, formatLength }: { form: DraftForm; view: View
 export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; mass?: MassPropertiesResult; formatLength: (m: number) => string }) {
   const piles = pilesOf(form);
   const springs = springsOf(form);
+  const springsBase = springs ? springsBaseOf(form) : null;
   return (
     <div className="grid grid-cols-1 gap-3 xl:grid-cols-2">
       <figure>
@@ -242,7 +256,8 @@ export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; ma
         <OneView form={form} view="elevation" cg={mass?.cg as [number, number, number] | undefined} formatLength={formatLength} />
         <figcaption className="mt-1 text-2xs text-basalt-400">
           Elevation, looking along +y. Dashed line: underside of the base (z = 0).{piles ? " Shaded below it: the pile shafts to their length (piles behind one another drawn once)." : ""}
-          {springs ? " Below it: the springs (coils; a dashpot beside where there is a damper) down to the supporting floor (heavy line); springs behind one another drawn once; their height is schematic." : ""}
+          {springs && !springsBase ? " Below it: the springs (coils; a dashpot beside where there is a damper) down to the supporting floor (heavy line); springs behind one another drawn once; their height is schematic." : ""}
+          {springs && springsBase ? " Below it: the springs (coils; a dashpot beside where there is a damper) down to the base block (shaded, to scale, the spring height as typed), the base on the ground (heavy line at its underside); springs behind one another drawn once." : ""}
         </figcaption>
       </figure>
       {piles ? (
@@ -262,6 +277,9 @@ export function BlockDrawing({ form, mass, formatLength }: { form: DraftForm; ma
           <p>
             Springs (circles with a cross in plan, under the block; a square inside: with a damper): {springs.length} at their positions to scale; the symbols&apos; size is schematic (the spring table gives no
             spring size).
+            {springsBase
+              ? ` They stand on a base block (dashed in plan, shaded in elevation) ${formatLength(springsBase.x[1] - springsBase.x[0])} × ${formatLength(springsBase.y[1] - springsBase.y[0])} × ${formatLength(springsBase.z[1] - springsBase.z[0])}, its top at z = ${formatLength(springsBase.z[1])}, on the soil.`
+              : ""}
           </p>
           <ul className="sr-only" data-testid="springs-list">
             {springs.map((sp) => (

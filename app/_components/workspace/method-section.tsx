@@ -2,7 +2,7 @@
 
 import { FieldArray, useFormikContext } from "formik";
 import { CRITERIA_DEFAULTS, SOIL_BAND_DEFAULTS, SWEEP_DEFAULTS } from "@/modules/calc";
-import { newPileHead, newPilesForm, newSpring, type DraftForm } from "@/modules/desk/draft-form";
+import { newPileHead, newPilesForm, newSpring, newSpringsBase, type DraftForm } from "@/modules/desk/draft-form";
 import { NumberField } from "./number-field";
 import { formatDefault } from "@/modules/units";
 import { useUnits, type QuantityKey } from "./units-context";
@@ -94,7 +94,8 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
             <div className="space-y-2">
               <p className="text-2xs text-basalt-400">
                 Spring positions in plan (the spring tops bear on the underside of the block), catalogue stiffness as typed. The layout must be symmetric about the centroid of the base:
-                a stiffness centre off it couples the modes, which this method does not model, and the input is refused. Soil material damping is not applied. Blank dampers and
+                a stiffness centre off it couples the modes, which this method does not model, and the input is refused.{" "}
+                {values.impedance.springsBase?.restsOn === "base" ? "Soil material damping applies to the soil under the base block only." : "Soil material damping is not applied."} Blank dampers and
                 ratio: 0.5 % of critical (common practice for steel springs).
               </p>
               {(values.impedance.springs ?? []).map((_, i) => (
@@ -120,6 +121,7 @@ export function MethodSection({ readOnly, projectCriteria }: { readOnly: boolean
               <div className="max-w-xs">
                 <NumberField name="impedance.springsDampingRatio" label="Damping ratio (without dampers)" kind="ratio" readOnly={readOnly} />
               </div>
+              <SpringsBaseFields readOnly={readOnly} />
             </div>
           )}
         </FieldArray>
@@ -253,6 +255,86 @@ function PilesFields({ piles, readOnly, setFieldValue }: { piles: PilesForm; rea
           </div>
         )}
       </FieldArray>
+    </div>
+  );
+}
+
+/** Springs only: what the springs rest on, a rigid floor or a base block on the soil (two-stage isolation, engine 1.8.0). */
+function SpringsBaseFields({ readOnly }: { readOnly: boolean }) {
+  const { values, setFieldValue } = useFormikContext<DraftForm>();
+  const base = values.impedance.springsBase;
+  const onBase = base?.restsOn === "base";
+  const supports = [
+    { value: "gazetas", label: "Gazetas (1991) for the base's footprint, with the dynamic coefficients chosen below" },
+    { value: "equivalent-radius", label: "Equivalent-radius half-space (Richart, Hall & Woods 1970; Lysmer's analog damping)" },
+    { value: "user", label: "Springs and damping ratios of the soil under the base from the geotechnical report" },
+  ] as const;
+  return (
+    <div className="space-y-2" data-testid="springs-base-fields">
+      <fieldset className="space-y-1" disabled={readOnly}>
+        <legend className="field-label">The springs rest on</legend>
+        <label className="flex items-start gap-2 text-sm">
+          <input type="radio" name="impedance.springsBase.restsOn" checked={!onBase} onChange={() => void setFieldValue("impedance.springsBase", base ? { ...base, restsOn: "floor" } : undefined)} className="mt-1" />
+          <span>A rigid floor</span>
+        </label>
+        <label className="flex items-start gap-2 text-sm">
+          <input type="radio" name="impedance.springsBase.restsOn" checked={onBase} onChange={() => void setFieldValue("impedance.springsBase", base ? { ...base, restsOn: "base" } : newSpringsBase())} className="mt-1" />
+          <span>A base block on the soil (two-stage isolation: twelve degrees of freedom)</span>
+        </label>
+      </fieldset>
+      {onBase && base ? (
+        <div className="space-y-2">
+          <p className="text-2xs text-basalt-400">
+            One rectangular concrete box in block coordinates; its top at or below the block&apos;s underside (the springs stand between them), every spring on it. The soil inputs
+            above are the soil under the base (embedment at most the base&apos;s thickness). Speed ramps are not computed on a base block.
+          </p>
+          <div className="grid max-w-4xl grid-cols-2 gap-2 md:grid-cols-7">
+            <NumberField name="impedance.springsBase.x.0" label="Base x from" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.x.1" label="Base x to" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.y.0" label="Base y from" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.y.1" label="Base y to" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.z.0" label="Base z from" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.z.1" label="Base z to" kind="length" readOnly={readOnly} compact />
+            <NumberField name="impedance.springsBase.concreteDensity" label="Base concrete density" kind="density" hint="Blank: the block's" readOnly={readOnly} compact />
+          </div>
+          <fieldset className="space-y-1" disabled={readOnly}>
+            <legend className="field-label">Soil under the base</legend>
+            {supports.map((o) => (
+              <label key={o.value} className="flex items-start gap-2 text-sm">
+                <input type="radio" name="impedance.springsBase.support" checked={base.support === o.value} onChange={() => void setFieldValue("impedance.springsBase.support", o.value)} className="mt-1" />
+                <span>{o.label}</span>
+              </label>
+            ))}
+          </fieldset>
+          {base.support === "gazetas" ? (
+            <fieldset className="space-y-1" disabled={readOnly}>
+              <legend className="field-label">Dynamic coefficients under the base</legend>
+              {(
+                [
+                  ["published", "Gazetas' charts (1991, digitised)"],
+                  ["pais-kausel", "Pais & Kausel closed forms (1988)"],
+                  ["simplified", "Simplified: k = 1, every dashpot coefficient 1 (warned)"],
+                ] as const
+              ).map(([value, label]) => (
+                <label key={value} className="flex items-start gap-2 text-sm">
+                  <input type="radio" name="impedance.gazetasDynamic" checked={values.impedance.gazetasDynamic === value} onChange={() => void setFieldValue("impedance.gazetasDynamic", value)} className="mt-1" />
+                  <span>{label}</span>
+                </label>
+              ))}
+            </fieldset>
+          ) : null}
+          {base.support === "user" ? (
+            <div className="grid grid-cols-2 gap-2 md:grid-cols-3">
+              {dofs.map(([k, label, kind]) => (
+                <div key={k} className="grid grid-cols-2 gap-1">
+                  <NumberField name={`impedance.stiffness.${k}`} label={`Base ${label.toLowerCase()} k`} kind={kind} readOnly={readOnly} />
+                  <NumberField name={`impedance.dampingRatio.${k}`} label={`base ${label.toLowerCase()} damping ratio`} kind="ratio" readOnly={readOnly} />
+                </div>
+              ))}
+            </div>
+          ) : null}
+        </div>
+      ) : null}
     </div>
   );
 }

@@ -227,7 +227,9 @@ export function ImpedanceTable({ result }: { result: AnalysisResult }) {
       : imp.method === "gazetas"
         ? `Gazetas (1991) rectangular-base static stiffness × dynamic multipliers k(a0), radiation dashpots; dynamic coefficients: ${dynamic?.label ?? ""}`
         : imp.method === "springs"
-          ? "Steel springs at their positions, assembled at O (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²)"
+          ? result.springs?.base
+            ? "Steel springs at their positions (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²) standing on a base block on the soil; the table gives the support the block sees, Z = S_s − S_s T (Tᵀ S_s T + D_b)⁻¹ Tᵀ S_s (springs in series with the base on the soil), real part and Im Z / ω"
+            : "Steel springs at their positions, assembled at O (K_z = Σkz, K_rx = Σkz y², K_ry = Σkz x², K_rz = Σkh r²)"
           : imp.method === "piles"
             ? "Rigid cap on vertical flexible piles: single-pile head stiffness and damping (Gazetas 1991; vertical: a compressible rod whose static limit is Randolph & Wroth 1978), group at O by superposition with the dynamic interaction factors of Dobry & Gazetas (1988); a full 6 × 6 with the sway-rocking coupling; the cap's own soil contact ignored"
             : "Springs and damping ratios given by the user";
@@ -411,6 +413,54 @@ function SpringsTable({ springs }: { springs: NonNullable<AnalysisResult["spring
         </tbody>
       </table>
       <p className="text-2xs text-basalt-400">{springs.transmissibilitySource}</p>
+      {springs.base ? <SpringsBaseTable base={springs.base} /> : null}
+    </div>
+  );
+}
+
+/** Springs on a base block: the base, the soil under it, the force into the ground and the base's motion. */
+function SpringsBaseTable({ base }: { base: NonNullable<NonNullable<AnalysisResult["springs"]>["base"]> }) {
+  const u = useUnits();
+  const len = (v: number) => `${u.toResultText("length", v)} ${u.unitLabel("length")}`;
+  const hz = (v: number) => `${u.toResultText("frequency", v)} ${u.unitLabel("frequency")}`;
+  return (
+    <div className="space-y-2" data-testid="springs-base-results">
+      <p className="text-xs font-semibold text-basalt-700">Base block under the springs</p>
+      <p className="text-xs">
+        {len(base.dimensions[0])} × {len(base.dimensions[1])} × {len(base.dimensions[2])} · mass {u.toResultText("largeMass", base.mass)} {u.unitLabel("largeMass")} · spring height{" "}
+        {len(base.springHeight)} · static bearing pressure under the base {u.toResultText("pressure", base.staticBearingPressure)} {u.unitLabel("pressure")} (block, machines and base)
+      </p>
+      <p className="text-xs">
+        Two-mass vertical frequencies {hz(base.twoMassVerticalHz[0])} and {hz(base.twoMassVerticalHz[1])} · highest mode of the block on its springs {hz(base.isolatorModesHighestHz)} · same
+        springs on a rigid floor {hz(base.rigidFloorHighestHz)} · soil under the base ({base.supportMethod}) K_z {u.toResultText("stiffness", base.soilStiffness.z)} {u.unitLabel("stiffness")} at{" "}
+        {hz(base.evaluatedAtHz)}
+      </p>
+      <table>
+        <thead>
+          <tr>
+            <th>Rotor, case (rated speed)</th>
+            <th className="text-right">Force into the ground x, y, z ({u.unitLabel("force")})</th>
+            <th className="text-right">Base displacement x, y, z ({u.unitLabel("displacement")})</th>
+          </tr>
+        </thead>
+        <tbody>
+          {base.rotors.flatMap((r) =>
+            r.cases.map((c) => (
+              <tr key={`${r.machine}/${r.rotor}/${c.case}/${c.unbalanceMode}`}>
+                <td className="text-xs">
+                  {r.machine} {r.rotor}, {c.case} ({c.unbalanceMode})
+                </td>
+                <td className="text-right font-mono text-xs">{c.groundForce.map((v) => u.toResultText("force", v)).join(", ")}</td>
+                <td className="text-right font-mono text-xs">{c.baseDisplacementPeak.map((v) => u.toResultText("displacement", v)).join(", ")}</td>
+              </tr>
+            )),
+          )}
+        </tbody>
+      </table>
+      <p className="text-2xs text-basalt-400">
+        Twelve degrees of freedom: the base is condensed out exactly at each frequency; the spring forces come from the relative motion of the block and the base, the force into the
+        ground from the soil under the base. The isolation above is measured at the ground. The block&apos;s own amplitudes are in the response table.
+      </p>
     </div>
   );
 }
@@ -418,6 +468,7 @@ function SpringsTable({ springs }: { springs: NonNullable<AnalysisResult["spring
 export function ModesTable({ result }: { result: AnalysisResult }) {
   const lower = result.bounds?.lower.frequenciesHz;
   const upper = result.bounds?.upper.frequenciesHz;
+  const twoStage = result.modes.some((m) => m.block !== undefined);
   return (
     <div>
       <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Natural frequencies and modes, scrollable">
@@ -427,6 +478,7 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
               <th>Mode</th>
               <th className="text-right">f (Hz)</th>
               <th>Dominant</th>
+              {twoStage ? <th>Block</th> : null}
               <th className="text-right">Soil band (Hz)</th>
               {result.rotors.map((r) => (
                 <th key={`${r.machine}-${r.rotor}`} className="text-right">
@@ -443,6 +495,7 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
                 <td className="text-xs">
                   {dofLabel[m.dominant]} ({(m.participation[m.dominant] * 100).toFixed(0)} %)
                 </td>
+                {twoStage ? <td className="text-xs">{m.block === "base" ? "base block" : "block on springs"} ({((m.upperShare ?? 1) * 100).toFixed(0)} % block)</td> : null}
                 <td className="text-right font-mono text-xs">{lower && upper ? `${sig(lower[i] ?? Number.NaN)} – ${sig(upper[i] ?? Number.NaN)}` : "—"}</td>
                 {result.rotors.map((r) => {
                   const ratio = r.frequencyRatios[i] ?? 0;
@@ -459,7 +512,11 @@ export function ModesTable({ result }: { result: AnalysisResult }) {
         </table>
       </div>
       <Explain
-        method="Undamped generalised eigenproblem K φ = ω² M φ of the rigid block with six degrees of freedom at O (mass matrix about O, springs at O); frequency ratio r = rated speed / natural frequency."
+        method={
+          twoStage
+            ? "Undamped generalised eigenproblem K φ = ω² M φ of the block on its springs and the base block on the soil, twelve degrees of freedom (soil under the base at the first rotor's rated speed); frequency ratio r = rated speed / natural frequency."
+            : "Undamped generalised eigenproblem K φ = ω² M φ of the rigid block with six degrees of freedom at O (mass matrix about O, springs at O); frequency ratio r = rated speed / natural frequency."
+        }
         formula="det(K − ω² M) = 0; f = ω / 2π; participation = M_ii φ_i² / Σ M_jj φ_j²"
         source="Standard structural dynamics (e.g. Chopra, Dynamics of Structures); soil band: G / 1.5 and 1.5 G, common practice (ASCE 4, recalled from memory)"
         inputs={result.rotors.map((r) => [`${r.machine} ${r.rotor} rated`, `${r.speedRpm} rpm = ${sig(r.speedRpm / 60)} Hz`] as [string, string])}
@@ -472,6 +529,12 @@ export function ResponseTable({ result }: { result: AnalysisResult }) {
   const u = useUnits();
   return (
     <div className="space-y-3">
+      {result.springs?.base ? (
+        <p className="text-2xs text-basalt-400" data-testid="response-base-note">
+          Springs on a base block: the transmitted force and the transmissibility below are the force into the ground under the base; the force in each spring and the base&apos;s
+          own motion are in the soil-springs panel.
+        </p>
+      ) : null}
       {result.rotors.map((r) => (
         <div key={`${r.machine}-${r.rotor}`}>
           <p className="text-xs font-semibold text-basalt-700">

@@ -487,7 +487,9 @@ function PeakTable({ run, index }: { run: TransientResult; index: number }) {
 
 function RampResult({ result, run, index }: { result: AnalysisResult; run: TransientResult; index: number }) {
   const u = useUnits();
-  const beta = result.impedance.materialDamping ?? 0;
+  // springs on a base block: twelve DOFs, the soil's beta is the base's
+  const onBase = result.springs?.base !== undefined;
+  const beta = onBase ? (result.springs?.base?.soilMaterialDamping ?? 0) : (result.impedance.materialDamping ?? 0);
   const passed = passedNaturalFrequencies(run);
   const dofs = ["x", "y", "z", "rx", "ry", "rz"] as const;
   const springText = (k: (typeof dofs)[number]) => {
@@ -503,7 +505,7 @@ function RampResult({ result, run, index }: { result: AnalysisResult; run: Trans
       <RampPlot result={result} run={run} index={index} />
       <Explain
         title="How this plot was computed"
-        method={`${SPEED_RAMP_METHOD.integration}, on the six-degree-of-freedom block of the harmonic analysis, in ${run.steps.toLocaleString("en-US")} steps of ${u.toResultText("time", run.timeStepS)} ${u.unitLabel("time")} (${run.stepsPerShortestPeriod.toFixed(1)} per period of the highest frequency of the ramp). The speed changes at a constant rate from ${run.fromRpm} to ${run.toRpm} rpm. Springs and dashpots are frozen at the rotor's rated speed (${run.model.referenceHz.toFixed(2)} Hz); the material damping β becomes the viscous dashpot 2βK/ω_rated. Each curve keeps, per plot interval, the largest component of the bearing's motion; the dashed curve is the harmonic steady state of the frequency sweep at the same bearings.`}
+        method={`${SPEED_RAMP_METHOD.integration}, on ${onBase ? "the twelve-degree-of-freedom model of the harmonic analysis (the block on its springs, the base block on the soil; k and c below are the steel springs')" : "the six-degree-of-freedom block of the harmonic analysis"}, in ${run.steps.toLocaleString("en-US")} steps of ${u.toResultText("time", run.timeStepS)} ${u.unitLabel("time")} (${run.stepsPerShortestPeriod.toFixed(1)} per period of the highest frequency of the ramp). The speed changes at a constant rate from ${run.fromRpm} to ${run.toRpm} rpm. Springs and dashpots are frozen at the rotor's rated speed (${run.model.referenceHz.toFixed(2)} Hz); the material damping β becomes the viscous dashpot 2βK/ω_rated. Each curve keeps, per plot interval, the largest component of the bearing's motion; the dashed curve is the harmonic steady state of the frequency sweep at the same bearings.`}
         formula={
           <>
             M ü + C u̇ + K u = Re(P (m e ω² − i m e α) e^(iφ)), φ = ω₀t + αt²/2; C = C_soil(ω_rated) + 2βK/ω_rated

@@ -62,7 +62,7 @@ export function expectUnitsEverywhere(wb: ExcelJS.Workbook, sheets: string[]): n
         r.forEach((v, i) => {
           if (typeof v !== "number") return;
           const where = pairs ? String(r[0]) : (t.headers[i] ?? "");
-          const countLike = /^(Mode|Sequence|Bearings?|Revisions|Rotors|Checks|Failing|Open comments|Points|Failing checks|Nearest mode|Open review comments|Run|Steps|Plot intervals)\b/.test(where);
+          const countLike = /^(Mode|Sequence|Bearings?|Revisions|Rotors|Checks|Failing|Open comments|Points|Failing checks|Nearest mode|Open review comments|Run|Steps|Plot intervals)\b/.test(where) || /^(Spring|Pile)$/.test(where);
           if (!countLike) expect(unitIn(where), `${name} / ${t.title} / ${where}: unit in header`).toBeDefined();
           checked += 1;
         });

@@ -8,7 +8,9 @@ import { describe, expect, it } from "vitest";
 import { parseAnalysisInput } from "@/modules/calc";
 import { buildRevisionWorkbook, PACKAGE_SHEETS } from "@/modules/calc-package";
 import { DOF_NAMES } from "@/modules/calc-package/revision-workbook";
+import { HAND_CHECK_BASE_NOTE } from "@/modules/calc-package/hand-check-sheet";
 import { packageData, roundTrip } from "./fixtures";
+import { expectRevisionNumbers, expectUnitsEverywhere } from "./package-expectations";
 
 function texts(ws: ExcelJS.Worksheet): string[] {
   const out: string[] = [];
@@ -104,4 +106,34 @@ describe("package of a pile cap (method piles, engine 1.6.0)", () => {
       }
     });
   }
+});
+
+describe("package of springs on a base block (engine 1.8.0)", () => {
+  it("the inputs sheet lists the base, the soil-springs sheet its mass, bearing pressure, soil springs and the force into the ground, the modes sheet the block of each mode", async () => {
+    const p = parseAnalysisInput(JSON.parse(readFileSync(path.join(process.cwd(), "examples", "fan-on-springs-base-block.json"), "utf8")));
+    if (!p.ok) throw new Error("example invalid");
+    const d = packageData(p.input, "si");
+    const base = d.result.springs!.base!;
+    const wb = await roundTrip(Buffer.from(await buildRevisionWorkbook(d).xlsx.writeBuffer()));
+    const inputs = wb.getWorksheet(PACKAGE_SHEETS.inputs)!;
+    expect(texts(inputs).some((t) => t.startsWith("Base block under the springs"))).toBe(true);
+    expect(Number(rowWith(inputs, "Base z from").getCell(2).value)).toBeCloseTo(-2.1, 9);
+    expect(Number(rowWith(inputs, "Base z to (top, the springs' bottoms)").getCell(2).value)).toBeCloseTo(-0.3, 9);
+    const springs = wb.getWorksheet(PACKAGE_SHEETS.springs)!;
+    // the package's SI units: t for a large mass, kPa for a pressure
+    expect(Number(rowWith(springs, "Base mass").getCell(2).value)).toBeCloseTo(base.mass / 1000, 6);
+    expect(Number(rowWith(springs, "Static bearing pressure under the base (block, machines and base)").getCell(2).value)).toBeCloseTo(base.staticBearingPressure / 1000, 6);
+    expect(texts(springs)).toContain("Force into the ground and motion of the base at the rated speed");
+    expect(texts(springs)).toContain("Isolation per operating speed (force into the ground, twelve-DOF steady state)");
+    const modes = wb.getWorksheet(PACKAGE_SHEETS.modes)!;
+    expect(texts(modes).filter((t) => t === "base block")).toHaveLength(6);
+    // every number of the package has its unit, and the package's numbers are the revision's, in both unit systems
+    expectUnitsEverywhere(wb, Object.values(PACKAGE_SHEETS).filter((n) => n !== PACKAGE_SHEETS.handCheck && wb.getWorksheet(n)));
+    expectRevisionNumbers(wb, d.input, d.result);
+    const us = packageData(p.input, "us");
+    const wbUs = await roundTrip(Buffer.from(await buildRevisionWorkbook(us).xlsx.writeBuffer()));
+    expectUnitsEverywhere(wbUs, Object.values(PACKAGE_SHEETS).filter((n) => n !== PACKAGE_SHEETS.handCheck && wbUs.getWorksheet(n)));
+    // the hand check says what its k_z and transmissibility are on a base block
+    expect(texts(wb.getWorksheet(PACKAGE_SHEETS.handCheck)!).some((t) => t.includes(HAND_CHECK_BASE_NOTE))).toBe(true);
+  });
 });

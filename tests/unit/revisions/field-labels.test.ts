@@ -54,3 +54,12 @@ describe("fieldLabel", () => {
     }
   });
 });
+
+describe("labels of springs on a base block (engine 1.8.0)", () => {
+  it("names the base's inputs and results in the trade's words", () => {
+    expect(fieldLabel("impedance.base.z[1]")).toBe("Soil springs · base block under the springs · z to");
+    expect(fieldLabel("impedance.base.support.method")).toBe("Soil springs · base block under the springs · soil under the base · method");
+    expect(fieldLabel("springs.base.staticBearingPressure")).toBe("Springs · base block · static bearing pressure");
+    expect(fieldLabel("springs.base.rotors[0].cases[1].groundForce[2]")).toMatch(/force into the ground z$/);
+  });
+});

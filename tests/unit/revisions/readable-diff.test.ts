@@ -164,3 +164,23 @@ describe("labels, groups and units", () => {
   });
 });
 
+
+describe("springs on a base block (engine 1.8.0) in the comparison", () => {
+  it("names the base's inputs and its results (mass, force into the ground) in words with their units", () => {
+    const a = example("fan-on-springs-base-block.json");
+    const b = structuredClone(a);
+    if (b.impedance.method !== "springs" || !b.impedance.base) throw new Error("example has no base");
+    b.impedance.base.z = [-2.4, -0.3];
+    const d = readableDiff({ input: a, result: analyse(a) }, { input: b, result: analyse(b) }, "si");
+    const z = d.inputs.find((r) => r.path === "impedance.base.z[0]");
+    expect(z).toMatchObject({ label: "impedance · base block under the springs · z · from", quantity: "length", unit: "m", oldText: "-2.100", newText: "-2.400" });
+    const mass = d.results.find((r) => r.path === "springs.base.mass");
+    expect(mass?.quantity).toBe("largeMass");
+    expect(mass?.unit).toBe("t");
+    const ground = [...d.results, ...d.amplitudes].find((r) => /groundForce\[2\]$/.test(r.path));
+    expect(ground?.label).toMatch(/force into the ground · z$/);
+    expect(ground?.quantity).toBe("force");
+    expect(kindOfPath("springs.base.soilStiffness.rx")).toBe("rotationalStiffness");
+    expect(labelOfPath("impedance.base.support.method")).toBe("impedance · base block under the springs · soil under the base · method");
+  });
+});
